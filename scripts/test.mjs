@@ -1,0 +1,58 @@
+// `npm test`: every suite against a throwaway MariaDB and headless Chromium it starts itself.
+// Ends with one plain line `N passed, N failed` summing all suites. Extra arguments go to vitest
+// (e.g. `npm test -- --project shared`).
+import { rmSync, mkdirSync, readFileSync, existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { ensureDebianPackages, ensureNodeModules, root, run } from './lib/system.mjs';
+
+ensureNodeModules();
+ensureDebianPackages({ mariadbd: 'mariadb-server', chromium: 'chromium', pdftoppm: 'poppler-utils' });
+
+const { startMariaDB } = await import('./lib/mariadb.mjs');
+const { databases } = await import('./lib/databases.mjs');
+const { startChild, onStop, stopAll, waitForExit } = await import('./lib/processes.mjs');
+
+const resultsDir = join(root, 'tests', '.results');
+const resultsFile = join(resultsDir, 'vitest.json');
+let exitCode = 1;
+try {
+  // Throwaway: a fresh data directory every run, so no state leaks between runs.
+  const dir = join(root, databases.test.dir);
+  rmSync(dir, { recursive: true, force: true });
+  const db = await startMariaDB({ ...databases.test, dir });
+  onStop(() => db.stop());
+
+  // The browser suite gets a database of its own, so the demo seed never meets other suites' rows.
+  const e2eDatabase = `${databases.test.database}_e2e`;
+  db.sql(`CREATE DATABASE \`${e2eDatabase}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+    GRANT ALL PRIVILEGES ON \`${e2eDatabase}\`.* TO '${databases.test.user}'@'127.0.0.1';`);
+
+  rmSync(resultsDir, { recursive: true, force: true });
+  mkdirSync(resultsDir, { recursive: true });
+  const env = { ...process.env, ...db.env, SHEDWRIGHT_TEST: '1', SHEDWRIGHT_E2E_DB_NAME: e2eDatabase, SHEDWRIGHT_STATIC_DIR: join(root, 'dist') };
+
+  // The browser suite serves the built client.
+  run(join(root, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { env });
+
+  const vitest = startChild(join(root, 'node_modules/.bin/vitest'),
+    ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${resultsFile}`, ...process.argv.slice(2)],
+    { env, cwd: root });
+  const code = await waitForExit(vitest);
+  const { passed, failed } = countResults(code);
+  exitCode = code !== 0 || failed > 0 ? 1 : 0;
+  await stopAll();
+  console.log(`${passed} passed, ${failed} failed`);
+} catch (err) {
+  console.error(`npm test could not run: ${err.stack ?? err}`);
+  await stopAll();
+  console.log('0 passed, 1 failed');
+}
+process.exit(exitCode);
+
+/** Sums vitest's JSON report; a file that failed to load counts as one failure. */
+function countResults(code) {
+  if (!existsSync(resultsFile)) return { passed: 0, failed: Math.max(1, code) };
+  const report = JSON.parse(readFileSync(resultsFile, 'utf8'));
+  const brokenFiles = report.testResults.filter((f) => f.status === 'failed' && f.assertionResults.length === 0).length;
+  return { passed: report.numPassedTests, failed: report.numFailedTests + brokenFiles };
+}
