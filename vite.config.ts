@@ -15,7 +15,7 @@ export default defineConfig({
     outDir: 'dist',
     rolldownOptions: {
       output: {
-        advancedChunks: {
+        codeSplitting: {
           groups: [
             { name: 'canvas', test: /node_modules[\\/](konva|react-konva)/ },
             { name: 'react', test: /node_modules[\\/](react|react-dom|react-router|react-router-dom|@tanstack|scheduler)[\\/]/ },
@@ -27,9 +27,8 @@ export default defineConfig({
   test: {
     // Each suite is a project so `scripts/test.mjs` can run them all and sum the counts.
     projects: [
-      { extends: false, test: { name: 'shared', include: ['tests/shared/**/*.test.ts'], environment: 'node' } },
+      { test: { name: 'shared', include: ['tests/shared/**/*.test.ts'], environment: 'node' } },
       {
-        extends: false,
         test: {
           name: 'server',
           include: ['tests/server/**/*.test.ts'],
@@ -49,7 +48,6 @@ export default defineConfig({
         },
       },
       {
-        extends: false,
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],

@@ -1,0 +1,38 @@
+import { Navigate, type RouteObject } from 'react-router-dom';
+import { Spinner } from '../components/ui/spinner';
+import { RouteError } from './route-error';
+import { NotFoundRoute } from './routes/not-found';
+
+/**
+ * The route table. Each page is its own chunk, loaded the first time someone goes there.
+ * NOTE: a function, not a constant: React Router caches resolved `lazy` results on the route
+ * objects, so a second router (each test builds one) must get fresh objects.
+ */
+export function createRoutes(): RouteObject[] {
+  return [
+    {
+      HydrateFallback: () => <Spinner />,
+      ErrorBoundary: RouteError,
+      children: [
+        { path: '/sign-in', lazy: { Component: async () => (await import('./routes/sign-in')).SignInRoute } },
+        { path: '/sign-up', lazy: { Component: async () => (await import('./routes/sign-up')).SignUpRoute } },
+        { path: '/forgot', lazy: { Component: async () => (await import('./routes/forgot')).ForgotRoute } },
+        { path: '/reset', lazy: { Component: async () => (await import('./routes/reset')).ResetRoute } },
+        { path: '/admin/mails', lazy: { Component: async () => (await import('./routes/admin-mails')).AdminMailsRoute } },
+        {
+          lazy: { Component: async () => (await import('./routes/app-layout')).AppLayout },
+          children: [
+            { index: true, element: <Navigate to="/drafts" replace /> },
+            { path: '/drafts', lazy: { Component: async () => (await import('./routes/drafts')).DraftsRoute } },
+            { path: '/drafts/:id', lazy: { Component: async () => (await import('./routes/draft')).DraftRoute } },
+            { path: '/studios', lazy: { Component: async () => (await import('./routes/studios')).StudiosRoute } },
+            { path: '/studios/:id', lazy: { Component: async () => (await import('./routes/studio')).StudioRoute } },
+            { path: '/account', lazy: { Component: async () => (await import('./routes/account')).AccountRoute } },
+          ],
+        },
+        // Static: the error boundary needs this page in the main chunk anyway.
+        { path: '*', Component: NotFoundRoute },
+      ],
+    },
+  ];
+}

@@ -1,0 +1,77 @@
+import { Link, useSearchParams } from 'react-router-dom';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { ErrorNotice } from '../../../components/ui/error-notice';
+import { Spinner } from '../../../components/ui/spinner';
+import { useDrafts } from '../api/get-drafts';
+import { draftsSearchToParams, pageCount, parseDraftsSearch, toggleSort, type DraftsSearch } from '../drafts-search';
+import { DraftsSearchForm } from './drafts-search-form';
+import { DraftsTable } from './drafts-table';
+import { Pagination } from './pagination';
+
+/** The Drafts library: search, sort and pages live in the URL; the server does the work. */
+export function DraftsLibrary() {
+  const [params, setParams] = useSearchParams();
+  const search = parseDraftsSearch(params);
+  const drafts = useDrafts(search);
+  const go = (next: DraftsSearch) => setParams(draftsSearchToParams(next));
+
+  return (
+    <div className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <DraftsSearchForm query={search.q} onSearch={(q) => go({ ...search, q, page: 1 })} />
+        {drafts.data && (
+          <p aria-live="polite" className="text-sm text-muted">
+            {drafts.data.total === 1 ? '1 draft' : `${drafts.data.total} drafts`}
+            {search.q && ` matching “${search.q}”`}
+          </p>
+        )}
+      </div>
+
+      {drafts.isPending ? (
+        <Spinner label="Loading drafts…" />
+      ) : drafts.isError ? (
+        <ErrorNotice title="Could not load drafts" error={drafts.error} onRetry={() => void drafts.refetch()} />
+      ) : drafts.data.total === 0 ? (
+        search.q ? (
+          <EmptyState
+            title={`No drafts match “${search.q}”`}
+            action={
+              <Link to="/drafts" className="text-accent underline underline-offset-4">
+                Clear search
+              </Link>
+            }
+          >
+            Try part of the name, or a tag.
+          </EmptyState>
+        ) : (
+          <EmptyState title="No drafts yet">
+            Drafts you make, and drafts shared with your studios, will be listed here.
+          </EmptyState>
+        )
+      ) : drafts.data.items.length === 0 ? (
+        <EmptyState
+          title="This page is past the last draft"
+          action={
+            <Link
+              to={{ search: draftsSearchToParams({ ...search, page: pageCount(drafts.data.total, search.pageSize) }).toString() }}
+              className="text-accent underline underline-offset-4"
+            >
+              Go to the last page
+            </Link>
+          }
+        />
+      ) : (
+        <>
+          <DraftsTable drafts={drafts.data.items} search={search} onSort={(sort) => go(toggleSort(search, sort))} stale={drafts.isPlaceholderData} />
+          <Pagination
+            page={search.page}
+            pageSize={search.pageSize}
+            total={drafts.data.total}
+            onPage={(page) => go({ ...search, page })}
+            onPageSize={(pageSize) => go({ ...search, pageSize, page: 1 })}
+          />
+        </>
+      )}
+    </div>
+  );
+}

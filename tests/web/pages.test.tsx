@@ -1,0 +1,116 @@
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { draftDetail, sessionUser } from './support/factories';
+import { apiError, mockApi } from './support/mock-api';
+import { renderApp } from './support/render';
+
+describe('draft page', () => {
+  it('shows the draft facts and the region the editor mounts in', async () => {
+    mockApi({
+      'GET /api/session': { body: { user: sessionUser() } },
+      'GET /api/drafts/7': { body: { draft: draftDetail({ id: 7, name: 'Two-block table mat', ends: 240, picks: 300, shafts: 8, role: 'viewer', studioName: 'Mill Lane Studio' }) } },
+    });
+    renderApp('/drafts/7');
+    expect(await screen.findByRole('heading', { level: 1, name: 'Two-block table mat' })).toBeTruthy();
+    const fact = (label: string) => screen.getByText(label, { selector: 'dt' }).nextElementSibling?.textContent;
+    expect(fact('Ends × picks')).toBe('240 × 300');
+    expect(fact('Shafts')).toBe('8');
+    expect(fact('Your role')).toBe('Viewer');
+    expect(fact('Studio')).toBe('Mill Lane Studio');
+    expect(screen.getByRole('region', { name: 'Draft editor' })).toBeTruthy();
+  });
+
+  it('says when a draft is not there or not shared', async () => {
+    mockApi({ 'GET /api/session': { body: { user: sessionUser() } }, 'GET /api/drafts/8': apiError(404, 'not_found', 'No such draft.') });
+    renderApp('/drafts/8');
+    expect(await screen.findByRole('heading', { name: 'Draft not found' })).toBeTruthy();
+  });
+
+  it('treats a malformed id as an unknown page without asking the server', async () => {
+    mockApi({ 'GET /api/session': { body: { user: sessionUser() } } });
+    renderApp('/drafts/abc');
+    expect(await screen.findByRole('heading', { name: 'Page not found' })).toBeTruthy();
+  });
+});
+
+describe('captured mails', () => {
+  it('lists mails with their links clickable', async () => {
+    mockApi({
+      'GET /api/session': { body: { user: sessionUser({ isAdmin: true }) } },
+      'GET /api/dev/mails': {
+        body: {
+          mails: [
+            { id: 'm1', to: 'wren@example.test', subject: 'Choose a new password', text: 'Open http://127.0.0.1:4780/reset?token=t0k within an hour.', date: '2025-03-14T10:00:00.000Z' },
+          ],
+        },
+      },
+    });
+    renderApp('/admin/mails');
+    const mail = await screen.findByRole('article', { name: 'Choose a new password' });
+    expect(within(mail).getByRole('link', { name: 'http://127.0.0.1:4780/reset?token=t0k' }).getAttribute('href')).toBe('http://127.0.0.1:4780/reset?token=t0k');
+    // Admins get the page inside the usual frame, with its place in the main navigation.
+    expect(within(screen.getByRole('navigation', { name: 'Main' })).getByRole('link', { name: 'Mails' })).toBeTruthy();
+  });
+
+  it('explains the refusal to someone who may not read them', async () => {
+    mockApi({ 'GET /api/session': { body: { user: null } }, 'GET /api/dev/mails': apiError(403, 'forbidden', 'Admins only.') });
+    renderApp('/admin/mails');
+    expect((await screen.findByRole('alert')).textContent).toContain('site admins');
+  });
+});
+
+describe('sign-up, reset and account', () => {
+  it('shows a taken e-mail beside the field and checks the password length first', async () => {
+    const server = mockApi({
+      'GET /api/session': { body: { user: null } },
+      'GET /api/csrf': { body: { token: 'tok-1' } },
+      'POST /api/auth/sign-up': apiError(409, 'conflict', 'That e-mail already has an account.'),
+    });
+    renderApp('/sign-up');
+    fireEvent.change(await screen.findByLabelText('Name'), { target: { value: 'Wren Hollis' } });
+    fireEvent.change(screen.getByLabelText('E-mail'), { target: { value: 'wren@example.test' } });
+    fireEvent.change(screen.getByLabelText('Password'), { target: { value: 'short' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Create account' }));
+    expect(await screen.findByText('Use at least 10 characters.')).toBeTruthy();
+    expect(server.to('POST /api/auth/sign-up')).toHaveLength(0);
+
+    fireEvent.change(screen.getByLabelText('Password'), { target: { value: 'long enough now' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Create account' }));
+    expect(await screen.findByText('That e-mail already has an account.')).toBeTruthy();
+    expect(screen.getByLabelText('E-mail').getAttribute('aria-invalid')).toBe('true');
+  });
+
+  it('sets a new password from the mailed token and opens the drafts', async () => {
+    const server = mockApi({
+      'GET /api/session': { body: { user: null } },
+      'GET /api/csrf': { body: { token: 'tok-1' } },
+      'POST /api/auth/reset': { body: { user: sessionUser(), csrfToken: 'tok-2' } },
+      'GET /api/drafts': { body: { items: [], total: 0, page: 1, pageSize: 20 } },
+    });
+    const app = renderApp('/reset?token=abc');
+    fireEvent.change(await screen.findByLabelText('New password'), { target: { value: 'a fresh password' } });
+    fireEvent.change(screen.getByLabelText('New password again'), { target: { value: 'a fresh password' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Set password and sign in' }));
+    await waitFor(() => expect(app.location()).toBe('/drafts'));
+    expect(server.to('POST /api/auth/reset')[0].body).toEqual({ token: 'abc', password: 'a fresh password' });
+  });
+
+  it('answers a reset request the same way whatever the address', async () => {
+    mockApi({ 'GET /api/session': { body: { user: null } }, 'GET /api/csrf': { body: { token: 'tok-1' } }, 'POST /api/auth/forgot': { status: 202 } });
+    renderApp('/forgot');
+    fireEvent.change(await screen.findByLabelText('E-mail'), { target: { value: 'someone@example.test' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Send the link' }));
+    expect((await screen.findByRole('status')).textContent).toContain('If an account uses someone@example.test');
+  });
+
+  it('shows the account name, e-mail and studios', async () => {
+    mockApi({
+      'GET /api/session': { body: { user: sessionUser({ memberships: [{ studioId: 5, studioName: 'Mill Lane Studio', role: 'editor' }] }) } },
+    });
+    renderApp('/account');
+    expect(await screen.findByRole('heading', { name: 'Account' })).toBeTruthy();
+    expect(screen.getByText('wren@example.test')).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Mill Lane Studio' }).getAttribute('href')).toBe('/studios/5');
+    expect(within(screen.getByRole('navigation', { name: 'Main' })).queryByRole('link', { name: 'Mails' })).toBeNull();
+  });
+});
