@@ -1,0 +1,51 @@
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { csrfSync } from 'csrf-sync';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import type { AppContext } from './context';
+import { routeNotFound, errorHandler } from './middleware/errors';
+import { securityHeaders } from './middleware/security';
+import { apiRouter } from './routes';
+
+export const SESSION_COOKIE = 'shedwright.sid';
+const SESSION_MAX_AGE_MS = 30 * 24 * 60 * 60 * 1000;
+
+/** Builds the Express app without listening, so tests can drive it with supertest. */
+export function createApp(ctx: AppContext): Express {
+  const { config } = ctx;
+  const secure = config.publicUrl.startsWith('https:');
+  const app = express();
+  app.disable('x-powered-by');
+  // Behind https there is a terminating proxy on this machine; trust it for the client address and protocol.
+  if (secure) app.set('trust proxy', 'loopback');
+  app.use(securityHeaders(config));
+
+  const { csrfSynchronisedProtection } = csrfSync();
+  const api = express.Router();
+  api.use(express.json({ limit: config.bodyLimit }));
+  api.use(session({
+    name: SESSION_COOKIE,
+    secret: config.sessionSecret,
+    store: ctx.sessionStore,
+    resave: false,
+    saveUninitialized: false,
+    cookie: { httpOnly: true, sameSite: 'lax', secure, maxAge: SESSION_MAX_AGE_MS },
+  }));
+  api.use(ctx.passport.session());
+  api.use(csrfSynchronisedProtection);
+  api.use(apiRouter(ctx));
+  api.use(routeNotFound);
+  app.use('/api', api);
+
+  const staticDir = resolve(config.staticDir);
+  const indexHtml = resolve(staticDir, 'index.html');
+  if (existsSync(indexHtml)) {
+    app.use(express.static(staticDir, { index: false }));
+    // Client routes (/drafts/12, /reset?token=…) all load the single-page app.
+    app.get(['/', '/*rest'], (_req, res) => res.sendFile(indexHtml));
+  }
+  app.use(routeNotFound);
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,60 @@
+import type { AuthResponse, ForgotBody, ResetBody, SignInBody, SignUpBody } from '../../shared/api/auth';
+import { HttpError } from '../middleware/errors';
+import { authenticateLocal, logIn, logOut } from '../middleware/passport';
+import type { Ctx } from '../routes/route';
+import { requestPasswordReset, resetPassword, signUp as createAccount } from '../services/auth';
+import { loadSessionUser } from '../services/users';
+
+type In<B> = Ctx<B, unknown, unknown>;
+
+/** A new session means a new CSRF token; send it along to save the client a round trip. */
+async function signedIn({ req, app }: In<unknown>, userId: number): Promise<AuthResponse> {
+  const user = await loadSessionUser(app.models, userId);
+  if (!user) throw new Error('The account vanished while signing in');
+  return { user, csrfToken: req.csrfToken!(true) };
+}
+
+export async function csrfToken({ req, res }: In<unknown>) {
+  res.json({ token: req.csrfToken!() });
+}
+
+export async function session(ctx: In<unknown>) {
+  const user = ctx.req.user ? await loadSessionUser(ctx.app.models, ctx.req.user.id) : null;
+  ctx.res.json({ user });
+}
+
+export async function signUp(ctx: In<SignUpBody>) {
+  const user = await createAccount(ctx.app.models, ctx.body);
+  await logIn(ctx.req, user);
+  ctx.res.status(201).json(await signedIn(ctx, user.id));
+}
+
+export async function signIn(ctx: In<SignInBody>) {
+  // passport-local reads the normalised e-mail from the body.
+  ctx.req.body = ctx.body;
+  const user = await authenticateLocal(ctx.app.passport, ctx.req, ctx.res);
+  if (!user) throw new HttpError(401, 'unauthenticated', 'E-mail or password is wrong');
+  await logIn(ctx.req, user);
+  ctx.res.json(await signedIn(ctx, user.id));
+}
+
+export async function signOut({ req, res }: In<unknown>) {
+  await logOut(req);
+  res.json({ csrfToken: req.csrfToken!(true) });
+}
+
+export async function forgot({ app, body, res }: In<ForgotBody>) {
+  try {
+    await requestPasswordReset(app.models, app.mailer, app.config.publicUrl, body.email);
+  } catch (err) {
+    // Still 202: an error answer would tell the caller that this e-mail has an account.
+    console.error('Could not send a password reset mail:', err instanceof Error ? err.message : err);
+  }
+  res.status(202).json({ ok: true });
+}
+
+export async function reset(ctx: In<ResetBody>) {
+  const user = await resetPassword(ctx.app.models, ctx.body);
+  await logIn(ctx.req, user);
+  ctx.res.json(await signedIn(ctx, user.id));
+}

@@ -1,0 +1,49 @@
+import { DataTypes, type Model, type ModelStatic, type Optional, type Sequelize } from 'sequelize';
+import type { StudioRow } from './studio';
+import type { UserRow } from './user';
+
+export interface DraftAttributes {
+  id: number;
+  ownerId: number;
+  /** null for a personal draft. */
+  studioId: number | null;
+  name: string;
+  /** The draft document (shared/weave Draft), checked by the engine's parser before it is stored. */
+  document: unknown;
+  // Computed from the document when it is saved, so the library can filter and sort without parsing it.
+  ends: number;
+  picks: number;
+  shafts: number;
+  colors: number;
+  tags: string[];
+  /** Number of the newest DraftVersion. */
+  version: number;
+  createdAt: Date;
+  updatedAt: Date;
+}
+export type DraftCreation = Optional<DraftAttributes, 'id' | 'studioId' | 'tags' | 'version' | 'createdAt' | 'updatedAt'>;
+export interface DraftRow extends Model<DraftAttributes, DraftCreation>, DraftAttributes {
+  /** Present when included in the query. */
+  owner?: UserRow;
+  studio?: StudioRow | null;
+}
+export type DraftModel = ModelStatic<DraftRow>;
+
+/** The current state of a draft; its history lives in DraftVersion. */
+export function defineDraft(sequelize: Sequelize): DraftModel {
+  return sequelize.define<DraftRow>('Draft', {
+    id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    ownerId: { type: DataTypes.INTEGER, allowNull: false },
+    studioId: { type: DataTypes.INTEGER, allowNull: true },
+    name: { type: DataTypes.STRING(200), allowNull: false },
+    document: { type: DataTypes.JSON, allowNull: false },
+    ends: { type: DataTypes.INTEGER, allowNull: false },
+    picks: { type: DataTypes.INTEGER, allowNull: false },
+    shafts: { type: DataTypes.INTEGER, allowNull: false },
+    colors: { type: DataTypes.INTEGER, allowNull: false },
+    tags: { type: DataTypes.JSON, allowNull: false, defaultValue: [] },
+    version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  }, { tableName: 'drafts' });
+}

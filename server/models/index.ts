@@ -1,0 +1,46 @@
+import type { Sequelize } from 'sequelize';
+import { defineDraft } from './draft';
+import { defineDraftVersion } from './draft-version';
+import { defineMembership } from './membership';
+import { definePasswordReset } from './password-reset';
+import { defineSession } from './session';
+import { defineStudio } from './studio';
+import { defineUser } from './user';
+
+/**
+ * Defines every model on one Sequelize instance and wires the associations in this one place.
+ * Models are defined per instance (not as shared classes) so two app instances can coexist in tests.
+ */
+export function defineModels(sequelize: Sequelize) {
+  const models = {
+    User: defineUser(sequelize),
+    Studio: defineStudio(sequelize),
+    Membership: defineMembership(sequelize),
+    Draft: defineDraft(sequelize),
+    DraftVersion: defineDraftVersion(sequelize),
+    PasswordReset: definePasswordReset(sequelize),
+    Session: defineSession(sequelize),
+  };
+  const { User, Studio, Membership, Draft, DraftVersion, PasswordReset } = models;
+
+  Studio.hasMany(Membership, { foreignKey: 'studioId', as: 'memberships' });
+  Membership.belongsTo(Studio, { foreignKey: 'studioId', as: 'studio' });
+  User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' });
+  Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+
+  Draft.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
+  Draft.belongsTo(Studio, { foreignKey: 'studioId', as: 'studio' });
+  Draft.hasMany(DraftVersion, { foreignKey: 'draftId', as: 'versions' });
+  DraftVersion.belongsTo(Draft, { foreignKey: 'draftId', as: 'draft' });
+  DraftVersion.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+
+  PasswordReset.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  return models;
+}
+
+export type Models = ReturnType<typeof defineModels>;
+export type { UserRow } from './user';
+export type { StudioRow } from './studio';
+export type { MembershipRow } from './membership';
+export type { DraftRow } from './draft';
+export type { DraftVersionRow } from './draft-version';

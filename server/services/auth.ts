@@ -1,0 +1,76 @@
+import { createHash, randomBytes } from 'node:crypto';
+import { Op, UniqueConstraintError } from 'sequelize';
+import type { ResetBody, SignUpBody } from '../../shared/api/auth';
+import type { Mailer } from '../mail/mailer';
+import { conflict, HttpError } from '../middleware/errors';
+import type { Models, UserRow } from '../models';
+import { dummyPasswordHash, hashPassword, verifyPassword } from './passwords';
+
+export const RESET_TOKEN_TTL_MS = 60 * 60 * 1000;
+
+const sha256 = (text: string) => createHash('sha256').update(text).digest('hex');
+
+/** Creates an account; 409 when the e-mail is taken. */
+export async function signUp(models: Models, body: SignUpBody): Promise<UserRow> {
+  const passwordHash = await hashPassword(body.password);
+  try {
+    return await models.User.create({ email: body.email, name: body.name, passwordHash });
+  } catch (err) {
+    if (err instanceof UniqueConstraintError) throw conflict('An account with this e-mail already exists');
+    throw err;
+  }
+}
+
+/** The user when e-mail and password match, else null (same work either way). */
+export async function checkCredentials(models: Models, email: string, password: string): Promise<UserRow | null> {
+  const user = await models.User.findOne({ where: { email: email.trim().toLowerCase() } });
+  const ok = await verifyPassword(user?.passwordHash ?? (await dummyPasswordHash()), password);
+  return user && ok ? user : null;
+}
+
+/**
+ * Mails a reset link when the e-mail has an account; says nothing either way so the answer does not
+ * reveal who has an account. Only the token's hash is stored.
+ */
+export async function requestPasswordReset(
+  models: Models, mailer: Mailer, publicUrl: string, email: string, now = new Date(),
+): Promise<void> {
+  const user = await models.User.findOne({ where: { email } });
+  if (!user) return;
+  const token = randomBytes(32).toString('base64url');
+  await models.PasswordReset.create({
+    userId: user.id,
+    tokenHash: sha256(token),
+    expiresAt: new Date(now.getTime() + RESET_TOKEN_TTL_MS),
+  });
+  const link = `${publicUrl}/reset?token=${encodeURIComponent(token)}`;
+  await mailer.send({
+    to: user.email,
+    subject: 'Reset your Shedwright password',
+    text: `Hello ${user.name},\n\nSomeone (we hope you) asked to reset the password of your Shedwright account.\n`
+      + `Open this link within one hour to choose a new password:\n\n${link}\n\n`
+      + 'If you did not ask for this, ignore this mail; your password stays as it is.\n',
+  });
+}
+
+/** Sets a new password from a mailed token; the token works once, within its hour. */
+export async function resetPassword(models: Models, body: ResetBody, now = new Date()): Promise<UserRow> {
+  const invalid = new HttpError(400, 'bad_request', 'This reset link is invalid or has expired; ask for a new one');
+  const passwordHash = await hashPassword(body.password);
+  const user = await models.User.sequelize!.transaction(async (transaction) => {
+    // Claiming the token with a conditional update makes single use hold even for two requests at once.
+    const reset = await models.PasswordReset.findOne({ where: { tokenHash: sha256(body.token) }, transaction });
+    if (!reset) return null;
+    const [claimed] = await models.PasswordReset.update(
+      { usedAt: now },
+      { where: { id: reset.id, usedAt: null, expiresAt: { [Op.gt]: now } }, transaction },
+    );
+    if (claimed !== 1) return null;
+    const found = await models.User.findByPk(reset.userId, { transaction });
+    if (!found) return null;
+    await found.update({ passwordHash }, { transaction });
+    return found;
+  });
+  if (!user) throw invalid;
+  return user;
+}

@@ -1,0 +1,67 @@
+import { z } from 'zod';
+
+export const studioRoles = ['viewer', 'editor', 'owner'] as const;
+export const studioRoleSchema = z.enum(studioRoles);
+export type StudioRole = z.infer<typeof studioRoleSchema>;
+
+/** Lowest first, so a role's rank can be compared with another's. */
+export function roleRank(role: StudioRole): number {
+  return studioRoles.indexOf(role);
+}
+
+export const PASSWORD_MIN_LENGTH = 10;
+/** argon2 accepts long inputs, but an upper bound keeps hashing cost predictable. */
+export const PASSWORD_MAX_LENGTH = 200;
+
+const email = z.string().trim().toLowerCase().pipe(z.email().max(254));
+const password = z.string().min(PASSWORD_MIN_LENGTH, `At least ${PASSWORD_MIN_LENGTH} characters`)
+  .max(PASSWORD_MAX_LENGTH);
+
+export const signUpBodySchema = z.object({
+  email,
+  password,
+  name: z.string().trim().min(1).max(100),
+});
+export type SignUpBody = z.infer<typeof signUpBodySchema>;
+
+export const signInBodySchema = z.object({
+  email,
+  // Sign-in does not enforce the length rule: a wrong password is a 401, not a 400.
+  password: z.string().min(1).max(PASSWORD_MAX_LENGTH),
+});
+export type SignInBody = z.infer<typeof signInBodySchema>;
+
+export const forgotBodySchema = z.object({ email });
+export type ForgotBody = z.infer<typeof forgotBodySchema>;
+
+export const resetBodySchema = z.object({
+  token: z.string().min(1).max(200),
+  password,
+});
+export type ResetBody = z.infer<typeof resetBodySchema>;
+
+export const membershipSchema = z.object({
+  studioId: z.number().int(),
+  studioName: z.string(),
+  role: studioRoleSchema,
+});
+export type Membership = z.infer<typeof membershipSchema>;
+
+export const sessionUserSchema = z.object({
+  id: z.number().int(),
+  email: z.string(),
+  name: z.string(),
+  isAdmin: z.boolean(),
+  memberships: z.array(membershipSchema),
+});
+export type SessionUser = z.infer<typeof sessionUserSchema>;
+
+export const sessionResponseSchema = z.object({ user: sessionUserSchema.nullable() });
+export type SessionResponse = z.infer<typeof sessionResponseSchema>;
+
+/** Sign-up, sign-in and reset: the session was regenerated, so a fresh CSRF token comes along. */
+export const authResponseSchema = z.object({ user: sessionUserSchema, csrfToken: z.string() });
+export type AuthResponse = z.infer<typeof authResponseSchema>;
+
+export const signOutResponseSchema = z.object({ csrfToken: z.string() });
+export const csrfResponseSchema = z.object({ token: z.string() });

@@ -1,0 +1,32 @@
+import { randomBytes } from 'node:crypto';
+import { loadConfig, type Config } from '../../server/config';
+
+/**
+ * Settings for tests: the test database from the SHEDWRIGHT_DB_* variables that `npm test` (or
+ * `node scripts/db.mjs test`) exports, free ports, and rate limits high enough that only the tests
+ * aimed at them ever reach them.
+ */
+export function testConfig(overrides: Partial<Config> = {}): Config {
+  if (!process.env.SHEDWRIGHT_DB_PORT || !process.env.SHEDWRIGHT_DB_NAME) {
+    throw new Error('SHEDWRIGHT_DB_* is not set: run the server tests through `npm test`, or start '
+      + '`node scripts/db.mjs test` and export the lines it prints.');
+  }
+  const base = loadConfig({ ...process.env, SHEDWRIGHT_DEV: '0' });
+  return {
+    ...base,
+    port: 0,
+    smtpPort: 0,
+    publicUrl: 'http://127.0.0.1:4780',
+    sessionSecret: 'test-secret-shared-by-app-instances',
+    staticDir: '.no-static-dir-in-tests',
+    rateLimit: { windowMs: 60_000, signIn: 10_000, passwordReset: 10_000 },
+    ...overrides,
+  };
+}
+
+let counter = 0;
+/** An e-mail no other test (or suite sharing the database) will use. */
+export function uniqueEmail(prefix = 'user'): string {
+  counter += 1;
+  return `${prefix}-${Date.now().toString(36)}-${counter}-${randomBytes(3).toString('hex')}@test.shedwright.test`;
+}

@@ -1,0 +1,231 @@
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { authResponseSchema, sessionResponseSchema } from '../../shared/api/auth';
+import { apiErrorSchema } from '../../shared/api/errors';
+import { SESSION_COOKIE } from '../../server/app';
+import { startTestServer, TEST_PASSWORD, type TestServer } from '../helpers/server';
+import { uniqueEmail } from '../helpers/test-db';
+
+let server: TestServer;
+beforeAll(async () => { server = await startTestServer(); });
+afterAll(async () => { await server.close(); });
+
+const sessionCookie = (res: { headers: Record<string, unknown> }) =>
+  ((res.headers['set-cookie'] as string[] | undefined) ?? []).find((c) => c.startsWith(`${SESSION_COOKIE}=`));
+const sid = (cookie: string | undefined) => cookie?.split(';')[0];
+
+describe('sign-up, sign-in, sign-out', () => {
+  it('signs up, is signed in, signs out, signs back in', async () => {
+    const client = server.client();
+    const email = uniqueEmail('signup');
+    const up = await client.post('/api/auth/sign-up', { email: email.toUpperCase(), password: TEST_PASSWORD, name: 'Wren' });
+    expect(up.status).toBe(201);
+    const parsed = authResponseSchema.parse(up.body);
+    expect(parsed.user).toMatchObject({ email, name: 'Wren', isAdmin: false, memberships: [] });
+
+    const me = await client.get('/api/session');
+    expect(sessionResponseSchema.parse(me.body).user?.email).toBe(email);
+
+    const out = await client.post('/api/auth/sign-out');
+    expect(out.status).toBe(200);
+    expect(typeof out.body.csrfToken).toBe('string');
+    expect((await client.get('/api/session')).body).toEqual({ user: null });
+
+    const back = await client.post('/api/auth/sign-in', { email, password: TEST_PASSWORD });
+    expect(back.status).toBe(200);
+    expect(back.body.user.email).toBe(email);
+  });
+
+  it('rejects a taken e-mail with 409 and a short password with 400', async () => {
+    const user = await server.createUser();
+    const taken = await server.client().post('/api/auth/sign-up', { email: user.email, password: TEST_PASSWORD, name: 'X' });
+    expect(taken.status).toBe(409);
+    expect(apiErrorSchema.parse(taken.body).error.code).toBe('conflict');
+    const short = await server.client().post('/api/auth/sign-up', { email: uniqueEmail(), password: 'short', name: 'X' });
+    expect(short.status).toBe(400);
+    expect(short.body.error.fields.password).toBeTruthy();
+  });
+
+  it('answers a wrong password and an unknown e-mail alike with 401', async () => {
+    const user = await server.createUser();
+    const wrong = await server.client().post('/api/auth/sign-in', { email: user.email, password: 'not-the-password' });
+    const unknown = await server.client().post('/api/auth/sign-in', { email: uniqueEmail('nobody'), password: TEST_PASSWORD });
+    expect(wrong.status).toBe(401);
+    expect(unknown.status).toBe(401);
+    expect(wrong.body).toEqual(unknown.body);
+  });
+
+  it('gives a new session id at sign-in (no session fixation)', async () => {
+    const user = await server.createUser();
+    const client = server.client();
+    const before = sid(sessionCookie(await client.agent.get('/api/csrf')));
+    expect(before).toBeDefined();
+    const res = await client.signIn(user.email);
+    const after = sid(sessionCookie(res));
+    expect(after).toBeDefined();
+    expect(after).not.toBe(before);
+  });
+
+  it('sets the session cookie httpOnly and SameSite=Lax, not Secure on http', async () => {
+    const user = await server.createUser();
+    const cookie = sessionCookie(await server.client().signIn(user.email))!;
+    expect(cookie).toMatch(/HttpOnly/i);
+    expect(cookie).toMatch(/SameSite=Lax/i);
+    expect(cookie).not.toMatch(/Secure/i);
+  });
+
+  it('keeps people signed in across a restart (a new app instance on the same database)', async () => {
+    const user = await server.createUser();
+    const client = server.client();
+    const cookie = sid(sessionCookie(await client.signIn(user.email)))!;
+    const restarted = await startTestServer();
+    try {
+      const res = await restarted.client().agent.get('/api/session').set('Cookie', cookie);
+      expect(res.body.user?.id).toBe(user.id);
+    } finally {
+      await restarted.close();
+    }
+  });
+});
+
+describe('CSRF', () => {
+  it('refuses a state-changing request without a token or with a wrong one', async () => {
+    const user = await server.createUser();
+    const client = server.client();
+    await client.signIn(user.email);
+    const none = await client.send('post', '/api/studios', { name: 'No token' }, { csrf: false });
+    expect(none.status).toBe(403);
+    expect(none.body.error.code).toBe('csrf');
+    const wrong = await client.agent.post('/api/studios').set('x-csrf-token', 'f'.repeat(256)).send({ name: 'Wrong' });
+    expect(wrong.status).toBe(403);
+    expect(wrong.body.error.code).toBe('csrf');
+    const right = await client.post('/api/studios', { name: 'Right token' });
+    expect(right.status).toBe(201);
+  });
+
+  it("does not accept another session's token", async () => {
+    const a = server.client();
+    const b = server.client();
+    const tokenOfA = await a.csrf();
+    await b.csrf();
+    const res = await b.agent.post('/api/auth/sign-out').set('x-csrf-token', tokenOfA);
+    expect(res.status).toBe(403);
+  });
+
+  it('changes the token at sign-in, so a token from before no longer works', async () => {
+    const user = await server.createUser();
+    const client = server.client();
+    const before = await client.csrf();
+    const res = await client.signIn(user.email);
+    expect(res.body.csrfToken).not.toBe(before);
+    const stale = await client.agent.post('/api/studios').set('x-csrf-token', before).send({ name: 'Stale' });
+    expect(stale.status).toBe(403);
+  });
+});
+
+describe('rate limits', () => {
+  it('answers 429 after the configured number of sign-in attempts', async () => {
+    const limited = await startTestServer({ rateLimit: { windowMs: 60_000, signIn: 3, passwordReset: 2 } });
+    try {
+      const client = limited.client();
+      const attempt = () => client.post('/api/auth/sign-in', { email: uniqueEmail('limit'), password: 'wrong-password' });
+      for (let i = 0; i < 3; i++) expect((await attempt()).status).toBe(401);
+      const blocked = await attempt();
+      expect(blocked.status).toBe(429);
+      expect(blocked.body.error.code).toBe('rate_limited');
+
+      const forgot = () => client.post('/api/auth/forgot', { email: uniqueEmail('limit') });
+      for (let i = 0; i < 2; i++) expect((await forgot()).status).toBe(202);
+      expect((await forgot()).status).toBe(429);
+    } finally {
+      await limited.close();
+    }
+  });
+});
+
+describe('forgot and reset password', () => {
+  const linkIn = (text: string) => text.match(/https?:\/\/\S+\/reset\?token=([\w%-]+)/);
+
+  async function mailedToken(email: string): Promise<string> {
+    const admin = await server.createUser({ isAdmin: true });
+    const client = server.client();
+    await client.signIn(admin.email);
+    const res = await client.get('/api/dev/mails');
+    expect(res.status).toBe(200);
+    const mail = (res.body.mails as { to: string; subject: string; text: string }[]).find((m) => m.to.includes(email));
+    expect(mail, `a mail to ${email}`).toBeDefined();
+    expect(mail!.subject).toMatch(/reset/i);
+    const link = linkIn(mail!.text);
+    expect(link?.[0].startsWith('http://127.0.0.1:4780/reset?token=')).toBe(true);
+    return decodeURIComponent(link![1]);
+  }
+
+  it('mails a link whose token sets a new password once, and signs the user in', async () => {
+    const user = await server.createUser();
+    const client = server.client();
+    expect((await client.post('/api/auth/forgot', { email: user.email })).status).toBe(202);
+    const token = await mailedToken(user.email);
+
+    // The database holds only a hash of the token.
+    const stored = await server.ctx.models.PasswordReset.findAll({ where: { userId: user.id } });
+    expect(stored).toHaveLength(1);
+    expect(stored[0].tokenHash).not.toContain(token);
+    expect(stored[0].expiresAt.getTime() - stored[0].createdAt.getTime()).toBeGreaterThan(59 * 60 * 1000);
+    expect(stored[0].expiresAt.getTime() - stored[0].createdAt.getTime()).toBeLessThanOrEqual(61 * 60 * 1000);
+
+    const newPassword = 'a-brand-new-password';
+    const reset = await client.post('/api/auth/reset', { token, password: newPassword });
+    expect(reset.status).toBe(200);
+    expect(reset.body.user.id).toBe(user.id);
+    expect((await client.get('/api/session')).body.user.id).toBe(user.id);
+
+    const again = await server.client().post('/api/auth/reset', { token, password: 'yet-another-password' });
+    expect(again.status).toBe(400);
+
+    expect((await server.client().post('/api/auth/sign-in', { email: user.email, password: TEST_PASSWORD })).status).toBe(401);
+    expect((await server.client().post('/api/auth/sign-in', { email: user.email, password: newPassword })).status).toBe(200);
+  });
+
+  it('refuses an expired token', async () => {
+    const user = await server.createUser();
+    await server.client().post('/api/auth/forgot', { email: user.email });
+    const token = await mailedToken(user.email);
+    await server.ctx.models.PasswordReset.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { userId: user.id } });
+    const res = await server.client().post('/api/auth/reset', { token, password: 'another-long-password' });
+    expect(res.status).toBe(400);
+  });
+
+  it('answers 202 for an unknown e-mail and sends nothing', async () => {
+    const email = uniqueEmail('ghost');
+    const before = server.smtp.mails().length;
+    expect((await server.client().post('/api/auth/forgot', { email })).status).toBe(202);
+    expect(server.smtp.mails().length).toBe(before);
+  });
+});
+
+describe('passwords stay secret', () => {
+  it('never appear in responses or logs', async () => {
+    const spies = (['log', 'info', 'warn', 'error', 'debug'] as const).map((m) => vi.spyOn(console, m));
+    try {
+      const email = uniqueEmail('secret');
+      const password = 'very-secret-password-7731';
+      const client = server.client();
+      const bodies = [
+        await client.post('/api/auth/sign-up', { email, password, name: 'Quiet' }),
+        await client.get('/api/session'),
+        await client.post('/api/auth/sign-out'),
+        await client.post('/api/auth/sign-in', { email, password }),
+        await client.post('/api/auth/sign-in', { email, password: `${password}-wrong` }),
+        await client.post('/api/auth/sign-up', { email, password, name: 'Again' }),
+      ].map((r) => r.text);
+      for (const text of bodies) {
+        expect(text).not.toContain(password);
+        expect(text).not.toMatch(/argon2|passwordHash/);
+      }
+      for (const spy of spies) {
+        for (const call of spy.mock.calls) expect(JSON.stringify(call)).not.toContain(password);
+      }
+    } finally {
+      for (const spy of spies) spy.mockRestore();
+    }
+  });
+});
