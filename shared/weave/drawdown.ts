@@ -55,18 +55,30 @@ export function computeDrawdown(draft: Draft): Drawdown {
   const picks = pickCount(draft);
   const stride = (ends + 31) >>> 5;
   const bits = new Uint32Array(picks * stride);
-
-  // One bit row per shaft: the ends threaded on it. A pick's row is the OR of its lifted shafts' rows.
-  const shaftRows: Uint32Array[] = [];
-  for (let s = 0; s < 32; s++) shaftRows.push(new Uint32Array(stride));
+  const masks = liftMasks(draft);
+  let used = 0;
+  for (let p = 0; p < picks; p++) used |= masks[p];
+  // Shafts in groups of 8: for each group a table of the end rows of all 256 ways to lift its
+  // shafts, so a pick's row is the OR of at most 4 table rows instead of up to 32 shaft rows.
+  const groups = used === 0 ? 0 : ((31 - Math.clz32(used)) >>> 3) + 1;
+  const table = new Uint32Array(Math.max(groups, 1) * 256 * stride);
   for (let e = 0; e < ends; e++) {
     for (const s of draft.threading[e]) {
-      if (s >= 1 && s <= 32) shaftRows[s - 1][e >>> 5] |= 1 << (e & 31);
+      if (s >= 1 && s <= groups * 8) table[((((s - 1) >>> 3) << 8) | (1 << ((s - 1) & 7))) * stride + (e >>> 5)] |= 1 << (e & 31);
+    }
+  }
+  for (let g = 0; g < groups; g++) {
+    for (let v = 3; v < 256; v++) {
+      const rest = v & (v - 1);
+      if (rest === 0) continue; // a single shaft: its row was filled from the threading
+      const dst = ((g << 8) | v) * stride;
+      const a = ((g << 8) | rest) * stride;
+      const b = ((g << 8) | (v & -v)) * stride;
+      for (let w = 0; w < stride; w++) table[dst + w] = table[a + w] | table[b + w];
     }
   }
   const tailMask = ends % 32 === 0 ? 0xffffffff : (1 << ends % 32) - 1;
   const sinking = draft.shed === 'sinking';
-  const masks = liftMasks(draft);
   // Picks with the same lift share a row: compute each distinct lift once.
   const firstPickOfMask = new Map<number, number>();
   for (let p = 0; p < picks; p++) {
@@ -78,12 +90,13 @@ export function computeDrawdown(draft: Draft): Drawdown {
       continue;
     }
     firstPickOfMask.set(m, p);
-    for (let s = 0; s < 32; s++) {
-      if ((m >>> s) & 1) {
-        const src = shaftRows[s];
-        for (let w = 0; w < stride; w++) bits[row + w] |= src[w];
-      }
-    }
+    // Row v = 0 of each group is all zeros, and offset 0 is such a row, so groups the draft does
+    // not use cost a read of zeros instead of a branch; one write per word.
+    const o0 = (m & 255) * stride;
+    const o1 = groups > 1 ? ((1 << 8) | ((m >>> 8) & 255)) * stride : 0;
+    const o2 = groups > 2 ? ((2 << 8) | ((m >>> 16) & 255)) * stride : 0;
+    const o3 = groups > 3 ? ((3 << 8) | (m >>> 24)) * stride : 0;
+    for (let w = 0; w < stride; w++) bits[row + w] = table[o0 + w] | table[o1 + w] | table[o2 + w] | table[o3 + w];
     if (sinking) {
       for (let w = 0; w < stride; w++) bits[row + w] = ~bits[row + w];
       if (stride > 0) bits[row + stride - 1] &= tailMask;

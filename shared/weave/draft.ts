@@ -1,0 +1,409 @@
+import { z } from 'zod';
+import {
+  DRAFT_SCHEMA_VERSION,
+  MAX_SHAFTS,
+  MAX_THREADS,
+  MAX_TREADLES,
+  type Draft,
+  type Sett,
+} from './types';
+
+/** Layers a draft may use: two shafts per plain-weave layer on 32 shafts gives 16. */
+export const MAX_LAYERS = 16;
+export const MAX_PALETTE = 1024;
+export const MAX_NAME_LENGTH = 200;
+export const MAX_NOTES_LENGTH = 100_000;
+
+/** Dark warp on light weft, so an uncoloured draft reads as its structure. */
+export const DEFAULT_PALETTE: readonly string[] = ['#2b2b33', '#f3efe6'];
+export const DEFAULT_SETT: Readonly<Sett> = { warp: 20, weft: 20, unit: 'inch' };
+export const DEFAULT_NAME = 'Untitled draft';
+
+/** One thing wrong with a draft document: where (a JSON path) and what, in a weaver's words. */
+export interface DraftProblem {
+  path: string;
+  message: string;
+}
+
+/** Thrown by {@link parseDraft}; `problems` lists every problem found, not just the first. */
+export class DraftError extends Error {
+  readonly problems: DraftProblem[];
+  constructor(problems: DraftProblem[]) {
+    const head = problems.slice(0, 5).map((p) => p.message).join('; ');
+    const more = problems.length > 5 ? ` (and ${problems.length - 5} more)` : '';
+    super(`The draft has ${problems.length} problem${problems.length === 1 ? '' : 's'}: ${head}${more}`);
+    this.name = 'DraftError';
+    this.problems = problems;
+  }
+}
+
+const wholeNumber = (what: string) =>
+  z.number({ error: `${what} must be a number` }).int({ error: `${what} must be a whole number` });
+
+const shaftNumber = wholeNumber('a shaft')
+  .min(1, { error: (iss) => `shaft ${String(iss.input)} is not a shaft number (they start at 1)` })
+  .max(MAX_SHAFTS, { error: (iss) => `shaft ${String(iss.input)} is above ${MAX_SHAFTS}, the most shafts a draft can have` });
+
+const treadleNumber = wholeNumber('a treadle')
+  .min(1, { error: (iss) => `treadle ${String(iss.input)} is not a treadle number (they start at 1)` })
+  .max(MAX_TREADLES, { error: (iss) => `treadle ${String(iss.input)} is above ${MAX_TREADLES}, the most treadles a draft can have` });
+
+const colourIndex = wholeNumber('a colour').min(0, { error: 'a colour index cannot be negative' });
+
+const layerNumber = wholeNumber('a layer')
+  .min(1, { error: (iss) => `layer ${String(iss.input)} is not a layer number (they start at 1)` })
+  .max(MAX_LAYERS, { error: (iss) => `layer ${String(iss.input)} is above ${MAX_LAYERS}, the most layers a draft can have` });
+
+const threadList = <T extends z.ZodType>(item: T, what: string) =>
+  z.array(item, { error: `must be a list of ${what}` }).max(MAX_THREADS, {
+    error: (iss) => `has ${(iss.input as unknown[]).length} entries; a draft can have at most ${MAX_THREADS}`,
+  });
+
+const shaftsOf = z.array(shaftNumber, { error: 'must be a list of shaft numbers, e.g. [1] or [1, 3]' });
+const treadlesOf = z.array(treadleNumber, { error: 'must be a list of treadle numbers, e.g. [1] or [1, 3]' });
+
+/**
+ * Shape of the versioned JSON draft document (docs/draft-format.md). It checks each field on its
+ * own; {@link parseDraft} adds the checks between fields and fills defaults.
+ */
+export const draftDocumentSchema = z.strictObject(
+  {
+    schemaVersion: z.literal(DRAFT_SCHEMA_VERSION, {
+      error: (iss) =>
+        iss.input === undefined
+          ? 'is missing'
+          : `${JSON.stringify(iss.input)} is not a version this program reads (it reads ${DRAFT_SCHEMA_VERSION})`,
+    }),
+    name: z.string({ error: 'must be text' }).max(MAX_NAME_LENGTH, { error: `is longer than ${MAX_NAME_LENGTH} characters` }).optional(),
+    shafts: wholeNumber('the number of shafts')
+      .min(1, { error: 'a draft needs at least 1 shaft' })
+      .max(MAX_SHAFTS, { error: (iss) => `${String(iss.input)} shafts is more than ${MAX_SHAFTS}, the most a draft can have` }),
+    treadles: wholeNumber('the number of treadles')
+      .min(0, { error: 'cannot be negative' })
+      .max(MAX_TREADLES, { error: (iss) => `${String(iss.input)} treadles is more than ${MAX_TREADLES}, the most a draft can have` })
+      .optional(),
+    shed: z.enum(['rising', 'sinking'], { error: 'must be "rising" or "sinking"' }).optional(),
+    control: z.enum(['treadling', 'liftplan'], { error: 'must be "treadling" or "liftplan"' }).optional(),
+    threading: threadList(shaftsOf, 'ends'),
+    tieup: z
+      .array(shaftsOf, { error: 'must be a list of treadles' })
+      .max(MAX_TREADLES, { error: `has more than ${MAX_TREADLES} treadles` })
+      .optional(),
+    treadling: threadList(treadlesOf, 'picks').optional(),
+    liftplan: threadList(shaftsOf, 'picks').optional(),
+    palette: z
+      .array(z.string({ error: 'must be a colour like "#1a2b3c"' }).regex(/^#[0-9a-fA-F]{6}$/, {
+        error: (iss) => `${JSON.stringify(iss.input)} is not a colour like "#1a2b3c"`,
+      }), { error: 'must be a list of colours' })
+      .min(1, { error: 'needs at least one colour' })
+      .max(MAX_PALETTE, { error: `has more than ${MAX_PALETTE} colours` })
+      .optional(),
+    warpColors: threadList(colourIndex, 'colour indices').optional(),
+    weftColors: threadList(colourIndex, 'colour indices').optional(),
+    warpLayers: threadList(layerNumber, 'layer numbers').optional(),
+    weftLayers: threadList(layerNumber, 'layer numbers').optional(),
+    sett: z
+      .strictObject(
+        {
+          warp: z.number({ error: 'must be a number' }).positive({ error: 'must be more than 0' }).max(1000, { error: 'is more than 1000' }),
+          weft: z.number({ error: 'must be a number' }).positive({ error: 'must be more than 0' }).max(1000, { error: 'is more than 1000' }),
+          unit: z.enum(['inch', 'cm'], { error: 'must be "inch" or "cm"' }),
+        },
+        { error: 'must be an object like {"warp": 24, "weft": 24, "unit": "inch"}' },
+      )
+      .optional(),
+    yarns: z
+      .array(
+        z.strictObject(
+          {
+            id: z.string({ error: 'must be text' }).min(1, { error: 'cannot be empty' }).max(100, { error: 'is too long' }),
+            name: z.string({ error: 'must be text' }).max(MAX_NAME_LENGTH, { error: 'is too long' }),
+            color: colourIndex,
+          },
+          { error: 'must be an object with id, name and color' },
+        ),
+        { error: 'must be a list' },
+      )
+      .max(MAX_PALETTE, { error: 'has too many yarns' })
+      .optional(),
+    notes: z.string({ error: 'must be text' }).max(MAX_NOTES_LENGTH, { error: `is longer than ${MAX_NOTES_LENGTH} characters` }).optional(),
+    blocks: z
+      .strictObject(
+        {
+          warp: threadList(wholeNumber('a block').min(0, { error: 'a block number cannot be negative' }), 'block numbers'),
+          weft: threadList(wholeNumber('a block').min(0, { error: 'a block number cannot be negative' }), 'block numbers'),
+        },
+        { error: 'must be an object with warp and weft lists' },
+      )
+      .optional(),
+  },
+  { error: 'a draft must be a JSON object' },
+);
+
+export type DraftDocument = z.infer<typeof draftDocumentSchema>;
+
+// What one position in each list is called, so messages read "threading end 37", not "threading[36]".
+const POSITION_WORD: Record<string, string> = {
+  threading: 'end',
+  tieup: 'treadle',
+  treadling: 'pick',
+  liftplan: 'pick',
+  palette: 'colour',
+  warpColors: 'end',
+  weftColors: 'pick',
+  warpLayers: 'end',
+  weftLayers: 'pick',
+  yarns: '',
+};
+const FIELD_WORDS: Record<string, string> = {
+  tieup: 'tie-up',
+  liftplan: 'lift plan',
+  warpColors: 'warp colours',
+  weftColors: 'weft colours',
+  warpLayers: 'warp layers',
+  weftLayers: 'weft layers',
+  yarns: 'yarn',
+};
+
+function pathText(path: readonly PropertyKey[]): string {
+  return path.map((k, i) => (typeof k === 'number' ? `[${k}]` : i === 0 ? String(k) : `.${String(k)}`)).join('');
+}
+
+/** "threading end 37", "tie-up treadle 2", "blocks.warp end 4", "sett.warp". */
+function where(path: readonly PropertyKey[]): string {
+  if (path.length === 0) return 'draft';
+  const [field, index, ...rest] = path;
+  const name = FIELD_WORDS[String(field)] ?? String(field);
+  if (typeof index === 'number') {
+    const word = POSITION_WORD[String(field)];
+    const pos = word === undefined || word === '' ? `${name} ${index + 1}` : `${name} ${word} ${index + 1}`;
+    const tail = rest.filter((k) => typeof k === 'string');
+    return tail.length ? `${pos} ${tail.join(' ')}` : pos;
+  }
+  if (field === 'blocks' && typeof index === 'string') {
+    const pos = rest[0];
+    return typeof pos === 'number' ? `blocks ${index} ${index === 'warp' ? 'end' : 'pick'} ${pos + 1}` : `blocks ${index}`;
+  }
+  return [FIELD_WORDS[String(field)] ?? String(field), ...path.slice(1).map(String)].join(' ');
+}
+
+class Problems {
+  readonly list: DraftProblem[] = [];
+  add(path: readonly PropertyKey[], message: string): void {
+    this.list.push({ path: pathText(path), message: `${where(path)}: ${message}` });
+  }
+}
+
+const isInt = (v: unknown): v is number => typeof v === 'number' && Number.isInteger(v);
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+function plural(n: number, one: string, many = `${one}s`): string {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
+/** Valid integers in a list of lists, with their position, skipping what the shape check already reports. */
+function* entries(lists: unknown): Generator<[number, number, number]> {
+  if (!Array.isArray(lists)) return;
+  for (let i = 0; i < lists.length; i++) {
+    const row: unknown = lists[i];
+    if (!Array.isArray(row)) continue;
+    for (let j = 0; j < row.length; j++) if (isInt(row[j])) yield [i, j, row[j] as number];
+  }
+}
+
+function checkNumbersWithin(problems: Problems, field: string, lists: unknown, limit: number, kind: string, of: string, hardMax: number): void {
+  for (const [i, j, v] of entries(lists)) {
+    if (v >= 1 && v <= hardMax && v > limit) {
+      problems.add([field, i, j], `${kind} ${v} but the draft has ${plural(limit, of)}`);
+    }
+  }
+  if (!Array.isArray(lists)) return;
+  lists.forEach((row: unknown, i) => {
+    if (!Array.isArray(row)) return;
+    const seen = new Set<unknown>();
+    row.forEach((v: unknown, j) => {
+      if (seen.has(v)) problems.add([field, i, j], `${kind} ${String(v)} is listed twice`);
+      seen.add(v);
+    });
+  });
+}
+
+function checkLength(problems: Problems, field: string, list: unknown, expected: number, thing: string): void {
+  if (Array.isArray(list) && list.length !== 0 && list.length !== expected) {
+    problems.add([field], `has ${plural(list.length, 'entry', 'entries')} but the draft has ${plural(expected, thing)} (give one per ${thing}, or leave it empty)`);
+  }
+}
+
+function checkColours(problems: Problems, field: string, list: unknown, paletteSize: number): void {
+  if (!Array.isArray(list)) return;
+  list.forEach((v: unknown, i) => {
+    if (isInt(v) && v >= paletteSize) {
+      problems.add([field, i], `colour ${v} is not in the palette (its colours are numbered 0 to ${paletteSize - 1})`);
+    }
+  });
+}
+
+/** The checks between fields, run on the raw input so they report alongside the shape problems. */
+function crossCheck(raw: Record<string, unknown>, problems: Problems): void {
+  const shafts = isInt(raw.shafts) && raw.shafts >= 1 && raw.shafts <= MAX_SHAFTS ? raw.shafts : MAX_SHAFTS;
+  const tieupLength = Array.isArray(raw.tieup) ? raw.tieup.length : undefined;
+  const treadles = isInt(raw.treadles) && raw.treadles >= 0 && raw.treadles <= MAX_TREADLES ? raw.treadles : (tieupLength ?? 0);
+  if (isInt(raw.treadles) && tieupLength !== undefined && tieupLength !== raw.treadles) {
+    problems.add(['tieup'], `lists ${plural(tieupLength, 'treadle')} but the draft has ${plural(raw.treadles, 'treadle')}`);
+  }
+  checkNumbersWithin(problems, 'threading', raw.threading, shafts, 'shaft', 'shaft', MAX_SHAFTS);
+  checkNumbersWithin(problems, 'tieup', raw.tieup, shafts, 'shaft', 'shaft', MAX_SHAFTS);
+  checkNumbersWithin(problems, 'liftplan', raw.liftplan, shafts, 'shaft', 'shaft', MAX_SHAFTS);
+  checkNumbersWithin(problems, 'treadling', raw.treadling, treadles, 'treadle', 'treadle', MAX_TREADLES);
+
+  const ends = Array.isArray(raw.threading) ? raw.threading.length : 0;
+  const control = resolveControl(raw);
+  const pickList = control === 'liftplan' ? raw.liftplan : raw.treadling;
+  const picks = Array.isArray(pickList) ? pickList.length : 0;
+  if (raw.control === undefined && Array.isArray(raw.treadling) && raw.treadling.length > 0 && Array.isArray(raw.liftplan) && raw.liftplan.length > 0) {
+    problems.add(['control'], 'is missing, and the draft has both a treadling and a lift plan: say which one the picks follow');
+  }
+  checkLength(problems, 'warpColors', raw.warpColors, ends, 'end');
+  checkLength(problems, 'warpLayers', raw.warpLayers, ends, 'end');
+  checkLength(problems, 'weftColors', raw.weftColors, picks, 'pick');
+  checkLength(problems, 'weftLayers', raw.weftLayers, picks, 'pick');
+  if (isRecord(raw.blocks)) {
+    if (Array.isArray(raw.blocks.warp) && raw.blocks.warp.length !== ends) {
+      problems.add(['blocks', 'warp'], `has ${plural(raw.blocks.warp.length, 'entry', 'entries')} but the draft has ${plural(ends, 'end')}`);
+    }
+    if (Array.isArray(raw.blocks.weft) && raw.blocks.weft.length !== picks) {
+      problems.add(['blocks', 'weft'], `has ${plural(raw.blocks.weft.length, 'entry', 'entries')} but the draft has ${plural(picks, 'pick')}`);
+    }
+  }
+
+  const paletteSize = Array.isArray(raw.palette) ? raw.palette.length : DEFAULT_PALETTE.length;
+  if (paletteSize > 0) {
+    checkColours(problems, 'warpColors', raw.warpColors, paletteSize);
+    checkColours(problems, 'weftColors', raw.weftColors, paletteSize);
+    if (Array.isArray(raw.yarns)) {
+      raw.yarns.forEach((y: unknown, i) => {
+        if (isRecord(y) && isInt(y.color) && y.color >= paletteSize) {
+          problems.add(['yarns', i, 'color'], `colour ${y.color} is not in the palette (its colours are numbered 0 to ${paletteSize - 1})`);
+        }
+      });
+    }
+  }
+  if (Array.isArray(raw.yarns)) {
+    const ids = new Set<unknown>();
+    raw.yarns.forEach((y: unknown, i) => {
+      if (!isRecord(y)) return;
+      if (ids.has(y.id)) problems.add(['yarns', i, 'id'], `id ${JSON.stringify(y.id)} is used by another yarn`);
+      ids.add(y.id);
+    });
+  }
+}
+
+function resolveControl(raw: Record<string, unknown>): Draft['control'] {
+  if (raw.control === 'treadling' || raw.control === 'liftplan') return raw.control;
+  const hasTreadling = Array.isArray(raw.treadling) && raw.treadling.length > 0;
+  const hasLiftplan = Array.isArray(raw.liftplan) && raw.liftplan.length > 0;
+  return hasLiftplan && !hasTreadling ? 'liftplan' : 'treadling';
+}
+
+function valueAt(json: unknown, path: readonly PropertyKey[]): unknown {
+  let v = json;
+  for (const k of path) v = isRecord(v) || Array.isArray(v) ? (v as Record<PropertyKey, unknown>)[k] : undefined;
+  return v;
+}
+
+function zodMessage(issue: z.core.$ZodIssue, json: unknown): string {
+  if (issue.code === 'invalid_type' && issue.path.length > 0 && valueAt(json, issue.path) === undefined) return 'is missing';
+  if (issue.code === 'unrecognized_keys') {
+    return `unknown field${issue.keys.length === 1 ? '' : 's'} ${issue.keys.map((k) => JSON.stringify(k)).join(', ')}`;
+  }
+  if (issue.code === 'invalid_type' && issue.message.startsWith('Invalid input')) return 'is missing or of the wrong kind';
+  return issue.message;
+}
+
+/**
+ * Reads a JSON draft document into a {@link Draft}, filling defaults for omitted optional fields
+ * (see docs/draft-format.md). Colour and layer lists are either empty (defaults apply) or give
+ * exactly one entry per end/pick: a shorter colour order is a mistake here, not a repeat.
+ *
+ * @throws DraftError listing every problem, e.g. "threading end 37: shaft 9 but the draft has 8 shafts".
+ */
+export function parseDraft(json: unknown): Draft {
+  const problems = new Problems();
+  const shape = draftDocumentSchema.safeParse(json);
+  if (!shape.success) {
+    for (const issue of shape.error.issues) problems.add(issue.path, zodMessage(issue, json));
+  }
+  if (isRecord(json)) crossCheck(json, problems);
+  if (problems.list.length > 0 || !shape.success) throw new DraftError(problems.list);
+  return withDefaults(shape.data);
+}
+
+function withDefaults(doc: DraftDocument): Draft {
+  const control = resolveControl(doc);
+  const treadling = doc.treadling ?? [];
+  const liftplan = doc.liftplan ?? [];
+  const ends = doc.threading.length;
+  const picks = control === 'liftplan' ? liftplan.length : treadling.length;
+  const palette = (doc.palette ?? DEFAULT_PALETTE).map((c) => c.toLowerCase());
+  const treadles = doc.treadles ?? doc.tieup?.length ?? 0;
+  const weftDefault = Math.min(1, palette.length - 1);
+  const filled = (list: number[] | undefined, n: number, value: number) => (list && list.length > 0 ? list : new Array<number>(n).fill(value));
+  const draft: Draft = {
+    schemaVersion: DRAFT_SCHEMA_VERSION,
+    name: doc.name ?? DEFAULT_NAME,
+    shafts: doc.shafts,
+    treadles,
+    shed: doc.shed ?? 'rising',
+    control,
+    threading: doc.threading,
+    tieup: doc.tieup ?? Array.from({ length: treadles }, () => []),
+    treadling,
+    liftplan,
+    palette,
+    warpColors: filled(doc.warpColors, ends, 0),
+    weftColors: filled(doc.weftColors, picks, weftDefault),
+    warpLayers: doc.warpLayers ?? [],
+    weftLayers: doc.weftLayers ?? [],
+    sett: doc.sett ?? { ...DEFAULT_SETT },
+    yarns: doc.yarns ?? [],
+    notes: doc.notes ?? '',
+  };
+  if (doc.blocks) draft.blocks = doc.blocks;
+  return draft;
+}
+
+/**
+ * A zod schema that accepts exactly what {@link parseDraft} accepts and yields the {@link Draft},
+ * so API request schemas can embed a draft and report every problem as an issue.
+ */
+export const draftSchema = z.unknown().transform((value, ctx): Draft => {
+  try {
+    return parseDraft(value);
+  } catch (err) {
+    if (!(err instanceof DraftError)) throw err;
+    for (const p of err.problems) ctx.addIssue({ code: 'custom', message: p.message, input: value });
+    return z.NEVER;
+  }
+});
+
+/** A draft for a loom of the given size and nothing drawn yet. */
+export function emptyDraft(shafts: number, treadles: number): Draft {
+  return parseDraft({ schemaVersion: DRAFT_SCHEMA_VERSION, shafts, treadles, threading: [] });
+}
+
+type DeepReadonly<T> = T extends readonly (infer U)[] ? readonly DeepReadonly<U>[] : T extends object ? { readonly [K in keyof T]: DeepReadonly<T[K]> } : T;
+
+/** Fields of a draft as callers may hold them (read-only lists are fine); all optional. */
+export type DraftInput = Partial<DeepReadonly<Draft>>;
+
+/**
+ * Builds a valid draft from the fields given; the rest take their defaults, and colour/layer
+ * lists left empty are filled to the draft's length.
+ *
+ * @example createDraft({ shafts: 2, threading: [[1], [2]], treadles: 2, tieup: [[1], [2]], treadling: [[1], [2]] })
+ * @throws DraftError when the result would not be a valid draft.
+ */
+export function createDraft(partial: DraftInput): Draft {
+  const doc: Record<string, unknown> = { schemaVersion: DRAFT_SCHEMA_VERSION, shafts: 4, threading: [], ...partial };
+  return parseDraft(doc);
+}
