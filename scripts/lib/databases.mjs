@@ -8,7 +8,8 @@ export const databases = {
     user: 'shedwright',
   },
   test: {
-    dir: '.data/test-db',
+    // A second port gets its own data directory, so two test runs never share one.
+    dir: process.env.SHEDWRIGHT_TEST_DB_PORT ? `.data/test-db-${process.env.SHEDWRIGHT_TEST_DB_PORT}` : '.data/test-db',
     port: Number(process.env.SHEDWRIGHT_TEST_DB_PORT ?? 4791),
     database: 'shedwright_test',
     user: 'shedwright',

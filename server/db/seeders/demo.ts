@@ -2,7 +2,7 @@ import type { Models } from '../../models';
 import { createDraft } from '../../services/drafts';
 import { hashPassword } from '../../services/passwords';
 import { DEMO_STUDIO_NAME, demoAccounts } from '../demo-accounts';
-import { colourAndWeaveSampler, pointTwillScarf, straightTwillTrial } from './demo-drafts';
+import { colourAndWeaveSampler, doubleWeaveTableMat, pointTwillScarf, straightTwillTrial } from './demo-drafts';
 
 /** True when no account exists yet, the one case in which the demo is added. */
 export async function isEmpty(models: Models): Promise<boolean> {
@@ -32,6 +32,9 @@ export async function seedDemo(models: Models): Promise<void> {
   });
   await createDraft(models, {
     ownerId: assistant, studioId: studio.id, document: colourAndWeaveSampler(), tags: ['plain weave', 'colour and weave', 'sampler'],
+  });
+  await createDraft(models, {
+    ownerId: lead, studioId: studio.id, document: doubleWeaveTableMat('harbour'), tags: ['double weave', 'table mat', 'blocks'],
   });
   await createDraft(models, { ownerId: student, studioId: null, document: straightTwillTrial(), tags: ['twill'] });
 }
