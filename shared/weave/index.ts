@@ -10,3 +10,4 @@ export * from './wif';
 export * from './profile';
 export * from './layers';
 export * from './check-threading';
+export * from './compare';

@@ -91,9 +91,10 @@ export interface LayerOptions {
  * is a vote — end up means a above b, end down means b above a. A cell's order for each pair of
  * layers is the majority of the votes in its area: the rectangle of its warp block and weft block
  * when the draft keeps block links (an expanded profile), otherwise a window of `radius` around it.
- * A tie goes to the cell's own crossing, then to the lower-numbered layer. An area whose crossings
- * agree at least three to one counts as cleanly separated: only there are odd crossings flagged. With more than two
- * layers the top is the layer that is above the most others (ties to the lower number).
+ * A tie goes to the cell's own crossing, then to the lower-numbered layer. With more than two
+ * layers the top is the layer that is above the most others (ties to the lower number). An area
+ * whose crossings agree at least three to one counts as cleanly separated, and only there are the
+ * crossings that disagree flagged.
  *
  * A face shows only the top layer's threads: at each cell, the interlacement of the nearest end and
  * nearest pick of that layer (so a double-weave face reads as its layer's plain weave).
@@ -283,7 +284,7 @@ export function simulateLayers(draft: Draft, layers?: LayerAssignment, options: 
   const warpColors = Uint16Array.from({ length: W }, (_, e) => draft.warpColors[e] ?? 0);
   const weftColors = Uint16Array.from({ length: H }, (_, p) => draft.weftColors[p] ?? 0);
   // What each layer shows across a whole row depends only on that layer's nearest pick, so each
-  // layer's front and back rows are worked out once per pick and copied cell by cell.
+  // layer's front and back rows are worked out once per pick and copied a run at a time.
   const frontRows = new Uint16Array((L + 1) * W);
   const backRows = new Uint16Array((L + 1) * W);
   const rowKey = new Int32Array(L + 1).fill(-1);
@@ -298,16 +299,15 @@ export function simulateLayers(draft: Draft, layers?: LayerAssignment, options: 
         const nearE = nearEnd[i];
         const e = nearE < 0 ? x : nearE;
         const up = (bits[row + (e >>> 5)] >>> (e & 31)) & 1;
-        // Front: the layer's own interlacement as woven; back: seen from below, so an end up is hidden.
+        // Front: the layer's own interlacement as woven; back: seen from below, so an end up is
+        // hidden. The back row is kept mirrored, ready to copy.
         frontRows[i] = up ? warpColors[e] : weftColors[p];
-        backRows[i] = up ? weftColors[p] : warpColors[e];
+        backRows[l * W + W - 1 - x] = up ? weftColors[p] : warpColors[e];
       }
     }
     const rowStart = y * W;
-    for (let x = 0; x < W; x++) {
-      frontIdx[rowStart + x] = frontRows[top[rowStart + x] * W + x];
-      backIdx[rowStart + W - 1 - x] = backRows[bottom[rowStart + x] * W + x];
-    }
+    copyRuns(top, frontRows, frontIdx, rowStart, W, false);
+    copyRuns(bottom, backRows, backIdx, rowStart, W, true);
   }
 
   return {
@@ -458,6 +458,22 @@ function areaSegments(links: readonly number[] | undefined, n: number, radius: n
     areaLo: Int32Array.from(first, (i) => lo[i]),
     areaHi: Int32Array.from(first, (i) => hi[i]),
   };
+}
+
+/**
+ * Fills one face row from the per-layer rows, a run of cells with the same layer at a time.
+ * `mirrored`: the face and its layer rows run right to left (the back).
+ */
+function copyRuns(layerAt: Uint8Array, layerRows: Uint16Array, face: Uint16Array, rowStart: number, W: number, mirrored: boolean): void {
+  let start = 0;
+  for (let x = 1; x <= W; x++) {
+    if (x < W && layerAt[rowStart + x] === layerAt[rowStart + start]) continue;
+    const from = mirrored ? W - x : start;
+    const l = layerAt[rowStart + start] * W;
+    // A plain loop: runs are short, and a subarray per run costs more than the copy.
+    for (let i = from, end = from + x - start; i < end; i++) face[rowStart + i] = layerRows[l + i];
+    start = x;
+  }
 }
 
 /** For each layer l, at l * stride: a bit row of its ends (bit e % 32 of word e >> 5). */

@@ -33,7 +33,7 @@ describe('checkThreading', () => {
       }),
       { numRuns: 150 },
     );
-  });
+  }, 60_000);
 
   it('flags exactly the ends whose layer is not the majority layer of their shaft', () => {
     fc.assert(
@@ -52,7 +52,7 @@ describe('checkThreading', () => {
       }),
       { numRuns: 150 },
     );
-  });
+  }, 60_000);
 
   it('flags an odd colour on a one-colour shaft, but not colour stripes spread over shafts', () => {
     const oneOdd = createDraft({

@@ -1,0 +1,103 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { compareDrafts, comparisonImage, COMPARE_COLOURS, computeDrawdown, type Draft } from '../../../shared/weave';
+import { draftArb } from './arbitraries';
+
+/** Slow oracle: every cell of the larger size, one isUp at a time. */
+function changedCells(a: Draft, b: Draft): number {
+  const da = computeDrawdown(a);
+  const db = computeDrawdown(b);
+  let n = 0;
+  for (let p = 0; p < Math.max(da.picks, db.picks); p++) {
+    for (let e = 0; e < Math.max(da.ends, db.ends); e++) if (da.isUp(e, p) !== db.isUp(e, p)) n++;
+  }
+  return n;
+}
+
+const pair = fc.tuple(draftArb({ maxEnds: 70, maxPicks: 40 }), draftArb({ maxEnds: 70, maxPicks: 40 }));
+
+describe('compareDrafts', () => {
+  it('finds nothing between a draft and itself', () => {
+    fc.assert(fc.property(draftArb({ maxEnds: 70 }), (d) => {
+      expect(compareDrafts(d, structuredClone(d))).toEqual({ ends: [], picks: [], tieup: [], cells: 0 });
+    }), { seed: 11, numRuns: 150 });
+  });
+
+  it('counts changed drawdown cells as the cell-by-cell oracle does, in either order', () => {
+    fc.assert(fc.property(pair, ([a, b]) => {
+      const forward = compareDrafts(a, b);
+      expect(forward.cells).toBe(changedCells(a, b));
+      const back = compareDrafts(b, a);
+      expect(back.cells).toBe(forward.cells);
+      expect(back.ends).toEqual(forward.ends);
+      expect(back.picks).toEqual(forward.picks);
+      expect(back.tieup).toEqual(forward.tieup);
+    }), { seed: 12, numRuns: 150 });
+  });
+
+  it('names exactly the end whose threading moved to another shaft', () => {
+    const arb = draftArb({ maxShafts: 8, maxEnds: 50 }).filter((d) => d.threading.length > 0 && d.shafts > 1)
+      .chain((d) => fc.tuple(fc.constant(d), fc.integer({ min: 0, max: d.threading.length - 1 })));
+    fc.assert(fc.property(arb, ([d, end]) => {
+      const moved = structuredClone(d);
+      const current = d.threading[end];
+      const other = current.length === 1 && current[0] === 1 ? 2 : 1;
+      moved.threading[end] = [other];
+      expect(compareDrafts(d, moved).ends).toEqual([end]);
+      expect(compareDrafts(d, moved).picks).toEqual([]);
+    }), { seed: 13, numRuns: 100 });
+  });
+
+  it('lists a tie-up cell that was tied or untied, and the picks whose lift it changes', () => {
+    const arb = draftArb({ control: 'treadling', maxTreadles: 6 }).filter((d) => d.treadles > 0)
+      .chain((d) => fc.tuple(fc.constant(d), fc.integer({ min: 1, max: d.treadles }), fc.integer({ min: 1, max: d.shafts })));
+    fc.assert(fc.property(arb, ([d, treadle, shaft]) => {
+      const changed = structuredClone(d);
+      const tied = changed.tieup[treadle - 1];
+      changed.tieup[treadle - 1] = tied.includes(shaft) ? tied.filter((s) => s !== shaft) : [...tied, shaft].sort((x, y) => x - y);
+      const result = compareDrafts(d, changed);
+      expect(result.tieup).toEqual([{ treadle, shaft }]);
+      // A pick changes exactly when the treadles pressed on it make a different lift now.
+      const lifts = (x: Draft, p: number) => new Set(x.treadling[p].flatMap((t) => x.tieup[t - 1]));
+      const expected = d.treadling.map((_, p) => p).filter((p) => {
+        const before = lifts(d, p);
+        const after = lifts(changed, p);
+        return before.size !== after.size || [...before].some((s) => !after.has(s));
+      });
+      expect(result.picks).toEqual(expected);
+    }), { seed: 14, numRuns: 100 });
+  });
+
+  it('counts every end and pick as changed when only the palette is recoloured', () => {
+    const d: Draft = {
+      schemaVersion: 1, name: 'tabby', shafts: 2, treadles: 2, shed: 'rising', control: 'treadling',
+      threading: [[1], [2], [1], [2]], tieup: [[1], [2]], treadling: [[1], [2]], liftplan: [],
+      palette: ['#000000', '#ffffff'], warpColors: [0, 0, 0, 0], weftColors: [1, 1], warpLayers: [], weftLayers: [],
+      sett: { warp: 10, weft: 10, unit: 'inch' }, yarns: [], notes: '',
+    };
+    const recoloured = { ...d, palette: ['#aa0000', '#ffffff'] };
+    expect(compareDrafts(d, recoloured)).toEqual({ ends: [0, 1, 2, 3], picks: [], tieup: [], cells: 0 });
+  });
+});
+
+describe('comparisonImage', () => {
+  it('paints changed cells in the change colours and the rest faint, one pixel per cell', () => {
+    fc.assert(fc.property(pair, ([a, b]) => {
+      const img = comparisonImage(a, b);
+      const da = computeDrawdown(a);
+      const db = computeDrawdown(b);
+      expect(img.rgb.length).toBe(img.width * img.height * 3);
+      let strong = 0;
+      for (let p = 0; p < img.height; p++) {
+        for (let e = 0; e < img.width; e++) {
+          const px = Array.from(img.rgb.subarray((p * img.width + e) * 3, (p * img.width + e) * 3 + 3));
+          const up = [da.isUp(e, p), db.isUp(e, p)];
+          const key = up[0] === up[1] ? (up[0] ? 'same-up' : 'same-down') : up[1] ? 'now-up' : 'now-down';
+          expect(px).toEqual([...COMPARE_COLOURS[key]]);
+          if (up[0] !== up[1]) strong++;
+        }
+      }
+      expect(strong).toBe(changedCells(a, b));
+    }), { seed: 15, numRuns: 60 });
+  });
+});
