@@ -1,0 +1,454 @@
+import PDFDocument from 'pdfkit';
+import { hexToRgb, pickCount, type Draft } from '../../shared/weave';
+import { computePlan, type PlanDocument, type PlanOutputs } from '../../shared/plan';
+import { cellOrigin, gridBounds, type DraftShape, type GridPlacement } from '../../shared/print/draft-layout';
+import { PAGE_MARGIN, LEGEND_HEAD, LEGEND_ROW, PAGE_OVERLAP, planDraftPages, type PagePart, type PrintView } from '../../shared/print/draft-pages';
+import { LOOM_LIST_KINDS, pageSize, type LoomListKind, type PrintMeta, type PrintOptions, type Rect } from '../../shared/print/types';
+import type { Span } from '../../shared/print/page-split';
+import { fontData } from './fonts';
+import { BODY_SIZE, GRID_LINE, GRID_RULE, INK, LABEL_SIZE, MUTED, plural, swatch, text, type Doc } from './pdf-style';
+import { drawLoomLists, drawPlanPage, listOrientation } from './plan-pages';
+import { encodePngRgb } from './png';
+import { cellImage, clothSources, layerTint, orientCells, type CellImage, type ClothSources } from './raster';
+
+export interface DraftPdfInput {
+  draft: Draft;
+  meta: PrintMeta;
+  /** The draft's saved plan: its figures fill page 2 and its loom-side lists follow. */
+  plan?: PlanDocument;
+  /** The plan's outputs when the caller has them already; computed from `plan` otherwise. */
+  outputs?: PlanOutputs;
+  /**
+   * Loom-side lists to print, in this order. Default: all of them with a plan; threading and
+   * weaving (from the draft alone) without one.
+   */
+  lists?: readonly LoomListKind[];
+  options: PrintOptions;
+}
+
+/**
+ * Prints a draft: the draft itself (threading, tie-up, treadling or lift plan, colour orders,
+ * drawdown in colour and in two tones, both faces and the layer map of a layered cloth) split
+ * across as many pages as legibility needs, a colour legend, the plan, then the loom-side lists
+ * in working order with boxes to tick.
+ *
+ * @example await renderDraftPdf({ draft, meta, options: { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, numberEvery: 4 } })
+ */
+export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
+  const { draft, meta, options } = input;
+  const page = pageSize(options.paper, options.orientation);
+  const doc = new PDFDocument({
+    size: [page.width, page.height],
+    margin: PAGE_MARGIN,
+    autoFirstPage: false,
+    info: { Title: meta.title, Author: meta.author, Creator: 'Shedwright' },
+  });
+  doc.registerFont('regular', fontData('regular'));
+  doc.registerFont('semibold', fontData('semibold'));
+  doc.font('regular');
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  // Numbered as each page opens: keeping every page open until the end to print "of N" costs
+  // more memory than a thousand-page draft can spare.
+  let pageNumber = 0;
+  doc.on('pageAdded', () => {
+    pageNumber++;
+    const { x, y } = doc;
+    text(doc, `${meta.title} · page ${pageNumber}`, PAGE_MARGIN, page.height - PAGE_MARGIN + 10, LABEL_SIZE + 1, MUTED);
+    doc.x = x;
+    doc.y = y;
+  });
+  const finished = new Promise<Buffer>((resolve, reject) => {
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+
+  const sources = clothSources(draft);
+  const shape = draftShape(draft);
+  const views: PrintView[] = sources.layers ? ['structure', 'front', 'back', 'layers'] : ['structure'];
+  const legend = legendRows(draft);
+  const layout = planDraftPages({ page, shape, arrangement: options, views, legendRows: legend.length });
+  const tiled = layout.pages.flatMap((p) => p.parts).some((p) => p.kind === 'draft' && p.across * p.down > 1);
+  const ctx: DrawContext = { doc, draft, options, shape, legend, sources, images: new Map(), ink: new GridInk(doc), labels: new Labels(doc), tiled };
+  layout.pages.forEach((p, i) => {
+    doc.addPage();
+    if (i === 0) drawTitleBlock(ctx, meta);
+    else drawRunningHead(ctx, meta.title, p.parts);
+    for (const part of p.parts) drawPart(ctx, part);
+  });
+
+  const outputs = input.plan ? (input.outputs ?? computePlan(draft, input.plan)) : undefined;
+  const yarnNames = (colour: number) => legend.find((r) => r.colour === colour)?.yarns ?? 'no yarn named';
+  drawPlanPage(doc, draft, yarnNames, input.plan && outputs ? { doc: input.plan, outputs } : undefined);
+  const which = input.lists ?? (outputs ? LOOM_LIST_KINDS : (['threading', 'weaving'] as const));
+  drawLoomLists(doc, draft, yarnNames, which, listOrientation(input.plan, options.workingOrder), outputs);
+
+  doc.end();
+  return finished;
+}
+
+interface LegendRow {
+  colour: number;
+  hex: string;
+  yarns: string;
+  ends: number;
+  picks: number;
+}
+
+interface DrawContext {
+  doc: Doc;
+  draft: Draft;
+  options: PrintOptions;
+  shape: DraftShape;
+  legend: LegendRow[];
+  sources: ClothSources;
+  /** Cell images made on first use. */
+  images: Map<PrintView | 'colour', CellImage>;
+  ink: GridInk;
+  labels: Labels;
+  /** The draft needs more than one sheet. */
+  tiled: boolean;
+}
+
+function draftShape(draft: Draft): DraftShape {
+  const liftPlan = draft.control === 'liftplan';
+  return {
+    ends: draft.threading.length,
+    picks: pickCount(draft),
+    shafts: draft.shafts,
+    pickColumns: liftPlan ? draft.shafts : draft.treadles,
+    liftPlan,
+  };
+}
+
+/** Palette colours the draft uses, with their yarns and how many ends and picks show them. */
+function legendRows(draft: Draft): LegendRow[] {
+  const ends = new Map<number, number>();
+  const picks = new Map<number, number>();
+  for (const c of draft.warpColors) ends.set(c, (ends.get(c) ?? 0) + 1);
+  for (const c of draft.weftColors.slice(0, pickCount(draft))) picks.set(c, (picks.get(c) ?? 0) + 1);
+  const used = [...new Set([...ends.keys(), ...picks.keys()])].sort((a, b) => a - b);
+  return used.map((colour) => ({
+    colour,
+    hex: draft.palette[colour] ?? '#000000',
+    yarns: draft.yarns.filter((y) => y.color === colour).map((y) => y.name).join(', ') || 'no yarn named',
+    ends: ends.get(colour) ?? 0,
+    picks: picks.get(colour) ?? 0,
+  }));
+}
+
+
+/**
+ * Small numbers in the margins of the grids, thousands of them in a big draft: the style is set
+ * once per run of labels and widths are measured once per string.
+ */
+class Labels {
+  private readonly options = new Map<string, { lineBreak: false; textWidth: number; wordCount: number }>();
+  constructor(private readonly doc: Doc) {}
+  /** Sets the style for the labels that follow. */
+  begin(colour = INK): this {
+    this.doc.font('regular').fontSize(LABEL_SIZE).fillColor(colour);
+    return this;
+  }
+  /** A label starting at x, centred on cy. */
+  left(s: string, x: number, cy: number): void {
+    this.doc.text(s, x, cy - LABEL_SIZE * 0.62, this.measured(s));
+  }
+  /** A label centred on (cx, cy). */
+  centred(s: string, cx: number, cy: number): void {
+    const options = this.measured(s);
+    this.doc.text(s, cx - options.textWidth / 2, cy - LABEL_SIZE * 0.62, options);
+  }
+  /** Options that hand pdfkit the width it would otherwise measure again on every call. */
+  private measured(s: string): { lineBreak: false; textWidth: number; wordCount: number } {
+    let options = this.options.get(s);
+    if (!options) {
+      options = { lineBreak: false, textWidth: this.doc.widthOfString(s), wordCount: 1 };
+      this.options.set(s, options);
+    }
+    return options;
+  }
+}
+
+function summary(ctx: DrawContext): string {
+  const { draft, shape } = ctx;
+  const loom = shape.liftPlan ? 'lift plan' : plural(draft.treadles, 'treadle');
+  const per = draft.sett.unit === 'inch' ? 'inch' : 'cm';
+  return `${plural(shape.ends, 'end')} × ${plural(shape.picks, 'pick')} · ${plural(draft.shafts, 'shaft')} · ${loom} · ${draft.shed} shed · sett ${draft.sett.warp} ends and ${draft.sett.weft} picks per ${per}`;
+}
+
+function drawTitleBlock(ctx: DrawContext, meta: PrintMeta): void {
+  const { doc } = ctx;
+  text(doc, meta.title, PAGE_MARGIN, PAGE_MARGIN, 16, INK, 'semibold');
+  const by = [meta.author && `By ${meta.author}`, meta.studio, meta.date, `version ${meta.version}`].filter(Boolean).join(' · ');
+  text(doc, by, PAGE_MARGIN, PAGE_MARGIN + 22, BODY_SIZE, MUTED);
+  text(doc, summary(ctx), PAGE_MARGIN, PAGE_MARGIN + 35, BODY_SIZE);
+  if (ctx.shape.ends + ctx.shape.picks > 0 && ctx.tiled) {
+    text(doc, `The draft is split into sheets; dark bars in the margins mark the ${PAGE_OVERLAP} ends or picks each sheet repeats from its neighbour, to line them up.`, PAGE_MARGIN, PAGE_MARGIN + 47, LABEL_SIZE + 1, MUTED);
+  }
+}
+
+function spanText(s: Span): string {
+  return s.end - s.start <= 1 ? `${s.start + 1}` : `${s.start + 1}–${s.end}`;
+}
+
+function drawRunningHead(ctx: DrawContext, title: string, parts: PagePart[]): void {
+  const { doc } = ctx;
+  text(doc, title, PAGE_MARGIN, PAGE_MARGIN, 12, INK, 'semibold');
+  const tiled = parts.find((p) => p.kind === 'draft' || (p.kind === 'view' && p.across * p.down > 1));
+  if (tiled && (tiled.kind === 'draft' || tiled.kind === 'view')) {
+    const what = tiled.kind === 'draft' ? 'Draft' : VIEW_CAPTIONS[tiled.view];
+    text(doc, `${what}: sheet ${tiled.tile.index + 1} of ${tiled.across * tiled.down} · ends ${spanText(tiled.tile.cols)} · picks ${spanText(tiled.tile.rows)}`, PAGE_MARGIN, PAGE_MARGIN + 17, BODY_SIZE, MUTED);
+  }
+}
+
+const VIEW_CAPTIONS: Record<PrintView, string> = {
+  structure: 'Drawdown in two tones (black: end up)',
+  front: 'Front face',
+  back: 'Back face, as seen turned over',
+  layers: 'Layer map (the number in each area is the layer on top at the front)',
+};
+
+function image(ctx: DrawContext, view: PrintView | 'colour'): CellImage {
+  let img = ctx.images.get(view);
+  if (!img) {
+    img = cellImage(ctx.sources, view);
+    ctx.images.set(view, img);
+  }
+  return img;
+}
+
+function drawPart(ctx: DrawContext, part: PagePart): void {
+  if (part.kind === 'draft') drawDraftTile(ctx, part);
+  else if (part.kind === 'view') drawViewTile(ctx, part);
+  else drawLegend(ctx, part);
+}
+
+function placeImage(doc: Doc, img: CellImage, g: GridPlacement, cols: Span, rows: Span): void {
+  if (g.cols === 0 || g.rows === 0) return;
+  const cut = orientCells(img, cols, rows, g.stepX < 0, g.stepY < 0);
+  const b = gridBounds(g);
+  // Speed over size: these tiles are small and pdfkit stores the stream as it is.
+  doc.image(encodePngRgb(cut.width, cut.height, cut.rgb, 1), b.x, b.y, { width: b.width, height: b.height });
+}
+
+const mod = (a: number, m: number) => ((a % m) + m) % m;
+
+/**
+ * Grid lines drawn as tiling patterns: one filled rectangle per grid instead of a path per line,
+ * which keeps a thousand-page print small and quick. A pattern is anchored to the page, so there
+ * is one per spacing and phase; most sheets of a big draft share them.
+ */
+class GridInk {
+  private readonly patterns = new Map<string, PDFKit.PDFTilingPattern>();
+  constructor(private readonly doc: Doc) {}
+
+  /** Lines every `step` points through (x, y), across the rectangle `r`. */
+  private lines(r: Rect, step: number, x: number, y: number, width: number, colour: string): void {
+    const { doc } = this;
+    // Each tile holds one line a hair inside its left and top edges, so a line is never cut
+    // in half where tiles meet (some renderers also mishandle a box that does not start at 0).
+    const h = 1;
+    const px = mod(x - h, step);
+    const py = mod(y - h, step);
+    const key = `${step.toFixed(4)} ${px.toFixed(3)} ${py.toFixed(3)} ${width}`;
+    let pattern = this.patterns.get(key);
+    if (!pattern) {
+      pattern = doc.pattern([0, 0, step, step], step, step, `${width} w ${h} 0 m ${h} ${step} l S 0 ${h} m ${step} ${h} l S`);
+      this.patterns.set(key, pattern);
+    }
+    // The pattern takes its anchor from the transformation in force when it is first used.
+    doc.save().translate(px, py);
+    doc.rect(r.x - px, r.y - py, r.width, r.height).fill([pattern, colour]);
+    doc.restore();
+  }
+
+  /** Thin lines round every cell, and a darker rule every `every` cells counted from the grid's first cell. */
+  grid(g: GridPlacement, colStart = 0, rowStart = 0, every = 0): void {
+    if (g.cols === 0 || g.rows === 0) return;
+    const b = gridBounds(g);
+    const edge = 0.3;
+    const outer = { x: b.x - edge, y: b.y - edge, width: b.width + 2 * edge, height: b.height + 2 * edge };
+    this.lines(outer, g.cell, b.x, b.y, 0.25, GRID_LINE);
+    if (!every) return;
+    // A rule follows every `every`-th cell counted from the grid's origin side.
+    const colsToRule = every - mod(colStart, every);
+    const rowsToRule = every - mod(rowStart, every);
+    const rx = g.stepX > 0 ? b.x + colsToRule * g.cell : b.x + b.width - colsToRule * g.cell;
+    const ry = g.stepY > 0 ? b.y + rowsToRule * g.cell : b.y + b.height - rowsToRule * g.cell;
+    const inner = { x: b.x + edge, y: b.y + edge, width: b.width - 2 * edge, height: b.height - 2 * edge };
+    this.lines(inner, every * g.cell, rx, ry, 0.6, GRID_RULE);
+  }
+}
+
+/** Filled marks in the cells listed, inset so the grid stays visible. */
+function marks(doc: Doc, g: GridPlacement, cells: Iterable<[number, number]>): void {
+  const inset = g.cell * 0.16;
+  let any = false;
+  for (const [col, row] of cells) {
+    if (col < 0 || col >= g.cols || row < 0 || row >= g.rows) continue;
+    const o = cellOrigin(g, col, row);
+    doc.rect(o.x + inset, o.y + inset, g.cell - 2 * inset, g.cell - 2 * inset);
+    any = true;
+  }
+  if (any) doc.fillColor(INK).fill();
+}
+
+/** Cells of a one-row or one-column grid filled with palette colours. */
+function colourStrip(doc: Doc, draft: Draft, g: GridPlacement, colours: number[], across: boolean): void {
+  const byColour = new Map<number, number[]>();
+  colours.forEach((c, i) => {
+    const list = byColour.get(c) ?? [];
+    list.push(i);
+    byColour.set(c, list);
+  });
+  for (const [c, cells] of byColour) {
+    for (const i of cells) {
+      const o = across ? cellOrigin(g, i, 0) : cellOrigin(g, 0, i);
+      doc.rect(o.x, o.y, g.cell, g.cell);
+    }
+    doc.fillColor(draft.palette[c] ?? '#000000').fill();
+  }
+}
+
+function* threadingCells(draft: Draft, cols: Span): Generator<[number, number]> {
+  for (let e = cols.start; e < cols.end; e++) for (const s of draft.threading[e]) yield [e - cols.start, s - 1];
+}
+
+function* pickCells(lists: number[][], rows: Span): Generator<[number, number]> {
+  for (let p = rows.start; p < rows.end; p++) for (const t of lists[p] ?? []) yield [t - 1, p - rows.start];
+}
+
+function* tieupCells(draft: Draft): Generator<[number, number]> {
+  for (let t = 0; t < draft.tieup.length; t++) for (const s of draft.tieup[t]) yield [t, s - 1];
+}
+
+/** Shades the cells a sheet shares with its neighbours, in the number band beside them. */
+function overlapMarks(doc: Doc, g: GridPlacement, cols: Span, rows: Span, total: { ends: number; picks: number }, band: { endY: number; pickX: number; pickWidth: number }): void {
+  const shades: Rect[] = [];
+  const endsShared: number[] = [];
+  if (cols.start > 0) for (let i = 0; i < PAGE_OVERLAP; i++) endsShared.push(i);
+  if (cols.end < total.ends) for (let i = 1; i <= PAGE_OVERLAP; i++) endsShared.push(cols.end - cols.start - i);
+  for (const i of endsShared) shades.push({ x: cellOrigin(g, i, 0).x, y: band.endY, width: g.cell, height: 3 });
+  const picksShared: number[] = [];
+  if (rows.start > 0) for (let i = 0; i < PAGE_OVERLAP; i++) picksShared.push(i);
+  if (rows.end < total.picks) for (let i = 1; i <= PAGE_OVERLAP; i++) picksShared.push(rows.end - rows.start - i);
+  for (const i of picksShared) shades.push({ x: band.pickX + band.pickWidth - 3, y: cellOrigin(g, 0, i).y, width: 3, height: g.cell });
+  if (!shades.length) return;
+  for (const r of shades) doc.rect(r.x, r.y, r.width, r.height);
+  doc.fillColor(GRID_RULE).fill();
+}
+
+function endNumbers(labels: Labels, g: GridPlacement, cols: Span, bandY: number, every: number): void {
+  labels.begin();
+  for (let e = cols.start; e < cols.end; e++) {
+    if ((e + 1) % every !== 0 && e !== cols.start) continue;
+    const o = cellOrigin(g, e - cols.start, 0);
+    labels.centred(String(e + 1), o.x + g.cell / 2, bandY + 6);
+  }
+}
+
+function pickNumbers(labels: Labels, g: GridPlacement, rows: Span, x: number, every: number): void {
+  labels.begin();
+  for (let p = rows.start; p < rows.end; p++) {
+    if ((p + 1) % every !== 0 && p !== rows.start) continue;
+    const o = cellOrigin(g, 0, p - rows.start);
+    labels.left(String(p + 1), x + 3, o.y + g.cell / 2);
+  }
+}
+
+function drawDraftTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'draft' }>): void {
+  const { doc, draft, options, shape } = ctx;
+  const { tile, layout: l } = part;
+  const every = options.numberEvery;
+
+  placeImage(doc, image(ctx, 'colour'), l.drawdown, tile.cols, tile.rows);
+  colourStrip(doc, draft, l.warpColours, draft.warpColors.slice(tile.cols.start, tile.cols.end), true);
+  colourStrip(doc, draft, l.weftColours, draft.weftColors.slice(tile.rows.start, tile.rows.end), false);
+  marks(doc, l.threading, threadingCells(draft, tile.cols));
+  marks(doc, l.treadling, pickCells(shape.liftPlan ? draft.liftplan : draft.treadling, tile.rows));
+  if (l.tieup) marks(doc, l.tieup, tieupCells(draft));
+
+  const { ink } = ctx;
+  ink.grid(l.drawdown, tile.cols.start, tile.rows.start, every);
+  ink.grid(l.threading, tile.cols.start, 0, every);
+  ink.grid(l.treadling, 0, tile.rows.start, every);
+  if (l.tieup) ink.grid(l.tieup);
+  ink.grid(l.warpColours);
+  ink.grid(l.weftColours);
+
+  const { labels } = ctx;
+  endNumbers(labels, l.threading, tile.cols, l.endLabels.y, every);
+  pickNumbers(labels, l.treadling, tile.rows, l.pickLabels.x, every);
+  // Shaft numbers beside the threading; treadle (or shaft) numbers over the tie-up corner.
+  labels.begin(MUTED);
+  for (let s = 0; s < shape.shafts; s++) {
+    labels.left(String(s + 1), l.pickLabels.x + 3, cellOrigin(l.threading, 0, s).y + l.cell / 2);
+  }
+  for (let t = 0; t < shape.pickColumns; t++) {
+    labels.centred(String(t + 1), cellOrigin(l.treadling, t, 0).x + l.cell / 2, l.endLabels.y + 6);
+  }
+  overlapMarks(doc, l.drawdown, tile.cols, tile.rows, shape, {
+    endY: l.endLabels.y + l.endLabels.height - 3,
+    pickX: l.pickLabels.x,
+    pickWidth: l.pickLabels.width,
+  });
+}
+
+function drawViewTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'view' }>): void {
+  const { doc, options, shape } = ctx;
+  const { tile, layout: l, view } = part;
+  const img = image(ctx, view);
+  const sheet = part.across * part.down > 1 ? ` (sheet ${tile.index + 1} of ${part.across * part.down})` : '';
+  text(doc, VIEW_CAPTIONS[view] + sheet, l.caption.x, l.caption.y + 2, BODY_SIZE - 1, INK, 'semibold');
+  placeImage(doc, img, l.grid, tile.cols, tile.rows);
+  ctx.ink.grid(l.grid, tile.cols.start, tile.rows.start, options.numberEvery);
+  endNumbers(ctx.labels, l.grid, tile.cols, l.endLabels.y, options.numberEvery);
+  pickNumbers(ctx.labels, l.grid, tile.rows, l.pickLabels.x, options.numberEvery);
+  overlapMarks(doc, l.grid, tile.cols, tile.rows, shape, {
+    endY: l.endLabels.y + l.endLabels.height - 3,
+    pickX: l.pickLabels.x,
+    pickWidth: l.pickLabels.width,
+  });
+  if (view === 'layers') layerNumbers(ctx, l.grid, tile.cols, tile.rows);
+}
+
+/** The layer on top written in each area of the layer map, so the map never relies on colour alone. */
+function layerNumbers(ctx: DrawContext, g: GridPlacement, cols: Span, rows: Span): void {
+  const regions = ctx.sources.layers?.regions ?? [];
+  ctx.doc.font('semibold').fontSize(Math.min(8, g.cell * 1.2));
+  for (const r of regions) {
+    const e0 = Math.max(r.firstEnd, cols.start);
+    const e1 = Math.min(r.lastEnd, cols.end - 1);
+    const p0 = Math.max(r.firstPick, rows.start);
+    const p1 = Math.min(r.lastPick, rows.end - 1);
+    // Too small an area to hold a number without covering its neighbours.
+    if (e1 - e0 < 1 || p1 - p0 < 1) continue;
+    const a = cellOrigin(g, e0 - cols.start, p0 - rows.start);
+    const b = cellOrigin(g, e1 - cols.start, p1 - rows.start);
+    const cx = (a.x + b.x) / 2 + g.cell / 2;
+    const cy = (a.y + b.y) / 2 + g.cell / 2;
+    const label = String(r.top);
+    const [red, green, blue] = hexToRgb(layerTint(r.top));
+    // Dark on light tints, white on dark ones (relative luminance, WCAG 2.2 definition, simplified to sRGB weights).
+    const light = 0.2126 * red + 0.7152 * green + 0.0722 * blue > 140;
+    ctx.doc.fillColor(light ? INK : '#ffffff').text(label, cx - ctx.doc.widthOfString(label) / 2, cy - 4, { lineBreak: false });
+  }
+}
+
+function drawLegend(ctx: DrawContext, part: Extract<PagePart, { kind: 'legend' }>): void {
+  const { doc } = ctx;
+  const { box } = part;
+  text(doc, part.first === 0 ? 'Colours and yarns' : 'Colours and yarns (continued)', box.x, box.y + 2, BODY_SIZE, INK, 'semibold');
+  const cols = [box.x, box.x + 22, box.x + 72, box.x + box.width - 110, box.x + box.width - 50];
+  for (let i = 0; i < part.count; i++) {
+    const row = ctx.legend[part.first + i];
+    const y = box.y + LEGEND_HEAD + i * LEGEND_ROW;
+    swatch(doc, row.hex, cols[0], y);
+    text(doc, row.hex, cols[1], y + 1, BODY_SIZE - 1, MUTED);
+    text(doc, row.yarns, cols[2], y + 1, BODY_SIZE - 1);
+    text(doc, plural(row.ends, 'end'), cols[3], y + 1, BODY_SIZE - 1);
+    text(doc, plural(row.picks, 'pick'), cols[4], y + 1, BODY_SIZE - 1);
+  }
+}
+

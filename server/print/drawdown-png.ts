@@ -1,0 +1,40 @@
+import type { Draft } from '../../shared/weave';
+import { encodePngRgb } from './png';
+import { cellImage, clothSources, orientCells } from './raster';
+
+export type PngView = 'structure' | 'colour' | 'front' | 'back';
+
+export interface DrawdownPngOptions {
+  view: PngView;
+  /** Pixels per cell side, a whole number from 1 to 64. */
+  scale: number;
+  /** As in the editor: pick 1 at the top when the threading is above (default). */
+  threadingAbove?: boolean;
+  /** As in the editor: end 1 on the right when the treadling is on the right (default). */
+  treadlingRight?: boolean;
+}
+
+/** Largest picture we make: 40 megapixels is 120 MB of pixels before compression. */
+export const MAX_PNG_PIXELS = 40_000_000;
+
+/**
+ * The drawdown, the cloth in colour, or either face of a layered cloth as a PNG, laid out as the
+ * editor shows it; the back is mirrored, as the weaver sees it turned over.
+ *
+ * @example renderDrawdownPng(draft, { view: 'colour', scale: 8 }) // 8 × 8 pixels per cell
+ * @throws RangeError for a scale out of range or a picture too big; Error for a face of a one-layer draft.
+ */
+export function renderDrawdownPng(draft: Draft, options: DrawdownPngOptions): Buffer {
+  const { scale } = options;
+  if (!Number.isInteger(scale) || scale < 1 || scale > 64) throw new RangeError(`scale ${scale} is not a whole number from 1 to 64`);
+  const src = clothSources(draft);
+  const { ends, picks } = src.drawdown;
+  if (ends === 0 || picks === 0) throw new RangeError('the draft has no cells to draw');
+  if (ends * picks * scale * scale > MAX_PNG_PIXELS) throw new RangeError(`a picture of ${ends} × ${picks} cells at ${scale} pixels per cell is too big; choose a smaller scale`);
+  const img = cellImage(src, options.view);
+  const endOneRight = options.treadlingRight ?? true;
+  const flipX = options.view === 'back' ? !endOneRight : endOneRight;
+  const flipY = !(options.threadingAbove ?? true);
+  const out = orientCells(img, { start: 0, end: ends }, { start: 0, end: picks }, flipX, flipY, scale);
+  return encodePngRgb(out.width, out.height, out.rgb);
+}

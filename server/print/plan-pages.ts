@@ -1,0 +1,263 @@
+import { pickCount, type Draft } from '../../shared/weave';
+import {
+  defaultLoomWaste,
+  dentingLabel,
+  DEFAULT_ORIENTATION,
+  expandWarp,
+  threadingSteps,
+  weavingList,
+  type Group,
+  type Orientation,
+  type PlanDocument,
+  type PlanOutputs,
+  type ThreadingStep,
+  type WeavingList,
+  type YarnAmount,
+} from '../../shared/plan';
+import { PAGE_MARGIN } from '../../shared/print/draft-pages';
+import type { LoomListKind } from '../../shared/print/types';
+import { BODY_SIZE, INK, MUTED, plural, ROW_HEIGHT, swatch, text, type Doc, type FontStyle } from './pdf-style';
+
+/** Writes top to bottom between the margins, turning the page when the next block would not fit. */
+class Flow {
+  y = PAGE_MARGIN;
+  constructor(
+    private readonly doc: Doc,
+    private readonly title: string,
+  ) {
+    doc.addPage();
+    text(doc, title, PAGE_MARGIN, this.y, 14, INK, 'semibold');
+    this.y += 24;
+  }
+  get bottom(): number {
+    return this.doc.page.height - PAGE_MARGIN;
+  }
+  get width(): number {
+    return this.doc.page.width - 2 * PAGE_MARGIN;
+  }
+  /** Makes room for `height` points, on a new page (with a continued heading) if need be. */
+  room(height: number): void {
+    if (this.y + height <= this.bottom) return;
+    this.doc.addPage();
+    this.y = PAGE_MARGIN;
+    text(this.doc, `${this.title} (continued)`, PAGE_MARGIN, this.y, BODY_SIZE, MUTED, 'semibold');
+    this.y += 18;
+  }
+  heading(s: string): void {
+    this.room(36);
+    this.y += 6;
+    text(this.doc, s, PAGE_MARGIN, this.y, 11, INK, 'semibold');
+    this.y += 17;
+  }
+  line(s: string, colour = INK, size = BODY_SIZE): void {
+    this.room(size + 5);
+    text(this.doc, s, PAGE_MARGIN, this.y, size, colour);
+    this.y += size + 5;
+  }
+  /** Wrapped text from `indent`; a paragraph longer than the room left is broken across pages by pdfkit. */
+  paragraph(s: string, indent = 0, font: FontStyle = 'regular'): void {
+    const { doc } = this;
+    const width = this.width - indent;
+    for (const para of s.split(/\r?\n/)) {
+      doc.font(font).fontSize(BODY_SIZE);
+      const h = doc.heightOfString(para || ' ', { width });
+      if (this.y + h > this.bottom) this.room(Math.min(h, BODY_SIZE * 3));
+      doc.font(font).fontSize(BODY_SIZE).fillColor(INK).text(para || ' ', PAGE_MARGIN + indent, this.y, { width });
+      this.y = doc.y + 2;
+    }
+  }
+  /** Label and value in two columns. */
+  pair(label: string, value: string): void {
+    this.room(BODY_SIZE + 5);
+    text(this.doc, label, PAGE_MARGIN, this.y, BODY_SIZE, MUTED);
+    text(this.doc, value, PAGE_MARGIN + 150, this.y, BODY_SIZE);
+    this.y += BODY_SIZE + 5;
+  }
+  /** One table row at the given column offsets; a swatch first when a colour is given. */
+  row(cells: string[], offsets: number[], colour?: string, font: FontStyle = 'regular'): void {
+    this.room(ROW_HEIGHT);
+    if (colour) swatch(this.doc, colour, PAGE_MARGIN, this.y);
+    cells.forEach((c, i) => text(this.doc, c, PAGE_MARGIN + offsets[i], this.y + 1, BODY_SIZE - 1, INK, font));
+    this.y += ROW_HEIGHT;
+  }
+  /** A box to tick by hand, a bold label, and the step's detail beside it, wrapped when long. */
+  tick(label: string, detail: string): void {
+    const { doc } = this;
+    const indent = 110;
+    const width = this.width - indent;
+    doc.font('regular').fontSize(BODY_SIZE);
+    // Most steps fit on one line; measuring a wrapped height is much slower, so only long ones pay for it.
+    const oneLine = doc.widthOfString(detail) <= width;
+    const h = oneLine ? ROW_HEIGHT : Math.max(ROW_HEIGHT, doc.heightOfString(detail, { width }) + 4);
+    this.room(h);
+    doc.rect(PAGE_MARGIN, this.y, 9, 9).lineWidth(0.6).strokeColor(INK).stroke();
+    text(doc, label, PAGE_MARGIN + 16, this.y, BODY_SIZE, INK, 'semibold');
+    doc.font('regular').fontSize(BODY_SIZE).fillColor(INK);
+    if (oneLine) doc.text(detail, PAGE_MARGIN + indent, this.y, { lineBreak: false });
+    else doc.text(detail, PAGE_MARGIN + indent, this.y, { width });
+    this.y += h;
+  }
+}
+
+function fixed(n: number, digits = 1): string {
+  return n.toLocaleString('en', { maximumFractionDigits: digits, minimumFractionDigits: 0 });
+}
+
+function percent(rate: number): string {
+  return `${fixed(rate * 100)} %`;
+}
+
+/** Yarn names by palette colour, as the legend shows them. */
+export type YarnNames = (colour: number) => string;
+
+/** Page 2: the project plan (or what the draft alone says when there is none) and the notes. */
+export function drawPlanPage(doc: Doc, draft: Draft, yarnNames: YarnNames, plan?: { doc: PlanDocument; outputs: PlanOutputs }): void {
+  const flow = new Flow(doc, 'Plan');
+  if (!plan) {
+    flow.line('No plan has been saved for this draft yet; the figures below come from the draft alone.', MUTED);
+    flow.pair('Sett', `${draft.sett.warp} ends and ${draft.sett.weft} picks per ${draft.sett.unit}`);
+    flow.pair('Ends in the draft', String(draft.threading.length));
+    flow.pair('Picks in the draft', String(pickCount(draft)));
+  } else {
+    const { doc: p, outputs } = plan;
+    const w = outputs.warp;
+    const u = w.unit === 'inch' ? 'in' : 'cm';
+    const len = (v: number) => `${fixed(v)} ${u}`;
+    flow.pair('Sett', `${fixed(w.sett)} ends and ${fixed(w.picksPerUnit)} picks per ${w.unit}`);
+    const per = p.reed.per === '10cm' ? '10 cm' : p.reed.per;
+    flow.pair('Reed and dents', `${p.reed.dents}-dent reed per ${per}, sleyed ${dentingLabel(outputs.denting.pattern)} (gives ${fixed(outputs.denting.sett)} ends per ${w.unit})`);
+    flow.pair('Width in the reed', len(w.widthInReed));
+    flow.pair('Ends', `${w.ends.totalEnds} (${w.ends.repeats} repeats, ${w.ends.bodyEnds} in the body)`);
+    flow.pair('Finished size', `${len(p.finishedWidth)} × ${len(p.finishedLength)}, ${plural(p.pieces, 'piece')}`);
+    flow.pair('Woven length per piece', len(w.wovenLengthPerPiece));
+    flow.pair('Warp length', len(w.warpLength));
+    flow.pair('Picks in all', String(w.totalPicks));
+    flow.pair('Weft length', len(w.weftLength));
+    const a = p.allowances;
+    flow.pair('Take-up / draw-in', `${percent(a.takeUp)} / ${percent(a.drawIn)}`);
+    flow.pair('Shrinkage (length / width)', `${percent(a.lengthShrinkage)} / ${percent(a.widthShrinkage)}`);
+    flow.pair('Loom waste', len(p.loomWaste ?? defaultLoomWaste(p.loom, p.unit)));
+    if (w.bouts?.length) flow.pair('Bouts', `${w.bouts.length} (${w.bouts.join(', ')} ends)`);
+
+    const offsets = [22, 170, 230, 330, 420];
+    const table = (title: string, amounts: YarnAmount[], threads: string) => {
+      flow.heading(title);
+      flow.row(['Yarn', threads, 'Length', 'Weight', 'Skeins or cones'], offsets, undefined, 'semibold');
+      for (const y of amounts) {
+        const weight = y.grams === undefined || y.pounds === undefined ? '–' : `${fixed(y.grams, 0)} g (${fixed(y.pounds, 2)} lb)`;
+        flow.row(
+          [yarnNames(y.color), String(y.threads), `${fixed(y.metres)} m (${fixed(y.yards)} yd)`, weight, y.packages === undefined ? '–' : String(y.packages)],
+          offsets,
+          draft.palette[y.color] ?? '#000000',
+        );
+      }
+    };
+    table('Warp yarn per colour', w.warpByColor, 'Ends');
+    table('Weft yarn per colour', w.weftByColor, 'Picks per repeat');
+    if (p.notes.trim()) {
+      flow.heading('Plan notes');
+      flow.paragraph(p.notes);
+    }
+  }
+  flow.line('Yarn and cloth figures are estimates: weave a sample and trust it over these numbers.', MUTED, BODY_SIZE - 1);
+  flow.heading('Draft notes');
+  if (draft.notes.trim()) flow.paragraph(draft.notes);
+  else flow.line('No notes.', MUTED);
+}
+
+function range(from: number, to: number): string {
+  return from === to ? String(from) : `${from}–${to}`;
+}
+
+function orientationWords(o: Orientation): string {
+  const numbering = o.shaftNumbering === 'near' ? 'shaft 1 nearest you' : 'shaft 1 farthest from you';
+  return `Working from the ${o.side} of the loom, ${o.direction.replace(/-/g, ' ')}, ${numbering}.`;
+}
+
+/** Loom-side lists from the plan, or from the draft alone (threading and weaving) without one. */
+export function drawLoomLists(
+  doc: Doc,
+  draft: Draft,
+  yarnNames: YarnNames,
+  which: readonly LoomListKind[],
+  orientation: Orientation,
+  outputs?: PlanOutputs,
+): void {
+  const threading = outputs?.threading ?? draftThreading(draft, orientation);
+  const weaving = outputs?.weaving ?? weavingList(draft, { totalPicks: pickCount(draft), shaftNumbering: orientation.side === 'front' ? orientation.shaftNumbering : orientation.shaftNumbering === 'near' ? 'far' : 'near' });
+  for (const kind of which) {
+    if (kind === 'threading') threadingList(doc, threading, orientation);
+    else if (kind === 'sleying' && outputs) sleyingList(doc, outputs, orientation);
+    else if (kind === 'tie-on' && outputs) tieOnList(doc, outputs, orientation);
+    else if (kind === 'weaving') weavingPages(doc, draft, weaving, yarnNames);
+  }
+}
+
+/** The draft's own ends, once through, when no plan says how wide the warp is. */
+function draftThreading(draft: Draft, o: Orientation): Group<ThreadingStep>[] {
+  const n = draft.threading.length;
+  if (n === 0) return [];
+  const warp = expandWarp(draft, { repeats: 1, bodyEnds: n, totalEnds: n }, 0);
+  return threadingSteps(draft, warp, o, Math.min(n, Math.max(draft.shafts, 4)));
+}
+
+const REST = 'Sit square to the loom, and rest your hands and eyes between groups.';
+
+function threadingList(doc: Doc, groups: Group<ThreadingStep>[], o: Orientation): void {
+  const flow = new Flow(doc, 'Threading');
+  flow.line(orientationWords(o), MUTED);
+  flow.line(`Each group lists its ends in the order you reach them, with the shaft for each. ${REST}`, MUTED, BODY_SIZE - 1);
+  for (const g of groups) {
+    const first = g.items[0];
+    const last = g.items[g.items.length - 1];
+    if (!first || !last) continue;
+    const steps = g.items.map((s) => `${s.end}: ${s.shafts.length ? s.shafts.join('+') : 'no shaft'}${s.selvedge ? ' (selvedge)' : ''}`).join('   ');
+    flow.tick(`Group ${g.index} of ${g.of}`, `Ends ${range(first.end, last.end)}  —  ${steps}`);
+  }
+}
+
+function sleyingList(doc: Doc, outputs: PlanOutputs, o: Orientation): void {
+  const flow = new Flow(doc, 'Sleying');
+  flow.line(`${orientationWords(o)} Denting ${dentingLabel(outputs.denting.pattern)}.`, MUTED);
+  flow.line(`Each group lists its dents with the ends that go through them. ${REST}`, MUTED, BODY_SIZE - 1);
+  for (const g of outputs.sleying) {
+    const first = g.items[0];
+    const last = g.items[g.items.length - 1];
+    if (!first || !last) continue;
+    const dents = g.items.map((d) => `${d.dent}: ${d.ends.length ? d.ends.map((e) => e.end).join(', ') : 'empty'}`).join('   ');
+    flow.tick(`Group ${g.index} of ${g.of}`, `Dents ${range(first.dent, last.dent)}  —  ${dents}`);
+  }
+}
+
+function tieOnList(doc: Doc, outputs: PlanOutputs, o: Orientation): void {
+  const flow = new Flow(doc, 'Tying on');
+  flow.line(orientationWords(o), MUTED);
+  for (const g of outputs.tieOn) {
+    const first = g.items[0];
+    const last = g.items[g.items.length - 1];
+    if (first === undefined || last === undefined) continue;
+    flow.tick(`Bundle ${g.index} of ${g.of}`, `Ends ${range(first, last)} (${g.items.length} ends)`);
+  }
+}
+
+function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames: YarnNames): void {
+  const flow = new Flow(doc, draft.control === 'liftplan' ? 'Lift plan' : 'Treadling');
+  const times = list.repeats > 0 ? `Weave the sequence ${plural(list.repeats, 'time')}${list.extraPicks ? `, then picks 1–${list.extraPicks} once more` : ''}. ` : '';
+  flow.line(`${times}${list.picksPerUnit} picks per ${list.unit}. Shafts are numbered from the front of the loom.`, MUTED);
+  flow.line(`Tick each line as you weave it. ${REST}`, MUTED, BODY_SIZE - 1);
+  const layered = draft.weftLayers.some((l) => l > 1);
+  for (const r of list.rows) {
+    const label = r.fromPick === r.toPick ? `Pick ${r.fromPick}` : `Picks ${r.fromPick}–${r.toPick}`;
+    const how = r.treadles ? `treadle ${r.treadles.join('+')} (raises ${r.raised.join(' ') || 'nothing'})` : `raise ${r.raised.join(' ') || 'nothing'}`;
+    const layer = layered ? ` · layer ${r.layer}` : '';
+    flow.tick(label, `${how} · ${yarnNames(r.color)}${layer}${r.times > 1 ? ` · ${r.times} times` : ''}`);
+  }
+}
+
+/** The plan's list settings with the print's working order laid over them. */
+export function listOrientation(plan: PlanDocument | undefined, override: Partial<Orientation> | undefined): Orientation {
+  const base: Orientation = plan
+    ? { side: plan.lists.side, direction: plan.lists.direction, shaftNumbering: plan.lists.shaftNumbering, endOneAt: plan.lists.endOneAt }
+    : DEFAULT_ORIENTATION;
+  return { ...base, ...override };
+}

@@ -1,0 +1,157 @@
+import { chooseCellSize } from './cell-size';
+import {
+  draftCapacity,
+  draftTileSize,
+  placeDraftTile,
+  placeViewTile,
+  viewCapacity,
+  viewTileSize,
+  type DraftShape,
+  type DraftTileLayout,
+  type ViewTileLayout,
+} from './draft-layout';
+import { splitGrid, type Tile } from './page-split';
+import type { DraftArrangement, Rect, Size } from './types';
+
+/** Cloth views printed after the draft itself, each as a plain grid. */
+export type PrintView = 'structure' | 'front' | 'back' | 'layers';
+
+/** White space around the page (half an inch, common practice for home and office printers). */
+export const PAGE_MARGIN = 36;
+/** Room at the top of every draft page for the title block or the running head. */
+export const HEAD_HEIGHT = 56;
+/** Space between blocks on a page. */
+export const BLOCK_GAP = 14;
+/** Ends and picks repeated at the edge of a page so the pages can be lined up. */
+export const PAGE_OVERLAP = 2;
+export const LEGEND_ROW = 14;
+export const LEGEND_HEAD = 18;
+
+export type PagePart =
+  | { kind: 'draft'; tile: Tile; across: number; down: number; layout: DraftTileLayout }
+  | { kind: 'view'; view: PrintView; tile: Tile; across: number; down: number; layout: ViewTileLayout }
+  /** Rows [first, first + count) of the legend, with a heading when `first` is 0 or continued. */
+  | { kind: 'legend'; box: Rect; first: number; count: number };
+
+export interface PrintPage {
+  parts: PagePart[];
+}
+
+export interface DraftPagesInput {
+  page: Size;
+  shape: DraftShape;
+  arrangement: DraftArrangement;
+  /** Views to print after the draft, in order. */
+  views: readonly PrintView[];
+  legendRows: number;
+  overlap?: number;
+}
+
+export interface DraftPages {
+  /** Cell size in points. */
+  cell: number;
+  /** Area inside the margins and below the head, shared by every draft page. */
+  body: Rect;
+  pages: PrintPage[];
+}
+
+/**
+ * Lays out the draft pages: the draft (threading, tie-up, treadling or lift plan, colour
+ * orders, drawdown in colour) split into tiles, then each view, then the colour legend. Small
+ * blocks share a page, filling it in rows; a block too big for one page gets pages of its own.
+ * The cell size is the largest that needs no more pages than the smallest legible one.
+ *
+ * @throws RangeError when not even the smallest cell leaves room for the drawdown.
+ */
+export function planDraftPages(input: DraftPagesInput): DraftPages {
+  const body: Rect = {
+    x: PAGE_MARGIN,
+    y: PAGE_MARGIN + HEAD_HEIGHT,
+    width: input.page.width - 2 * PAGE_MARGIN,
+    height: input.page.height - 2 * PAGE_MARGIN - HEAD_HEIGHT,
+  };
+  const cell = chooseCellSize((c) => layoutAt(input, body, c)?.length ?? Number.POSITIVE_INFINITY);
+  const pages = layoutAt(input, body, cell);
+  if (!pages) throw new RangeError('the draft does not fit on this paper even at the smallest cell size');
+  return { cell, body, pages };
+}
+
+function layoutAt(input: DraftPagesInput, body: Rect, cell: number): PrintPage[] | null {
+  const overlap = input.overlap ?? PAGE_OVERLAP;
+  const { shape, arrangement } = input;
+  const cap = draftCapacity(body.width, body.height, shape, cell);
+  const vcap = viewCapacity(body.width, body.height, cell);
+  if (Math.min(cap.cols, cap.rows, vcap.cols, vcap.rows) <= overlap) return null;
+
+  const pages: PrintPage[] = [];
+  const right = body.x + body.width;
+  const bottom = body.y + body.height;
+  // A shelf packer: blocks go left to right in rows, a new row when the width runs out,
+  // a new page when the height does.
+  let x = body.x;
+  let y = body.y;
+  let rowHeight = 0;
+  const newPage = () => {
+    pages.push({ parts: [] });
+    x = body.x;
+    y = body.y;
+    rowHeight = 0;
+  };
+  const newRow = () => {
+    y += rowHeight + (rowHeight > 0 ? BLOCK_GAP : 0);
+    x = body.x;
+    rowHeight = 0;
+  };
+  const place = (size: Size, own: boolean): { x: number; y: number } => {
+    if (pages.length === 0 || own) newPage();
+    else if (x + size.width > right + 1e-6) newRow();
+    if (y + size.height > bottom + 1e-6) newPage();
+    const at = { x, y };
+    x += size.width + BLOCK_GAP;
+    rowHeight = Math.max(rowHeight, size.height);
+    return at;
+  };
+  const last = () => pages[pages.length - 1];
+
+  const split = splitGrid(shape.ends, shape.picks, cap.cols, cap.rows, overlap);
+  for (const tile of split.tiles) {
+    const cols = tile.cols.end - tile.cols.start;
+    const rows = tile.rows.end - tile.rows.start;
+    const at = place(draftTileSize(shape, cols, rows, cell), true);
+    const layout = placeDraftTile(at.x, at.y, shape, cols, rows, cell, arrangement);
+    last().parts.push({ kind: 'draft', tile, across: split.across, down: split.down, layout });
+  }
+  // Nothing shares a row with the draft: the next block starts below it.
+  newRow();
+
+  for (const view of input.views) {
+    const vsplit = splitGrid(shape.ends, shape.picks, vcap.cols, vcap.rows, overlap);
+    const own = vsplit.tiles.length > 1;
+    for (const tile of vsplit.tiles) {
+      const cols = tile.cols.end - tile.cols.start;
+      const rows = tile.rows.end - tile.rows.start;
+      const at = place(viewTileSize(cols, rows, cell), own);
+      // The back is seen turned over, so its ends run the other way across the page.
+      const seen = view === 'back' ? { ...arrangement, treadlingRight: !arrangement.treadlingRight } : arrangement;
+      const layout = placeViewTile(at.x, at.y, cols, rows, cell, seen);
+      last().parts.push({ kind: 'view', view, tile, across: vsplit.across, down: vsplit.down, layout });
+    }
+    if (own) newRow();
+  }
+
+  newRow();
+  let first = 0;
+  while (first < input.legendRows) {
+    let room = Math.floor((bottom - y - LEGEND_HEAD) / LEGEND_ROW);
+    if (room < 1) {
+      newPage();
+      room = Math.floor((bottom - y - LEGEND_HEAD) / LEGEND_ROW);
+    }
+    const count = Math.min(room, input.legendRows - first);
+    const height = LEGEND_HEAD + count * LEGEND_ROW;
+    last().parts.push({ kind: 'legend', box: { x: body.x, y, width: body.width, height }, first, count });
+    y += height + BLOCK_GAP;
+    first += count;
+  }
+  return pages;
+}

@@ -1,0 +1,165 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { PDFParse } from 'pdf-parse';
+import { expandProfile, hexToRgb, type Draft } from '../../../shared/weave';
+import { defaultPlan } from '../../../shared/plan';
+import { cellCentre } from '../../../shared/print/draft-layout';
+import { planDraftPages } from '../../../shared/print/draft-pages';
+import { pageSize, type PrintOptions } from '../../../shared/print/types';
+import { renderDraftPdf } from '../../../server/print/draft-pdf';
+import { doubleWeaveProfile } from '../../helpers/draft-fixtures';
+import { checkerboard, HARBOUR, MUSTARD } from '../../helpers/print-fixtures';
+
+const work = mkdtempSync(join(tmpdir(), 'shedwright-print-'));
+afterAll(() => rmSync(work, { recursive: true, force: true }));
+
+const meta = { title: 'Checkerboard sampler', author: 'Wren Example', studio: 'Invented Studio', date: '2 March 2025', version: 7 };
+const options: PrintOptions = { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, numberEvery: 4 };
+
+async function readBack(pdf: Buffer): Promise<{ total: number; pages: string[]; text: string }> {
+  const parser = new PDFParse({ data: new Uint8Array(pdf) });
+  try {
+    const t = await parser.getText();
+    return { total: t.total, pages: t.pages.map((p) => p.text), text: t.text };
+  } finally {
+    await parser.destroy();
+  }
+}
+
+/** Page 1 rendered by poppler's pdftoppm as a PPM (P6), which is simple enough to read here. */
+function renderPage(pdf: Buffer, page: number, dpi: number): { width: number; height: number; at(x: number, y: number): number[] } {
+  const file = join(work, `p${Math.random().toString(36).slice(2)}.pdf`);
+  writeFileSync(file, pdf);
+  const prefix = `${file}-out`;
+  execFileSync('pdftoppm', ['-r', String(dpi), '-f', String(page), '-l', String(page), '-singlefile', file, prefix]);
+  const ppm = readFileSync(`${prefix}.ppm`);
+  // Header: "P6", width, height, maxval, each followed by whitespace (Netpbm PPM format).
+  const fields: string[] = [];
+  let i = 0;
+  while (fields.length < 4) {
+    while (/\s/.test(String.fromCharCode(ppm[i]))) i++;
+    let s = '';
+    while (!/\s/.test(String.fromCharCode(ppm[i]))) s += String.fromCharCode(ppm[i++]);
+    fields.push(s);
+  }
+  i++;
+  expect(fields[0]).toBe('P6');
+  expect(fields[3]).toBe('255');
+  const width = Number(fields[1]);
+  const height = Number(fields[2]);
+  const data = ppm.subarray(i);
+  return { width, height, at: (x, y) => Array.from(data.subarray((y * width + x) * 3, (y * width + x) * 3 + 3)) };
+}
+
+function expectColour(actual: number[], hex: string): void {
+  const want = hexToRgb(hex);
+  for (let k = 0; k < 3; k++) expect(Math.abs(actual[k] - want[k])).toBeLessThanOrEqual(4);
+}
+
+function planFor(draft: Draft, opts: PrintOptions, views: ('structure' | 'front' | 'back' | 'layers')[] = ['structure'], legendRows = 2) {
+  return planDraftPages({
+    page: pageSize(opts.paper, opts.orientation),
+    shape: { ends: draft.threading.length, picks: draft.treadling.length, shafts: draft.shafts, pickColumns: draft.treadles, liftPlan: false },
+    arrangement: opts,
+    views,
+    legendRows,
+  });
+}
+
+describe('renderDraftPdf', () => {
+  it('prints the title, the counts, the yarn table, then the plan and the lists', async () => {
+    const draft = checkerboard(24, 20);
+    const pdf = await renderDraftPdf({ draft, meta, options });
+    const { total, pages, text } = await readBack(pdf);
+    // A small draft: the draft page, the plan page, the threading list and the treadling list.
+    expect(planFor(draft, options).pages).toHaveLength(1);
+    expect(total).toBe(4);
+    expect(pages[0]).toContain('Checkerboard sampler');
+    expect(pages[0]).toContain('By Wren Example · Invented Studio · 2 March 2025 · version 7');
+    expect(pages[0]).toContain('24 ends × 20 picks');
+    expect(pages[0]).toMatch(/Harbour blue 8\/2 cotton\s+24 ends\s+0 picks/);
+    expect(pages[0]).toMatch(/Mustard 8\/2 cotton\s+0 ends\s+20 picks/);
+    expect(pages[1]).toContain('Plan');
+    expect(pages[1]).toContain('No plan has been saved');
+    expect(pages[2]).toContain('Threading');
+    expect(pages[2]).toContain('Group 1 of');
+    expect(pages[3]).toContain('Treadling');
+    expect(pages[3]).toContain('Pick 20');
+    // Every page carries its number.
+    expect(text).toContain('Checkerboard sampler · page 4');
+    // IBM Plex Sans is embedded (a subset), not a standard PDF font.
+    expect(pdf.toString('latin1')).toMatch(/\/BaseFont \/[A-Z]{6}\+IBMPlexSans-Regular/);
+  });
+
+  it.each([
+    ['threading above, treadling right', options],
+    ['threading below, treadling left, landscape Letter', { ...options, paper: 'letter', orientation: 'landscape', threadingAbove: false, treadlingRight: false } as PrintOptions],
+  ])('puts each drawdown cell where the layout says, in its colour (%s)', async (_name, opts) => {
+    const draft = checkerboard(24, 20);
+    const pdf = await renderDraftPdf({ draft, meta, options: opts });
+    const plan = planFor(draft, opts);
+    const part = plan.pages[0].parts[0];
+    if (part.kind !== 'draft') throw new Error('the draft comes first on page 1');
+    const dpi = 100;
+    const img = renderPage(pdf, 1, dpi);
+    const size = pageSize(opts.paper, opts.orientation);
+    expect(img.width).toBe(Math.ceil((size.width * dpi) / 72 - 1e-6));
+    for (const [e, p] of [[0, 0], [1, 0], [0, 1], [5, 7], [23, 19], [22, 19], [12, 3]]) {
+      const c = cellCentre(part.layout.drawdown, e, p);
+      const colour = (e + p) % 2 === 0 ? HARBOUR : MUSTARD;
+      expectColour(img.at(Math.round((c.x * dpi) / 72), Math.round((c.y * dpi) / 72)), colour);
+    }
+    // The warp colour row is all blue over every end.
+    const w = cellCentre(part.layout.warpColours, 23, 0);
+    expectColour(img.at(Math.round((w.x * dpi) / 72), Math.round((w.y * dpi) / 72)), HARBOUR);
+  });
+
+  it('splits a wide and long draft into sheets that each say which ends and picks they hold', async () => {
+    const draft = checkerboard(180, 150);
+    const plan = planFor(draft, options);
+    const sheets = plan.pages.flatMap((p) => p.parts).filter((p) => p.kind === 'draft');
+    expect(sheets.length).toBeGreaterThan(3);
+    const { pages } = await readBack(await renderDraftPdf({ draft, meta, options, lists: [] }));
+    // Draft pages, then the plan page.
+    expect(pages.length).toBe(plan.pages.length + 1);
+    for (const s of sheets.slice(1)) {
+      if (s.kind !== 'draft') continue;
+      const range = (a: number, b: number) => `${a + 1}–${b}`;
+      const head = `Draft: sheet ${s.tile.index + 1} of ${sheets.length} · ends ${range(s.tile.cols.start, s.tile.cols.end)} · picks ${range(s.tile.rows.start, s.tile.rows.end)}`;
+      expect(pages[plan.pages.findIndex((p) => p.parts.includes(s))]).toContain(head);
+    }
+    expect(pages[0]).toContain('180 ends × 150 picks');
+  });
+
+  it('prints both faces and the layer map of a double weave, and the plan with every loom-side list', async () => {
+    const draft: Draft = {
+      ...expandProfile(doubleWeaveProfile(), 'double-weave'),
+      yarns: [
+        { id: 'n', name: 'Deep navy', color: 0 },
+        { id: 'c', name: 'Oat cream', color: 1 },
+        { id: 'r', name: 'Brick rust', color: 2 },
+      ],
+    };
+    const plan = { ...defaultPlan('inch'), warpYarn: { text: '8/2 cotton', byColor: {} }, weftYarn: { text: '8/2 cotton', byColor: {} } };
+    const pdf = await renderDraftPdf({ draft, meta: { ...meta, title: 'Two-block mat' }, plan, options: { ...options, paper: 'letter' } });
+    expect(pdf.toString('latin1')).toContain('/MediaBox [0 0 612 792]');
+    const { pages, text } = await readBack(pdf);
+    expect(pages[0]).toContain('Front face');
+    expect(pages[0]).toContain('Back face, as seen turned over');
+    expect(pages[0]).toContain('Layer map');
+    expect(pages[0]).toContain('lift plan');
+    expect(pages[1]).toContain('Reed and dents');
+    expect(pages[1]).toMatch(/Warp yarn per colour[\s\S]*Deep navy/);
+    for (const heading of ['Threading', 'Sleying', 'Tying on', 'Lift plan']) expect(text).toContain(heading);
+    expect(text).toContain('Working from the front of the loom, right to left');
+  });
+
+  it('follows the chosen working order in the lists', async () => {
+    const draft = checkerboard(8, 4);
+    const { text } = await readBack(await renderDraftPdf({ draft, meta, options: { ...options, workingOrder: { side: 'back' } }, lists: ['threading'] }));
+    expect(text).toContain('Working from the back of the loom');
+  });
+});

@@ -1,0 +1,113 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { expandProfile, hexToRgb, simulateLayers } from '../../../shared/weave';
+import { encodePngRgb } from '../../../server/print/png';
+import { renderDrawdownPng } from '../../../server/print/drawdown-png';
+import { openBrowser, type Browser } from '../../helpers/e2e';
+import { doubleWeaveProfile } from '../../helpers/draft-fixtures';
+import { checkerboard, HARBOUR, MUSTARD } from '../../helpers/print-fixtures';
+
+/**
+ * The independent reader: headless Chromium decodes the PNG in an <img>, draws it on a canvas
+ * and hands back the pixels (RGBA).
+ */
+let browser: Browser;
+beforeAll(async () => {
+  browser = await openBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function decode(png: Buffer): Promise<{ width: number; height: number; rgba: number[] }> {
+  return browser.page.evaluate(async (b64) => {
+    const img = new Image();
+    img.src = `data:image/png;base64,${b64}`;
+    await img.decode();
+    const canvas = document.createElement('canvas');
+    canvas.width = img.naturalWidth;
+    canvas.height = img.naturalHeight;
+    const g = canvas.getContext('2d')!;
+    g.drawImage(img, 0, 0);
+    return { width: canvas.width, height: canvas.height, rgba: Array.from(g.getImageData(0, 0, canvas.width, canvas.height).data) };
+  }, png.toString('base64'));
+}
+
+const at = (d: { width: number; rgba: number[] }, x: number, y: number) => d.rgba.slice((y * d.width + x) * 4, (y * d.width + x) * 4 + 3);
+
+describe('encodePngRgb', () => {
+  it('writes PNGs that Chromium decodes to the same pixels', async () => {
+    await fc.assert(
+      fc.asyncProperty(
+        fc.integer({ min: 1, max: 40 }).chain((w) =>
+          fc.integer({ min: 1, max: 40 }).chain((h) => fc.uint8Array({ minLength: w * h * 3, maxLength: w * h * 3 }).map((rgb) => ({ w, h, rgb }))),
+        ),
+        async ({ w, h, rgb }) => {
+          const d = await decode(encodePngRgb(w, h, rgb));
+          expect([d.width, d.height]).toEqual([w, h]);
+          const expected: number[] = [];
+          for (let i = 0; i < w * h; i++) expected.push(rgb[i * 3], rgb[i * 3 + 1], rgb[i * 3 + 2], 255);
+          expect(d.rgba).toEqual(expected);
+        },
+      ),
+      { numRuns: 12 },
+    );
+  });
+
+  it('refuses an image with no pixels or the wrong amount of data', () => {
+    expect(() => encodePngRgb(0, 1, new Uint8Array(0))).toThrow(RangeError);
+    expect(() => encodePngRgb(2, 2, new Uint8Array(5))).toThrow(RangeError);
+  });
+});
+
+describe('renderDrawdownPng', () => {
+  it('draws the plain-weave checkerboard at the chosen scale, end 1 on the right and pick 1 on top by default', async () => {
+    const ends = 6;
+    const picks = 5;
+    const scale = 4;
+    const d = await decode(renderDrawdownPng(checkerboard(ends, picks), { view: 'colour', scale }));
+    expect([d.width, d.height]).toEqual([ends * scale, picks * scale]);
+    for (let e = 0; e < ends; e++) {
+      for (let p = 0; p < picks; p++) {
+        // Plain weave: end e is up on pick p when both are even or both odd (end 1 on shaft 1, pick 1 lifts shaft 1).
+        const colour = (e + p) % 2 === 0 ? HARBOUR : MUSTARD;
+        const x = (ends - 1 - e) * scale + 1;
+        expect(at(d, x, p * scale + 2)).toEqual(hexToRgb(colour));
+      }
+    }
+  });
+
+  it('draws the structure in black and white, and follows the arrangement when asked', async () => {
+    const d = await decode(renderDrawdownPng(checkerboard(4, 4), { view: 'structure', scale: 1, treadlingRight: false, threadingAbove: false }));
+    // End 1 on the left, pick 1 at the bottom: end 1 is up on pick 1.
+    expect(at(d, 0, 3)).toEqual([0, 0, 0]);
+    expect(at(d, 1, 3)).toEqual([255, 255, 255]);
+    expect(at(d, 0, 2)).toEqual([255, 255, 255]);
+  });
+
+  it('shows the faces of a double weave, the back mirrored as seen turned over', async () => {
+    const draft = expandProfile(doubleWeaveProfile(), 'double-weave');
+    const sim = simulateLayers(draft);
+    const W = draft.threading.length;
+    const front = await decode(renderDrawdownPng(draft, { view: 'front', scale: 1 }));
+    const back = await decode(renderDrawdownPng(draft, { view: 'back', scale: 1 }));
+    const backLeft = await decode(renderDrawdownPng(draft, { view: 'back', scale: 1, treadlingRight: false }));
+    for (let p = 0; p < sim.picks; p++) {
+      for (let x = 0; x < W; x++) {
+        // End 1 on the right of the front, so on the left of the back.
+        expect(at(front, x, p)).toEqual(hexToRgb(draft.palette[sim.front.colorAt(W - 1 - x, p)]));
+        expect(at(back, x, p)).toEqual(hexToRgb(draft.palette[sim.back.colorAt(W - 1 - x, p)]));
+        // With end 1 on the left of the front, the back reads as the engine's mirrored picture.
+        expect(at(backLeft, x, p)).toEqual(hexToRgb(draft.palette[sim.back.colorAt(x, p)]));
+      }
+    }
+  });
+
+  it('refuses a bad scale, an oversized picture and a face of a one-layer cloth', () => {
+    const draft = checkerboard(4, 4);
+    expect(() => renderDrawdownPng(draft, { view: 'colour', scale: 0 })).toThrow(RangeError);
+    expect(() => renderDrawdownPng(draft, { view: 'colour', scale: 1.5 })).toThrow(RangeError);
+    expect(() => renderDrawdownPng(checkerboard(2000, 2000), { view: 'colour', scale: 4 })).toThrow(RangeError);
+    expect(() => renderDrawdownPng(draft, { view: 'front', scale: 2 })).toThrow(/more than one layer/);
+  });
+});
