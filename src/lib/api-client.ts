@@ -14,13 +14,16 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields: Record<string, string>;
+  /** The whole answer, for errors that carry more than the message (a save conflict's current version). */
+  readonly payload: unknown;
 
-  constructor(status: number, body: ApiErrorBody) {
+  constructor(status: number, body: ApiErrorBody, payload?: unknown) {
     super(body.message);
     this.name = 'ApiError';
     this.status = status;
     this.code = body.code;
     this.fields = body.fields ?? {};
+    this.payload = payload;
   }
 }
 
@@ -34,7 +37,7 @@ export function toApiError(status: number, payload: unknown): ApiError {
   const error = isRecord(payload) ? payload.error : undefined;
   if (isRecord(error) && typeof error.code === 'string' && typeof error.message === 'string') {
     const fields = isRecord(error.fields) ? stringEntries(error.fields) : undefined;
-    return new ApiError(status, { code: error.code, message: error.message, fields });
+    return new ApiError(status, { code: error.code, message: error.message, fields }, payload);
   }
   return new ApiError(status, { code: `http_${status}`, message: fallbackMessage(status) });
 }
@@ -99,7 +102,9 @@ export function withQuery(path: string, query: Record<string, QueryValue> = {}):
 
 async function send<T>(method: Method, path: string, options: RequestOptions, token: string | null): Promise<T> {
   const headers: Record<string, string> = { accept: 'application/json' };
-  if (options.body !== undefined) headers['content-type'] = 'application/json';
+  // A FormData body (a file upload) sets its own multipart content type.
+  const isForm = options.body instanceof FormData;
+  if (options.body !== undefined && !isForm) headers['content-type'] = 'application/json';
   if (token) headers['x-csrf-token'] = token;
 
   let response: Response;
@@ -108,7 +113,7 @@ async function send<T>(method: Method, path: string, options: RequestOptions, to
       method,
       headers,
       credentials: 'same-origin',
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
       signal: options.signal,
     });
   } catch (cause) {
@@ -150,6 +155,8 @@ export const api = {
   post: <T>(path: string, body?: unknown) => apiRequest<T>('POST', path, { body }),
   patch: <T>(path: string, body?: unknown) => apiRequest<T>('PATCH', path, { body }),
   put: <T>(path: string, body?: unknown) => apiRequest<T>('PUT', path, { body }),
+  /** Sends a multipart form (file uploads). */
+  postForm: <T>(path: string, form: FormData) => apiRequest<T>('POST', path, { body: form }),
   delete: <T>(path: string) => apiRequest<T>('DELETE', path),
 };
 

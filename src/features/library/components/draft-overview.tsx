@@ -8,8 +8,8 @@ import { useDraft } from '../api/get-draft';
 import { formatDate } from '../format';
 import { ROLE_LABEL } from '../../../lib/roles';
 
-/** One draft's page: its facts now; the editor mounts in the marked region later. */
-export function DraftOverview({ draftId }: { draftId: number }) {
+/** One draft's page: its facts, then whatever the page puts below them (the editor). */
+export function DraftOverview({ draftId, editor }: { draftId: number; editor?: (draft: DraftDetail) => ReactNode }) {
   const query = useDraft(draftId);
 
   if (query.isPending) return <Spinner label="Loading the draft…" />;
@@ -23,10 +23,10 @@ export function DraftOverview({ draftId }: { draftId: number }) {
     }
     return <ErrorNotice title="Could not load the draft" error={query.error} onRetry={() => void query.refetch()} />;
   }
-  return <DraftFacts draft={query.data.draft} />;
+  return <DraftFacts draft={query.data.draft} editor={editor?.(query.data.draft)} />;
 }
 
-function DraftFacts({ draft }: { draft: DraftDetail }) {
+function DraftFacts({ draft, editor }: { draft: DraftDetail; editor?: ReactNode }) {
   const facts: [string, ReactNode][] = [
     ['Owner', draft.ownerName],
     ['Studio', draft.studioName ?? 'Personal'],
@@ -65,18 +65,7 @@ function DraftFacts({ draft }: { draft: DraftDetail }) {
         )}
       </div>
 
-      <section
-        id="draft-editor"
-        aria-labelledby="draft-editor-heading"
-        className="flex min-h-64 flex-col items-center justify-center gap-2 rounded-md border-2 border-dashed border-field bg-surface p-6 text-center"
-      >
-        <h2 id="draft-editor-heading" className="text-lg font-semibold">
-          Draft editor
-        </h2>
-        <p className="max-w-prose text-sm text-muted">
-          Threading, tie-up, treadling and drawdown of this {draft.shafts}-shaft draft will be shown and edited in this space.
-        </p>
-      </section>
+      {editor}
     </div>
   );
 }

@@ -1,0 +1,58 @@
+import {
+  computeDrawdown,
+  findFloats,
+  renderCloth,
+  simulateLayers,
+  type Cloth,
+  type Draft,
+  type Drawdown,
+  type FloatReport,
+  type LayerSimulation,
+} from '../../../../shared/weave';
+
+/** Keeps the last result and recomputes only when one of the keys changed (by identity). */
+function lastResult<R>(): (keys: readonly unknown[], compute: () => R) => R {
+  let last: readonly unknown[] | null = null;
+  let result: R;
+  return (keys, compute) => {
+    if (!last || keys.length !== last.length || keys.some((v, i) => v !== last![i])) {
+      result = compute();
+      last = keys;
+    }
+    return result;
+  };
+}
+
+/**
+ * What the canvas and the cloth views compute from the draft, each recomputed only when the parts
+ * of the draft it reads change: a colour edit never recomputes the drawdown.
+ */
+export interface Derived {
+  drawdown(draft: Draft): Drawdown;
+  cloth(draft: Draft): Cloth;
+  floats(draft: Draft, limit: number): FloatReport;
+  layers(draft: Draft): LayerSimulation;
+}
+
+export function createDerived(): Derived {
+  const dd = lastResult<Drawdown>();
+  const cl = lastResult<Cloth>();
+  const fl = lastResult<FloatReport>();
+  const ly = lastResult<LayerSimulation>();
+  const drawdown = (d: Draft) => dd([d.threading, d.tieup, d.treadling, d.liftplan, d.shed, d.control], () => computeDrawdown(d));
+  return {
+    drawdown,
+    cloth: (d) => {
+      const down = drawdown(d);
+      return cl([down, d.palette, d.warpColors, d.weftColors], () => renderCloth(d, down));
+    },
+    floats: (d, limit) => {
+      const down = drawdown(d);
+      return fl([down, d.warpLayers, d.weftLayers, limit], () => findFloats(d, { limit }, down));
+    },
+    layers: (d) => {
+      const down = drawdown(d);
+      return ly([down, d.warpLayers, d.weftLayers, d.warpColors, d.weftColors, d.palette, d.blocks], () => simulateLayers(d, undefined, { drawdown: down }));
+    },
+  };
+}

@@ -1,0 +1,110 @@
+import type { Cloth, Draft, Drawdown, FaceImage, Float } from '../../../../shared/weave';
+import { rowOfShaft } from './layout';
+import { pixel } from './bitmap';
+
+/** Grid and cloth tones from the app theme (src/index.css): ink on white, paper for the structure's weft. */
+export const TONES = {
+  mark: pixel('#1e2126'),
+  empty: pixel('#ffffff'),
+  warpUp: pixel('#2b2f3a'),
+  weftUp: pixel('#f3efe6'),
+  // Floats over the limit: a diagonal hatch of danger red on its soft tint, so the mark shows without colour vision.
+  floatA: pixel('#a12a1f'),
+  floatB: pixel('#fbeeec'),
+  dimUp: pixel('#8a8d94'),
+  dimDown: pixel('#faf8f3'),
+};
+
+/** Threading or tie-up: column = end (or treadle), row = shaft as the weaver counts them. */
+export function paintShaftColumns(out: Uint32Array, width: number, list: readonly (readonly number[])[], shafts: number, fromTop: boolean): void {
+  out.fill(TONES.empty);
+  for (let i = 0; i < list.length && i < width; i++) {
+    for (const s of list[i]) if (s >= 1 && s <= shafts) out[rowOfShaft(s, shafts, fromTop) * width + i] = TONES.mark;
+  }
+}
+
+/** Treadling or lift plan: row = pick, column = treadle (or shaft) − 1. */
+export function paintPickRows(out: Uint32Array, width: number, list: readonly (readonly number[])[]): void {
+  out.fill(TONES.empty);
+  for (let p = 0; p < list.length; p++) {
+    for (const v of list[p]) if (v >= 1 && v <= width) out[p * width + v - 1] = TONES.mark;
+  }
+}
+
+/** A colour order, one cell per end or pick; the cells past the last thread stay empty. */
+export function paintColorOrder(out: Uint32Array, order: readonly number[], palette: readonly string[]): void {
+  out.fill(TONES.empty);
+  const words = palette.map(pixel);
+  for (let i = 0; i < order.length && i < out.length; i++) out[i] = words[order[i]] ?? TONES.empty;
+}
+
+/** The interlacement in two tones: warp over, weft over. */
+export function paintStructure(out: Uint32Array, dd: Drawdown, up = TONES.warpUp, down = TONES.weftUp): void {
+  const { ends, picks, stride, bits } = dd;
+  for (let p = 0; p < picks; p++) {
+    const row = p * ends;
+    for (let w = 0; w < stride; w++) {
+      const word = bits[p * stride + w];
+      const base = w << 5;
+      const n = Math.min(32, ends - base);
+      for (let b = 0; b < n; b++) out[row + base + b] = (word >>> b) & 1 ? up : down;
+    }
+  }
+}
+
+/** The cloth in its colours (the engine's renderCloth). */
+export function paintCloth(out: Uint32Array, cloth: Cloth): void {
+  out.set(new Uint32Array(cloth.toRGBA().buffer));
+}
+
+/** The structure dimmed, with every float over the limit hatched across the cells it floats past. */
+export function paintFloats(out: Uint32Array, dd: Drawdown, floats: readonly Float[]): void {
+  paintStructure(out, dd, TONES.dimUp, TONES.dimDown);
+  const { ends, picks } = dd;
+  for (const f of floats) {
+    const span = f.kind === 'warp' ? picks : ends;
+    const length = f.last >= f.start ? f.last - f.start + 1 : span - f.start + f.last + 1;
+    for (let k = 0; k < length; k++) {
+      const along = (f.start + k) % span;
+      const e = f.kind === 'warp' ? f.thread : along;
+      const p = f.kind === 'warp' ? along : f.thread;
+      out[p * ends + e] = (e + p) % 3 === 0 ? TONES.floatB : TONES.floatA;
+    }
+  }
+}
+
+/** Copies a width × height picture `across` × `down` times into `out` (tiling the repeat). */
+export function tile(out: Uint32Array, src: Uint32Array, width: number, height: number, across: number, down: number): void {
+  const outWidth = width * across;
+  for (let y = 0; y < height * down; y++) {
+    const from = (y % height) * width;
+    for (let t = 0; t < across; t++) out.set(src.subarray(from, from + width), y * outWidth + t * width);
+  }
+}
+
+/** Whether any end or pick of the draft is in a layer other than 1 (double weave and beyond). */
+export function isLayered(draft: Draft): boolean {
+  return draft.warpLayers.some((l) => l !== 1) || draft.weftLayers.some((l) => l !== 1);
+}
+
+/** A face of layered cloth (front, or back already mirrored by the engine) in palette colours. */
+export function paintFace(out: Uint32Array, face: FaceImage, palette: readonly string[]): void {
+  const words = palette.map(pixel);
+  for (let i = 0; i < face.indices.length; i++) out[i] = words[face.indices[i]] ?? TONES.empty;
+}
+
+const LAYER_TONES = ['#2f44b0', '#e9ecfa', '#1f6a3b', '#f3efe6'].map(pixel);
+
+/**
+ * Which layer is on top at each cell. Layer 1 solid, layer 2 light with a diagonal stripe, and so
+ * on: the stripe tells the layers apart without colour.
+ */
+export function paintLayerMap(out: Uint32Array, top: Uint8Array, ends: number): void {
+  for (let i = 0; i < top.length; i++) {
+    const layer = top[i];
+    const e = i % ends;
+    const p = (i - e) / ends;
+    const striped = layer % 2 === 0 && (e + p) % 4 === 0;
+    out[i] = striped ? TONES.mark : LAYER_TONES[(layer - 1) % LAYER_TONES.length];
+  }
+}

@@ -1,0 +1,36 @@
+import { useStore } from '../store/create-store';
+import { SAVE_STATUS_TEXT, type Autosave } from '../store/autosave';
+
+const MARKS = { saved: '✓', saving: '…', offline: '⚠', conflict: '⚠' } as const;
+
+/** "Saved / Saving… / Offline — edits kept on this device / Conflict", and the conflict choices. */
+export function SaveStatus({ autosave }: { autosave: Autosave }) {
+  const status = useStore(autosave, (s) => s.status);
+  const conflict = useStore(autosave, (s) => s.conflict);
+  return (
+    <div className="flex flex-col items-end gap-1">
+      <p role="status" aria-live="polite" className="flex items-center gap-1 text-sm" data-testid="save-status">
+        <span aria-hidden="true">{MARKS[status]}</span>
+        <span className={status === 'offline' || status === 'conflict' ? 'font-medium text-danger' : 'text-muted'}>{SAVE_STATUS_TEXT[status]}</span>
+      </p>
+      {conflict && (
+        <div role="alertdialog" aria-labelledby="conflict-title" aria-describedby="conflict-text" className="max-w-sm rounded-md border-2 border-danger bg-danger-soft p-3 text-sm">
+          <h2 id="conflict-title" className="font-semibold text-danger">
+            <span aria-hidden="true">⚠ </span>Someone saved this draft before you
+          </h2>
+          <p id="conflict-text" className="my-2">
+            Version {conflict.version} on the server is not the one your edits started from. Nothing has been overwritten. Choose which draft to keep:
+          </p>
+          <div className="flex flex-wrap gap-2">
+            <button type="button" className="rounded-md bg-accent px-3 py-1.5 font-medium text-white hover:bg-accent-strong" onClick={() => autosave.keepMine()}>
+              Keep mine as a new version
+            </button>
+            <button type="button" className="rounded-md border border-field bg-surface px-3 py-1.5 font-medium hover:bg-sunken" onClick={() => autosave.takeTheirs()}>
+              Take theirs
+            </button>
+          </div>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,215 @@
+import { useState, type ReactNode } from 'react';
+import { MAX_SHAFTS, MAX_TREADLES } from '../../../../shared/weave';
+import { useStore } from '../store/create-store';
+import { setShafts, setTreadles } from '../store/edits';
+import type { Tool } from '../store/editor';
+import { useEditorContext } from './editor-context';
+
+const TOOLS: { id: Tool; label: string; key: string }[] = [
+  { id: 'draw', label: 'Draw', key: 'D' },
+  { id: 'erase', label: 'Erase', key: 'E' },
+  { id: 'select', label: 'Select', key: 'S' },
+];
+
+const btn = 'rounded border border-field bg-surface px-2 py-1 text-xs hover:bg-sunken disabled:opacity-50';
+
+function Group({ label, children }: { label: string; children: ReactNode }) {
+  return (
+    <div role="group" aria-label={label} className="flex flex-wrap items-center gap-1 border-r border-line pr-2 last:border-r-0">
+      {children}
+    </div>
+  );
+}
+
+/** Tools, edits, loom size, zoom and arrangement. Every button has a key listed in Keys. */
+export function Toolbar({ readOnly = false, onShowKeys }: { readOnly?: boolean; onShowKeys: () => void }) {
+  const { editor } = useEditorContext();
+  const tool = useStore(editor.view, (v) => v.tool);
+  const cell = useStore(editor.view, (v) => v.cell);
+  const arrangement = useStore(editor.view, (v) => v.arrangement);
+  const rulerStep = useStore(editor.view, (v) => v.rulerStep);
+  const drawdownView = useStore(editor.view, (v) => v.drawdownView);
+  const undoLabel = useStore(editor.doc, (s) => s.undoLabel);
+  const redoLabel = useStore(editor.doc, (s) => s.redoLabel);
+  const shafts = useStore(editor.doc, (s) => s.draft.shafts);
+  const treadles = useStore(editor.doc, (s) => s.draft.treadles);
+  const control = useStore(editor.doc, (s) => s.draft.control);
+  const ends = useStore(editor.doc, (s) => s.draft.threading.length);
+  const [repeatTimes, setRepeatTimes] = useState(1);
+  const [asking, setAsking] = useState(false);
+  const [loomTreadles, setLoomTreadles] = useState(treadles || 10);
+  const [refusal, setRefusal] = useState<string | null>(null);
+
+  const fit = () => {
+    // Whole cloth: the largest whole cell size at which every end fits the drawdown's width.
+    const width = document.querySelector('[data-testid="draft-canvas"]')?.clientWidth ?? 900;
+    editor.setView({ cell: Math.max(1, Math.min(40, Math.floor((width - 160) / Math.max(1, ends + 8)))), scrollX: 0, scrollY: 0 });
+  };
+
+  return (
+    <div className="flex flex-col gap-2">
+      <div className="flex flex-wrap items-center gap-2" role="toolbar" aria-label="Draft tools">
+        {!readOnly && (
+          <>
+            <Group label="Tool">
+              {TOOLS.map((t) => (
+                <button key={t.id} type="button" aria-pressed={tool === t.id} className={`${btn} aria-pressed:bg-accent aria-pressed:text-white`} onClick={() => editor.setView({ tool: t.id })} title={`${t.label} (${t.key})`}>
+                  {t.label}
+                </button>
+              ))}
+            </Group>
+            <Group label="History">
+              <button type="button" className={btn} disabled={!undoLabel} onClick={() => editor.undo()} title="Undo (Ctrl/⌘ Z)">
+                Undo{undoLabel ? ` ${undoLabel.toLowerCase()}` : ''}
+              </button>
+              <button type="button" className={btn} disabled={!redoLabel} onClick={() => editor.redo()} title="Redo (Shift Ctrl/⌘ Z)">
+                Redo
+              </button>
+            </Group>
+            <Group label="Runs over the selection">
+              <button type="button" className={btn} onClick={() => editor.fill('straight')} title="Straight run (1)">
+                Straight run
+              </button>
+              <button type="button" className={btn} onClick={() => editor.fill('point')} title="Point run (2)">
+                Point run
+              </button>
+              <button type="button" className={btn} onClick={() => editor.fill('broken')} title="Broken run (3)">
+                Broken run
+              </button>
+              <button type="button" className={btn} onClick={() => editor.repeatSelection(repeatTimes)} title="Repeat (P)">
+                Repeat
+              </button>
+              <label className="flex items-center gap-1 text-xs">
+                ×
+                <input type="number" min={1} max={100} value={repeatTimes} onChange={(e) => setRepeatTimes(Math.max(1, Math.min(100, Number(e.target.value) || 1)))} className="w-12 rounded border border-field bg-surface px-1" aria-label="Repeat how many times" />
+              </label>
+              <button type="button" className={btn} onClick={() => editor.mirror()} title="Mirror (M)">
+                Mirror
+              </button>
+              <button type="button" className={btn} onClick={() => editor.reverse()} title="Reverse (R)">
+                Reverse
+              </button>
+              <button type="button" className={btn} onClick={() => editor.flip()} title="Upside down (F)">
+                Upside down
+              </button>
+            </Group>
+            <Group label="Ends and picks">
+              <button type="button" className={btn} onClick={() => editor.insert(1)} title="Insert (I)">
+                Insert
+              </button>
+              <button type="button" className={btn} onClick={() => editor.remove()} title="Delete (Delete)">
+                Delete
+              </button>
+              <button type="button" className={btn} onClick={() => editor.copy()} title="Copy (Ctrl/⌘ C)">
+                Copy
+              </button>
+              <button type="button" className={btn} onClick={() => editor.paste()} title="Paste (Ctrl/⌘ V)">
+                Paste
+              </button>
+            </Group>
+            <Group label="Picks">
+              {control === 'treadling' ? (
+                <>
+                  <button type="button" className={btn} onClick={() => editor.treadleAsDrawnIn()} title="Treadle as drawn in (T)">
+                    Treadle as drawn in
+                  </button>
+                  <button type="button" className={btn} onClick={() => editor.toLiftPlan()}>
+                    Use a lift plan
+                  </button>
+                </>
+              ) : (
+                <button type="button" className={btn} aria-expanded={asking} onClick={() => setAsking(!asking)}>
+                  Use tie-up and treadling…
+                </button>
+              )}
+            </Group>
+          </>
+        )}
+        <Group label="Loom">
+          <label className="flex items-center gap-1 text-xs">
+            Shafts
+            <input type="number" min={1} max={MAX_SHAFTS} value={shafts} disabled={readOnly} onChange={(e) => editor.doc.apply(setShafts, { shafts: Number(e.target.value) || 1 })} className="w-12 rounded border border-field bg-surface px-1" />
+          </label>
+          {control === 'treadling' && (
+            <label className="flex items-center gap-1 text-xs">
+              Treadles
+              <input type="number" min={1} max={MAX_TREADLES} value={treadles} disabled={readOnly} onChange={(e) => editor.doc.apply(setTreadles, { treadles: Number(e.target.value) || 1 })} className="w-12 rounded border border-field bg-surface px-1" />
+            </label>
+          )}
+        </Group>
+        <Group label="View">
+          <label className="flex items-center gap-1 text-xs">
+            Zoom
+            <input type="range" min={1} max={40} value={cell} onChange={(e) => editor.setView({ cell: Number(e.target.value) })} aria-valuetext={`${cell} pixels per cell`} />
+          </label>
+          <button type="button" className={btn} onClick={fit}>
+            Whole cloth
+          </button>
+          <button type="button" className={btn} onClick={() => editor.setView({ cell: 24 })}>
+            Close up
+          </button>
+          <label className="flex items-center gap-1 text-xs">
+            Drawdown
+            <select value={drawdownView} onChange={(e) => editor.setView({ drawdownView: e.target.value as 'structure' | 'colour' })} className="rounded border border-field bg-surface px-1">
+              <option value="colour">Colour</option>
+              <option value="structure">Structure</option>
+            </select>
+          </label>
+          <label className="flex items-center gap-1 text-xs">
+            Numbers every
+            <select value={rulerStep} onChange={(e) => editor.setView({ rulerStep: Number(e.target.value) as 4 | 8 | 10 })} className="rounded border border-field bg-surface px-1">
+              {[4, 8, 10].map((n) => (
+                <option key={n} value={n}>
+                  {n}
+                </option>
+              ))}
+            </select>
+          </label>
+          <label className="flex items-center gap-1 text-xs">
+            <input type="checkbox" checked={arrangement.threadingBelow} onChange={(e) => editor.setView({ arrangement: { ...arrangement, threadingBelow: e.target.checked } })} />
+            Threading below
+          </label>
+          <label className="flex items-center gap-1 text-xs">
+            <input type="checkbox" checked={arrangement.treadlingLeft} onChange={(e) => editor.setView({ arrangement: { ...arrangement, treadlingLeft: e.target.checked } })} />
+            Treadling on the left
+          </label>
+          <label className="flex items-center gap-1 text-xs">
+            <input type="checkbox" checked={arrangement.shaftsFromTop} onChange={(e) => editor.setView({ arrangement: { ...arrangement, shaftsFromTop: e.target.checked } })} />
+            Shaft 1 at the top
+          </label>
+          <button type="button" className={btn} onClick={onShowKeys} title="Keys (?)">
+            Keys
+          </button>
+        </Group>
+      </div>
+      {asking && control === 'liftplan' && (
+        <form
+          className="flex flex-wrap items-center gap-2 rounded border border-line bg-surface p-2 text-xs"
+          onSubmit={(e) => {
+            e.preventDefault();
+            const reason = editor.toTreadling(loomTreadles);
+            setRefusal(reason);
+            if (!reason) setAsking(false);
+          }}
+        >
+          <label className="flex items-center gap-1">
+            Treadles on your loom
+            <input type="number" min={1} max={MAX_TREADLES} value={loomTreadles} onChange={(e) => setLoomTreadles(Number(e.target.value) || 1)} className="w-14 rounded border border-field bg-surface px-1" autoFocus />
+          </label>
+          <button type="submit" className={`${btn} bg-accent text-white`}>
+            Work out tie-up and treadling
+          </button>
+          <button type="button" className={btn} onClick={() => setAsking(false)}>
+            Cancel
+          </button>
+          {refusal && (
+            <p role="alert" className="flex w-full items-start gap-1 font-medium text-danger">
+              <span aria-hidden="true">⚠</span>
+              {refusal}
+            </p>
+          )}
+        </form>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,3 @@
+// The draft editor, for the /drafts/:id page and the playground.
+export { DraftEditor, type DraftEditorProps } from './components/draft-editor';
+export type { SaveFn, SaveResult } from './store/autosave';

@@ -1,0 +1,69 @@
+import type { Draft } from '../../../../shared/weave';
+import { MAX_SHAFTS, MAX_TREADLES } from '../../../../shared/weave';
+
+/**
+ * The grids a weaver draws in. Each is a list indexed by end, treadle or pick (the "index"), whose
+ * entries name 1-based shafts or treadles (the "value"); the colour orders hold one palette index each.
+ */
+export type GridId = 'threading' | 'tieup' | 'treadling' | 'liftplan' | 'warpColors' | 'weftColors';
+
+export type ListGridId = 'threading' | 'tieup' | 'treadling' | 'liftplan';
+
+/** What each step along a grid's list is, in the weaver's words. */
+export type Axis = 'ends' | 'picks' | 'treadles';
+
+export const GRID_LABELS: Record<GridId, string> = {
+  threading: 'Threading',
+  tieup: 'Tie-up',
+  treadling: 'Treadling',
+  liftplan: 'Lift plan',
+  warpColors: 'Warp colours',
+  weftColors: 'Weft colours',
+};
+
+export function isListGrid(grid: GridId): grid is ListGridId {
+  return grid !== 'warpColors' && grid !== 'weftColors';
+}
+
+export function axisOf(grid: GridId): Axis {
+  if (grid === 'threading' || grid === 'warpColors') return 'ends';
+  if (grid === 'tieup') return 'treadles';
+  return 'picks';
+}
+
+/** How many values a cell of the grid can take: shafts, treadles, or 1 for a colour order. */
+export function valueCount(draft: Draft, grid: GridId): number {
+  if (grid === 'treadling') return draft.treadles;
+  if (grid === 'warpColors' || grid === 'weftColors') return 1;
+  return draft.shafts;
+}
+
+/** The largest value a weaver may grow the grid to (the loom's limits). */
+export function valueLimit(grid: GridId): number {
+  return grid === 'treadling' ? MAX_TREADLES : MAX_SHAFTS;
+}
+
+/** The grids the draft shows: tie-up and treadling, or a lift plan. */
+export function visibleGrids(draft: Draft): GridId[] {
+  return draft.control === 'liftplan'
+    ? ['warpColors', 'threading', 'liftplan', 'weftColors']
+    : ['warpColors', 'threading', 'tieup', 'treadling', 'weftColors'];
+}
+
+/** Number of ends, picks or treadles the grid's list holds. */
+export function lengthOf(draft: Draft, grid: GridId): number {
+  switch (grid) {
+    case 'threading':
+      return draft.threading.length;
+    case 'warpColors':
+      return draft.warpColors.length;
+    case 'tieup':
+      return draft.treadles;
+    case 'treadling':
+      return draft.treadling.length;
+    case 'liftplan':
+      return draft.liftplan.length;
+    case 'weftColors':
+      return draft.weftColors.length;
+  }
+}
