@@ -1,6 +1,7 @@
-import { useParams } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
 import { DraftOverview } from '../../features/library/components/draft-overview';
 import { parseId } from '../parse-id';
+import { DraftEditorRegion } from './draft-editor-region';
 import { NotFound } from './not-found';
 
 export function DraftRoute() {
@@ -9,7 +10,11 @@ export function DraftRoute() {
   return (
     <>
       <title>Draft · Shedwright</title>
-      <DraftOverview key={id} draftId={id} />
+      <nav aria-label="This draft" className="mb-4 flex gap-3 text-sm">
+        <Link to={`/drafts/${id}/plan`}>Plan</Link>
+        <Link to={`/drafts/${id}/loom`}>At the loom</Link>
+      </nav>
+      <DraftOverview key={id} draftId={id} editor={(draft) => <DraftEditorRegion draft={draft} />} />
     </>
   );
 }
