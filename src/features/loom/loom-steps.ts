@@ -1,0 +1,111 @@
+/** The loom-side lists as the page steps through them: counts, the step at a place, and quick checks. */
+import type { LoomList, WorkingOrder } from '../../../shared/api/plans';
+import { computePlan, type PlanOutputs } from '../../../shared/plan/compute-plan';
+import { groupSizeForWidth, weaverShaft, type Group, type SleyingStep, type ThreadingStep, type WeavingList, type WeavingRow } from '../../../shared/plan/loom-lists';
+import type { PlanDocument } from '../../../shared/plan/plan-schema';
+import { dentsPerInch } from '../../../shared/plan/reed';
+import { convertDensity } from '../../../shared/plan/units';
+import { quickChecks } from '../../../shared/weave/check-threading';
+import type { Draft } from '../../../shared/weave/types';
+
+/** Longest threading repeat taken as one group; longer repeats (block drafts) go by width instead. */
+export const MAX_REPEAT_GROUP = 24;
+
+/**
+ * The plan's lists in the weaver's working order. When the plan sets no group size, a threading
+ * group is one repeat, or about an inch (2.5 cm) of ends when the repeat is long: a counted group
+ * should be a handful of heddles, not a whole block design; sleying groups are then about an inch
+ * of dents (common practice).
+ */
+export function loomOutputs(draft: Draft, plan: PlanDocument, order: WorkingOrder, tieOnEnds?: number): PlanOutputs {
+  const repeat = plan.repeatEnds ?? draft.threading.length;
+  const sett = plan.sett ?? convertDensity(draft.sett.warp, draft.sett.unit, plan.unit);
+  const groupSize = plan.lists.groupSize ?? (repeat > MAX_REPEAT_GROUP ? groupSizeForWidth(sett, plan.unit === 'inch' ? 1 : 2.5) : undefined);
+  const long = repeat > MAX_REPEAT_GROUP;
+  const dentsPerGroup = plan.lists.dentsPerGroup ?? (long ? Math.max(1, Math.round(dentsPerInch(plan.reed))) : undefined);
+  return computePlan(draft, {
+    ...plan,
+    lists: { ...plan.lists, ...order, ...(groupSize ? { groupSize } : {}), ...(dentsPerGroup ? { dentsPerGroup } : {}), ...(tieOnEnds ? { tieOnEnds } : {}) },
+  });
+}
+
+/** How many places the marker can be on in a list: groups, or picks for weaving. */
+export function stepCount(outputs: PlanOutputs, list: LoomList): number {
+  switch (list) {
+    case 'threading': return outputs.threading.length;
+    case 'sleying': return outputs.sleying.length;
+    case 'tieon': return outputs.tieOn.length;
+    case 'weaving': return Math.max(outputs.warp.totalPicks, 0);
+  }
+}
+
+export interface PickStep {
+  /** 1-based pick of the whole cloth. */
+  pick: number;
+  of: number;
+  /** 1-based pick within the draft's sequence. */
+  pickInDraft: number;
+  repeat: number;
+  repeats: number;
+  row: WeavingRow;
+}
+
+/** The pick at a 0-based place in the cloth, with where it falls in the draft's repeats. */
+export function pickAt(weaving: WeavingList, totalPicks: number, index: number): PickStep | null {
+  const n = weaving.picksInSequence;
+  if (n === 0 || index < 0 || index >= totalPicks) return null;
+  const pickInDraft = (index % n) + 1;
+  const row = weaving.rows.find((r) => r.fromPick <= pickInDraft && pickInDraft <= r.toPick)!;
+  return { pick: index + 1, of: totalPicks, pickInDraft, repeat: Math.floor(index / n) + 1, repeats: Math.ceil(totalPicks / n), row };
+}
+
+export interface ShaftCheck {
+  /** The shaft as the weaver numbers it. */
+  shaft: number;
+  /** 1-based ends of the group on this shaft. */
+  ends: number[];
+  /** The colour every end on the shaft should show; undefined where the draft mixes colours on it. */
+  color?: number;
+  layer?: number;
+  /** Ends of this group that, as drawn, differ from the shaft's colour or layer. */
+  odd: number[];
+  /** For a mixed shaft: the colours it carries. */
+  mix: number[];
+}
+
+/**
+ * The quick check after a threading group: for each shaft the group used, what raising that shaft
+ * alone should show, from the engine's threading check of the draft.
+ */
+export function threadingGroupCheck(draft: Draft, group: Group<ThreadingStep>, order: WorkingOrder): ShaftCheck[] {
+  const byDraftShaft = new Map(quickChecks(draft).map((q) => [q.shaft, q]));
+  const shafts = [...new Set(group.items.flatMap((s) => s.shafts))].sort((a, b) => a - b);
+  return shafts.map((shaft) => {
+    // Renumbering is its own inverse: applying it again gives back the draft's shaft.
+    const q = byDraftShaft.get(weaverShaft(shaft, draft.shafts, order));
+    const on = group.items.filter((s) => s.shafts.includes(shaft));
+    const odd = on.filter((s) => (q?.color !== undefined && s.color !== q.color) || (q?.layer !== undefined && s.layer !== q.layer));
+    return {
+      shaft,
+      ends: on.map((s) => s.end),
+      color: q?.color,
+      layer: q?.layer,
+      odd: odd.map((s) => s.end),
+      mix: q?.color === undefined ? [...new Set(on.map((s) => s.color))] : [],
+    };
+  });
+}
+
+/** Dents of a sleying group that hold more than one end: those ends should share the dent. */
+export function sharedDents(group: Group<SleyingStep>): SleyingStep[] {
+  return group.items.filter((d) => d.ends.length > 1);
+}
+
+/** "1–12" for a run of end numbers (in the order met), or the list when they do not run. */
+export function endRange(ends: readonly number[]): string {
+  if (ends.length === 0) return '';
+  if (ends.length === 1) return String(ends[0]);
+  const step = ends[1] - ends[0];
+  const runs = Math.abs(step) === 1 && ends.every((e, i) => i === 0 || e - ends[i - 1] === step);
+  return runs ? `${ends[0]}–${ends[ends.length - 1]}` : ends.join(', ');
+}

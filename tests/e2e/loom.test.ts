@@ -1,0 +1,64 @@
+// The loom-side guide as a student meets it: open the double-weave mat at the loom, thread from
+// the back of the loom for a few groups, reload, and find the same place.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoAccounts } from '../../server/db/demo-accounts';
+import { openBrowser, screenshot, startAppServer, type AppServer, type Browser } from '../helpers/e2e';
+
+/** The demo draft the test threads (its link text in the library). */
+const DRAFT_LINK = /double weave table mat/i;
+const student = demoAccounts.find((a) => a.role === 'viewer')!;
+
+let server: AppServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startAppServer();
+  browser = await openBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('At the loom', () => {
+  it('threads from the back a few groups, and finds the same group after a reload', async () => {
+    const { page } = browser;
+    await page.setViewportSize({ width: 1024, height: 1366 });
+    await page.goto(`${server.url}/sign-in`);
+    await page.getByLabel('E-mail').fill(student.email);
+    await page.getByLabel('Password').fill(student.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/drafts$/);
+
+    await page.getByRole('link', { name: DRAFT_LINK }).first().click();
+    await page.waitForURL(/\/drafts\/\d+$/);
+    await page.getByRole('link', { name: 'At the loom' }).click();
+    await page.waitForURL(/\/drafts\/\d+\/loom$/);
+
+    const heading = page.getByRole('heading', { level: 2, name: /group \d+ of \d+/ });
+    await heading.waitFor();
+    await page.getByRole('button', { name: 'Threading', exact: true }).click();
+    await page.getByRole('button', { name: 'Back of the loom' }).click();
+    expect(await heading.textContent()).toMatch(/^Threading: group 1 of \d+$/);
+
+    const next = page.getByRole('button', { name: /Next group/ });
+    // Buttons at the loom are at least 48 px each way (a large touch target).
+    const box = (await next.boundingBox())!;
+    expect(box.height).toBeGreaterThanOrEqual(48);
+    await next.click();
+    await next.click();
+    await page.keyboard.press('ArrowRight');
+    await page.getByText(/^Threading: group 4 of \d+$/).waitFor();
+    const before = await heading.textContent();
+    await page.getByText('Place saved.').waitFor();
+    await page.getByRole('region', { name: 'Quick check' }).getByText(/Raise shaft \d+ alone/).first().waitFor();
+    await screenshot(page, 'loom-threading-back');
+
+    await page.reload();
+    await page.getByText(/^Threading: group 4 of \d+$/).waitFor();
+    expect(await heading.textContent()).toBe(before);
+    expect(await page.getByRole('button', { name: 'Back of the loom' }).getAttribute('aria-pressed')).toBe('true');
+    expect(browser.errors).toEqual([]);
+  });
+});

@@ -1,0 +1,157 @@
+import { act, fireEvent, screen, waitFor } from '@testing-library/react';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { Progress } from '../../../shared/api/plans';
+import { defaultPlan } from '../../../shared/plan/plan-schema';
+import { draftDetail, sessionUser } from '../support/factories';
+import { mockApi, type MockHandler } from '../support/mock-api';
+import { renderApp } from '../support/render';
+import { twoLayerDraft } from '../plan/fixtures';
+
+// 8 ends a repeat; 10" at 24 epi with 10 % draw-in and shrinkage → 37 repeats = 296 ends; groups of one repeat.
+const plan = { ...defaultPlan('inch'), sett: 24, layers: 2, lists: { ...defaultPlan().lists, layerRule: true } };
+const back = { side: 'back', direction: 'right-to-left', shaftNumbering: 'near' } as const;
+
+function routes(progress: Progress | null, extra: Record<string, MockHandler> = {}) {
+  return {
+    'GET /api/session': { body: { user: sessionUser() } },
+    'GET /api/drafts/4': { body: { draft: draftDetail({ id: 4, name: 'Two-layer trial', role: 'viewer', document: twoLayerDraft() }) } },
+    'GET /api/drafts/4/plan': { body: { plan, updatedAt: null, updatedByName: null } },
+    'GET /api/drafts/4/progress': { body: { progress } },
+    'GET /api/drafts/4/results': { body: { results: [] } },
+    'GET /api/csrf': { body: { token: 't' } },
+    'PUT /api/drafts/4/progress': (req: { body: unknown }) => {
+      const b = req.body as { list: 'threading'; position: number; settings: typeof back; movedAt: string };
+      return { body: { progress: { list: b.list, positions: { [b.list]: b.position }, settings: b.settings, movedAt: b.movedAt } } };
+    },
+    ...extra,
+  };
+}
+
+const heading = () => screen.getByRole('heading', { level: 2, name: /: (group|pick) \d+ of/ }).textContent;
+
+beforeEach(() => localStorage.clear());
+afterEach(() => vi.restoreAllMocks());
+
+describe('At the loom', () => {
+  it('finds the weaver\'s place from the server and moves with buttons and keys', async () => {
+    const server = mockApi(routes({ list: 'threading', positions: { threading: 2 }, settings: back, movedAt: '2025-01-01T00:00:00.000Z' }));
+    renderApp('/drafts/4/loom');
+    await waitFor(() => expect(heading()).toBe('Threading: group 3 of 37'));
+    expect(screen.getByRole('progressbar').getAttribute('aria-valuenow')).toBe('3');
+    expect(screen.getByRole('button', { name: 'Back of the loom' }).getAttribute('aria-pressed')).toBe('true');
+
+    fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
+    expect(heading()).toBe('Threading: group 4 of 37');
+    await waitFor(() => expect(server.to('PUT /api/drafts/4/progress')).toHaveLength(1));
+    expect(server.to('PUT /api/drafts/4/progress')[0].body).toMatchObject({ list: 'threading', position: 3, settings: back });
+
+    fireEvent.keyDown(window, { key: 'ArrowRight' });
+    fireEvent.keyDown(window, { key: ' ' });
+    expect(heading()).toBe('Threading: group 6 of 37');
+    fireEvent.keyDown(window, { key: 'Backspace' });
+    fireEvent.keyDown(window, { key: 'ArrowLeft' });
+    expect(heading()).toBe('Threading: group 4 of 37');
+    await waitFor(() => expect(server.to('PUT /api/drafts/4/progress')).toHaveLength(5));
+    expect(server.to('PUT /api/drafts/4/progress').at(-1)!.body).toMatchObject({ position: 3 });
+    await screen.findByText('Place saved.');
+  });
+
+  it('names colours in words beside the swatch, with shafts as numbered from the back, and a quick check', async () => {
+    mockApi(routes(null));
+    renderApp('/drafts/4/loom');
+    await waitFor(() => expect(heading()).toBe('Threading: group 1 of 37'));
+    fireEvent.click(screen.getByRole('button', { name: /Back of the loom/ }));
+    // From the back, right to left, the last end (296, on draft shaft 8) comes first; nearest shaft is the back one.
+    const first = screen.getAllByRole('listitem').find((li) => li.textContent?.startsWith('End 296'))!;
+    expect(first.textContent).toBe('End 296Shaft 1Cotton, sand (colour 2)layer 2');
+    fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
+    const check = screen.getByRole('region', { name: 'Quick check' });
+    expect(check.textContent).toMatch(/Raise shaft 1 alone: every end on it should be Cotton, sand \(colour 2\) \(layer 2\)\. In this group: end 296\./);
+  });
+
+  it('keeps the place on the device while offline and sends it when back online', async () => {
+    let online = false;
+    const server = mockApi(routes(null, {
+      'PUT /api/drafts/4/progress': (req) => {
+        if (!online) throw new TypeError('Failed to fetch');
+        return { body: { progress: { ...(req.body as object), positions: { threading: (req.body as { position: number }).position } } } };
+      },
+    }));
+    renderApp('/drafts/4/loom');
+    await waitFor(() => expect(heading()).toBe('Threading: group 1 of 37'));
+    fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
+    fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
+    await screen.findByText(/Offline: your place is kept on this device/);
+    const cached = JSON.parse(localStorage.getItem('shedwright:loom:4')!);
+    expect(cached.pending).toBe(true);
+    expect(cached.place.positions.threading).toBe(2);
+
+    online = true;
+    act(() => { window.dispatchEvent(new Event('online')); });
+    await screen.findByText('Place saved.');
+    expect(server.to('PUT /api/drafts/4/progress').at(-1)!.body).toMatchObject({ position: 2 });
+    expect(JSON.parse(localStorage.getItem('shedwright:loom:4')!).pending).toBe(false);
+  });
+
+  it('opens from the copy on the device when the network is down', async () => {
+    localStorage.setItem('shedwright:loom:4', JSON.stringify({
+      draft: { id: 4, name: 'Two-layer trial', role: 'viewer', document: twoLayerDraft() },
+      plan,
+      place: { list: 'sleying', positions: { sleying: 4 }, settings: back, movedAt: '2025-01-01T00:00:00.000Z' },
+      pending: false,
+    }));
+    const down = () => { throw new TypeError('Failed to fetch'); };
+    mockApi(routes(null, { 'GET /api/drafts/4': down, 'GET /api/drafts/4/plan': down, 'GET /api/drafts/4/progress': down, 'GET /api/drafts/4/results': down }));
+    renderApp('/drafts/4/loom');
+    await waitFor(() => expect(heading()).toMatch(/^Sleying: group 5 of \d+$/));
+    expect(screen.getByText(/Working from the copy kept on this device/)).toBeTruthy();
+  });
+
+  it('weaves pick by pick with the repeat counted and the beat reminded', async () => {
+    mockApi(routes({ list: 'weaving', positions: { weaving: 5 }, settings: back, movedAt: '2025-01-01T00:00:00.000Z' }));
+    renderApp('/drafts/4/loom');
+    // 72" finished + 10 % take-up and shrinkage → 88.89" woven × 24 ppi = 2134 picks; 4 picks a repeat → 534 repeats.
+    await waitFor(() => expect(heading()).toBe('Weaving: pick 6 of 2134'));
+    expect(screen.getByText(/Repeat 2 of 534 · pick 2 of 4 in the draft/)).toBeTruthy();
+    expect(screen.getByText(/Beat for 24 picks per inch/)).toBeTruthy();
+    expect(screen.getByRole('button', { name: /Next pick/ })).toBeTruthy();
+  });
+
+  it('suggests a break after half an hour of steady threading', async () => {
+    mockApi(routes(null));
+    let now = Date.parse('2025-05-01T09:00:00Z');
+    vi.spyOn(Date, 'now').mockImplementation(() => now);
+    renderApp('/drafts/4/loom');
+    await waitFor(() => expect(heading()).toBe('Threading: group 1 of 37'));
+    for (let i = 0; i < 8; i++) {
+      expect(screen.queryByText(/Time for a short break/)).toBeNull();
+      fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
+      now += 4 * 60_000;
+    }
+    // Eight steps four minutes apart: 28 minutes of work; the ninth makes 32.
+    expect(screen.queryByText(/Time for a short break/)).toBeNull();
+    fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
+    expect(screen.getByText(/Time for a short break/)).toBeTruthy();
+    fireEvent.click(screen.getByRole('button', { name: 'I have had a break' }));
+    expect(screen.queryByText(/Time for a short break/)).toBeNull();
+  });
+
+  it('records sizes and shows the measured take-up', async () => {
+    const server = mockApi(routes(null, {
+      'POST /api/drafts/4/results': {
+        status: 201,
+        body: { result: { id: 1, weaverName: 'Wren', mine: true, unit: 'inch', allowances: { takeUp: 0.08, drawIn: 0.1 }, notes: '', createdAt: '2025-01-01T00:00:00Z' } },
+      },
+    }));
+    renderApp('/drafts/4/loom');
+    await screen.findByRole('heading', { name: 'What came off the loom' });
+    fireEvent.change(screen.getByLabelText('Width in the reed'), { target: { value: '20' } });
+    fireEvent.change(screen.getByLabelText('Length woven, on the loom'), { target: { value: '100' } });
+    fireEvent.change(screen.getByLabelText('Width off the loom'), { target: { value: '18' } });
+    fireEvent.change(screen.getByLabelText('Length off the loom'), { target: { value: '92' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Record the sizes' }));
+    await screen.findByText(/Recorded:/);
+    expect(server.to('POST /api/drafts/4/results')[0].body).toEqual({ unit: 'inch', notes: '', widthInReed: 20, lengthOnLoom: 100, widthOffLoom: 18, lengthOffLoom: 92 });
+    expect(screen.getByText(/take-up 8\.0 %, draw-in 10\.0 %/)).toBeTruthy();
+  });
+});
