@@ -14,7 +14,10 @@ export default defineConfig({
   build: {
     outDir: 'dist',
     rolldownOptions: {
+      // The service worker must be served from the root to control every page.
+      input: { main: 'index.html', 'service-worker': 'src/service-worker.ts' },
       output: {
+        entryFileNames: (chunk) => (chunk.name === 'service-worker' ? 'service-worker.js' : 'assets/[name]-[hash].js'),
         codeSplitting: {
           groups: [
             { name: 'canvas', test: /node_modules[\\/](konva|react-konva)/ },

@@ -14,3 +14,10 @@ createRoot(root).render(
     <App />
   </StrictMode>,
 );
+
+// Built app only: the dev server's modules change too often to cache.
+if (import.meta.env.PROD && 'serviceWorker' in navigator) {
+  void navigator.serviceWorker.register('/service-worker.js').catch(() => {
+    // Without it the app still works online; only reloading while offline is lost.
+  });
+}

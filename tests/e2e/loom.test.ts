@@ -60,5 +60,18 @@ describe('At the loom', () => {
     expect(await heading.textContent()).toBe(before);
     expect(await page.getByRole('button', { name: 'Back of the loom' }).getAttribute('aria-pressed')).toBe('true');
     expect(browser.errors).toEqual([]);
+
+    // At a loom with no connection: the app itself comes from the service worker's cache, and the
+    // guide from the copy kept on the device; a step taken offline is kept and sent later.
+    await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
+    await browser.context.setOffline(true);
+    await page.reload();
+    await page.getByText(/^Threading: group 4 of \d+$/).waitFor();
+    await page.getByRole('button', { name: /Next group/ }).click();
+    await page.getByText(/^Threading: group 5 of \d+$/).waitFor();
+    await browser.context.setOffline(false);
+    await page.getByText('Place saved.').waitFor({ timeout: 20_000 });
+    await page.reload();
+    await page.getByText(/^Threading: group 5 of \d+$/).waitFor();
   });
 });
