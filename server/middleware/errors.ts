@@ -1,5 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { ConnectionError } from 'sequelize';
+import { BaseError, ConnectionError } from 'sequelize';
 import { ZodError } from 'zod';
 import type { ApiError, ErrorCode } from '../../shared/api/errors';
 
@@ -29,11 +29,31 @@ export function validationError(error: ZodError): HttpError {
   return new HttpError(400, 'validation', 'Some fields are not valid', fields);
 }
 
+/**
+ * Driver codes that mean the connection to MariaDB broke or the server is going away, as opposed to a
+ * bad query. Names from the mariadb connector's error list (node_modules/mariadb/lib/misc/errors.js)
+ * and MariaDB's server error codes 1053 and 1927.
+ */
+const CONNECTION_LOST = new Set([
+  'ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT', 'PROTOCOL_CONNECTION_LOST', 'ER_SOCKET_UNEXPECTED_CLOSE',
+  'ER_CONNECTION_ALREADY_CLOSED', 'ER_CONNECTION_TIMEOUT', 'ER_GET_CONNECTION_TIMEOUT', 'ER_SERVER_SHUTDOWN', 'ER_CONNECTION_KILLED',
+]);
+
+/** True for failures that come from the database being unreachable (stopped, restarting, network). */
+function databaseUnavailable(err: unknown): boolean {
+  if (err instanceof ConnectionError) return true;
+  // Sequelize wraps the driver's error as `parent`; the driver marks connection-ending errors `fatal`.
+  const driver = (err as { parent?: { code?: string; fatal?: boolean } } | null)?.parent;
+  return err instanceof BaseError && !!driver && (driver.fatal === true || CONNECTION_LOST.has(driver.code ?? ''));
+}
+
 /** Known failures from libraries (body parser, CSRF, database) mapped to the contract's statuses. */
 function toHttpError(err: unknown): HttpError | null {
   if (err instanceof HttpError) return err;
   if (err instanceof ZodError) return validationError(err);
-  if (err instanceof ConnectionError) return new HttpError(503, 'unavailable', 'The database is not reachable');
+  if (databaseUnavailable(err)) {
+    return new HttpError(503, 'database_unavailable', 'The database is not reachable right now; try again in a moment.');
+  }
   const e = err as { type?: string; code?: string; status?: number };
   if (e?.code === 'EBADCSRFTOKEN') return new HttpError(403, 'csrf', 'Missing or invalid CSRF token; fetch /api/csrf');
   if (e?.type === 'entity.parse.failed') return new HttpError(400, 'bad_request', 'The body is not valid JSON');
@@ -53,6 +73,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   const http = known ?? new HttpError(500, 'internal', 'Something went wrong on the server');
   const body: ApiError = { error: { code: http.code, message: http.message, ...(http.fields ? { fields: http.fields } : {}) } };
+  if (http.status === 503) res.set('Retry-After', '5');
   res.status(http.status).json(body);
 };
 

@@ -3,7 +3,7 @@ import { z } from 'zod';
 /** Machine-readable error codes the server sends; the client switches on these, never on messages. */
 export const errorCodes = [
   'bad_request', 'validation', 'unauthenticated', 'forbidden', 'csrf', 'not_found', 'conflict',
-  'too_large', 'unprocessable', 'rate_limited', 'unavailable', 'internal',
+  'too_large', 'unprocessable', 'rate_limited', 'database_unavailable', 'internal',
 ] as const;
 export type ErrorCode = (typeof errorCodes)[number];
 

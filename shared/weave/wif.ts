@@ -268,9 +268,17 @@ class Reader {
     return this.fail(section, e, 'must be true or false');
   }
 
-  maxKey(...names: string[]): number {
+  /** The highest numbered key in the sections; a key beyond `limit` is an error, not a huge list. */
+  maxKey(limit: number, ...names: string[]): number {
     let max = 0;
-    for (const name of names) for (const e of this.section(name)?.entries ?? []) if (/^\d+$/.test(e.key)) max = Math.max(max, Number(e.key));
+    for (const name of names) {
+      for (const e of this.section(name)?.entries ?? []) {
+        if (!/^\d+$/.test(e.key)) continue;
+        const n = Number(e.key);
+        if (n > limit) this.fail(name, e, `number ${e.key} is beyond ${limit}, the most Shedwright reads`);
+        max = Math.max(max, n);
+      }
+    }
     return max;
   }
 }
@@ -308,7 +316,7 @@ function readPalette(r: Reader): string[] | undefined {
     [min, max] = parts;
   }
   const entries = r.intOf('COLOR PALETTE', 'Entries', 0, 1024, 'Entries') ?? 0;
-  const size = Math.max(entries, r.maxKey('COLOR TABLE'));
+  const size = Math.max(entries, r.maxKey(1024, 'COLOR TABLE'));
   const palette = new Array<string | undefined>(size).fill(undefined);
   for (const [i, e] of r.numbered('COLOR TABLE', size, 'colour')) {
     const parts = e.value.replace(/;.*$/, '').split(',').map((p) => p.trim());
@@ -348,7 +356,7 @@ export function readWif(text: string): WifReadResult {
   }
   const shafts = shaftsGiven ?? MAX_SHAFTS;
   const treadleLimit = treadlesGiven ?? MAX_TREADLES;
-  const ends = r.intOf('WARP', 'Threads', 0, MAX_THREADS, 'Threads') ?? r.maxKey('THREADING', 'WARP COLORS', WARP_LAYERS);
+  const ends = r.intOf('WARP', 'Threads', 0, MAX_THREADS, 'Threads') ?? r.maxKey(MAX_THREADS, 'THREADING', 'WARP COLORS', WARP_LAYERS);
   const picksGiven = r.intOf('WEFT', 'Threads', 0, MAX_THREADS, 'Threads');
 
   const lists = (section: string, count: number | undefined, what: string, max: number, item: string) => {
@@ -362,13 +370,19 @@ export function readWif(text: string): WifReadResult {
   const tieupMap = lists('TIEUP', treadlesGiven, 'treadle', shafts, 'shaft');
   const treadlingMap = lists('TREADLING', picksGiven, 'pick', treadleLimit, 'treadle');
   const liftplanMap = lists('LIFTPLAN', picksGiven, 'pick', shafts, 'shaft');
-  const usedShafts = Math.max(1, ...[...threadingMap.values(), ...tieupMap.values(), ...liftplanMap.values()].flat());
+  // Folded rather than spread: a long lift plan would overflow the call stack as arguments.
+  const highest = (lists: Iterable<number[]>, start: number) => {
+    let max = start;
+    for (const list of lists) for (const n of list) if (n > max) max = n;
+    return max;
+  };
+  const usedShafts = highest([...threadingMap.values(), ...tieupMap.values(), ...liftplanMap.values()], 1);
   if (shaftsGiven === undefined) r.warnings.push(`[WEAVING] gives no Shafts; read as ${usedShafts}, the highest shaft used.`);
-  const treadles = treadlesGiven ?? Math.max(0, ...[...tieupMap.keys()].map((i) => i + 1), ...[...treadlingMap.values()].flat());
+  const treadles = treadlesGiven ?? highest([[...tieupMap.keys()].map((i) => i + 1), ...treadlingMap.values()], 0);
 
   const control: Draft['control'] = r.section('LIFTPLAN') && !r.section('TREADLING') ? 'liftplan' : 'treadling';
   if (r.section('LIFTPLAN') && r.section('TREADLING')) r.warnings.push('The file has both [TREADLING] and [LIFTPLAN]; the picks follow the treadling.');
-  const picks = picksGiven ?? r.maxKey(control === 'liftplan' ? 'LIFTPLAN' : 'TREADLING', 'WEFT COLORS', WEFT_LAYERS);
+  const picks = picksGiven ?? r.maxKey(MAX_THREADS, control === 'liftplan' ? 'LIFTPLAN' : 'TREADLING', 'WEFT COLORS', WEFT_LAYERS);
 
   const palette = readPalette(r);
   const colours = (section: 'WARP' | 'WEFT', listSection: string, count: number, fallback: number) => {
