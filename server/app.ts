@@ -9,7 +9,6 @@ import { securityHeaders } from './middleware/security';
 import { apiRouter } from './routes';
 
 export const SESSION_COOKIE = 'shedwright.sid';
-const SESSION_MAX_AGE_MS = 30 * 24 * 60 * 60 * 1000;
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */
 export function createApp(ctx: AppContext): Express {
@@ -30,7 +29,7 @@ export function createApp(ctx: AppContext): Express {
     store: ctx.sessionStore,
     resave: false,
     saveUninitialized: false,
-    cookie: { httpOnly: true, sameSite: 'lax', secure, maxAge: SESSION_MAX_AGE_MS },
+    cookie: { httpOnly: true, sameSite: 'lax', secure, maxAge: config.sessionMaxAgeMs },
   }));
   api.use(ctx.passport.session());
   api.use(csrfSynchronisedProtection);

@@ -8,9 +8,35 @@ import { createSequelize } from './db/sequelize';
 import { createMailer, type Mailer } from './mail/mailer';
 import { createPassport } from './middleware/passport';
 import { defineModels, type Models } from './models';
+import { localDiskStorage, type BlobStorage } from './storage';
 
 const SequelizeStore = connectSessionSequelize(session.Store);
+
+/** How often one process renews a session's expiry: often enough for a sliding expiry of days. */
+const TOUCH_INTERVAL_MS = 10 * 60 * 1000;
+
 export type SessionStore = InstanceType<typeof SequelizeStore>;
+
+/**
+ * The store renews a session's expiry on every request, a database write per request. Renewing it
+ * at most every few minutes per process keeps the sliding expiry without that write.
+ */
+function throttleTouch(store: SessionStore): SessionStore {
+  const touch = store.touch.bind(store);
+  const touched = new Map<string, number>();
+  store.touch = (sid, data, callback) => {
+    const now = Date.now();
+    const last = touched.get(sid);
+    if (last !== undefined && now - last < TOUCH_INTERVAL_MS) {
+      callback?.(undefined);
+      return;
+    }
+    if (touched.size > 50_000) touched.clear();
+    touched.set(sid, now);
+    touch(sid, data, callback);
+  };
+  return store;
+}
 
 /** Everything createApp needs from outside: settings, database, session store and mail. */
 export interface AppContext {
@@ -20,6 +46,8 @@ export interface AppContext {
   sessionStore: SessionStore;
   passport: PassportStatic;
   mailer: Mailer;
+  /** Uploaded files (photos of cloth); local disk here, an object store elsewhere. */
+  storage: BlobStorage;
   /** Mails captured by the local fake SMTP server, newest first. */
   mails: () => CapturedMail[];
   /** Stops the session store's timer and closes mail and database connections. */
@@ -30,11 +58,11 @@ export interface AppContext {
 export function createContext(config: Config, mailbox: { port: number; mails: () => CapturedMail[] }): AppContext {
   const sequelize = createSequelize(config.db);
   const models = defineModels(sequelize);
-  const sessionStore = new SequelizeStore({
+  const sessionStore = throttleTouch(new SequelizeStore({
     db: sequelize,
     table: 'Session',
     checkExpirationInterval: 15 * 60 * 1000,
-  });
+  }));
   const mailer = createMailer(mailbox.port);
   return {
     config,
@@ -43,6 +71,7 @@ export function createContext(config: Config, mailbox: { port: number; mails: ()
     sessionStore,
     passport: createPassport(models),
     mailer,
+    storage: localDiskStorage(config.attachmentsDir),
     mails: mailbox.mails,
     async close() {
       sessionStore.stopExpiringSessions();

@@ -28,6 +28,10 @@ export interface Config {
   staticDir: string;
   /** Largest JSON body accepted, in the body parser's notation. */
   bodyLimit: string;
+  /** Where uploaded photos are kept: outside the served client, never under staticDir. */
+  attachmentsDir: string;
+  /** How long a session lasts after it was last saved; an older session cookie signs nobody in. */
+  sessionMaxAgeMs: number;
   rateLimit: RateLimitConfig;
 }
 
@@ -60,6 +64,8 @@ export function loadConfig(env: Env = process.env): Config {
     dev: env.SHEDWRIGHT_DEV === '1',
     staticDir: env.SHEDWRIGHT_STATIC_DIR || 'dist',
     bodyLimit: env.SHEDWRIGHT_BODY_LIMIT || '2mb',
+    attachmentsDir: env.SHEDWRIGHT_ATTACHMENTS_DIR || '.data/attachments',
+    sessionMaxAgeMs: int(env, 'SHEDWRIGHT_SESSION_MAX_AGE_MS', 30 * 24 * 60 * 60 * 1000),
     rateLimit: {
       windowMs: int(env, 'SHEDWRIGHT_RATE_WINDOW_MS', 15 * 60 * 1000),
       signIn: int(env, 'SHEDWRIGHT_SIGNIN_LIMIT', 10),

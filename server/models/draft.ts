@@ -16,12 +16,22 @@ export interface DraftAttributes {
   shafts: number;
   colors: number;
   tags: string[];
+  /** Structures found in the document when it was saved (see services/draft-stats). */
+  structure: string[];
+  /** The draft this one was forked from, and from which of its versions. */
+  parentDraftId: number | null;
+  parentVersion: number | null;
+  /** PNG of the start of the cloth, rendered when the document is saved. */
+  thumbnail: Buffer | null;
   /** Number of the newest DraftVersion. */
   version: number;
   createdAt: Date;
   updatedAt: Date;
 }
-export type DraftCreation = Optional<DraftAttributes, 'id' | 'studioId' | 'tags' | 'version' | 'createdAt' | 'updatedAt'>;
+export type DraftCreation = Optional<
+  DraftAttributes,
+  'id' | 'studioId' | 'tags' | 'structure' | 'parentDraftId' | 'parentVersion' | 'thumbnail' | 'version' | 'createdAt' | 'updatedAt'
+>;
 export interface DraftRow extends Model<DraftAttributes, DraftCreation>, DraftAttributes {
   /** Present when included in the query. */
   owner?: UserRow;
@@ -42,6 +52,10 @@ export function defineDraft(sequelize: Sequelize): DraftModel {
     shafts: { type: DataTypes.INTEGER, allowNull: false },
     colors: { type: DataTypes.INTEGER, allowNull: false },
     tags: { type: DataTypes.JSON, allowNull: false, defaultValue: [] },
+    structure: { type: DataTypes.JSON, allowNull: false, defaultValue: [] },
+    parentDraftId: { type: DataTypes.INTEGER, allowNull: true },
+    parentVersion: { type: DataTypes.INTEGER, allowNull: true },
+    thumbnail: { type: DataTypes.BLOB('medium'), allowNull: true },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

@@ -1,11 +1,19 @@
 import type { Sequelize } from 'sequelize';
 import { defineDraft } from './draft';
 import { defineDraftVersion } from './draft-version';
+import { defineDraftPlan } from './draft-plan';
+import { defineLoomProgress } from './loom-progress';
+import { defineWeavingResult } from './weaving-result';
 import { defineMembership } from './membership';
 import { definePasswordReset } from './password-reset';
 import { defineSession } from './session';
 import { defineStudio } from './studio';
 import { defineUser } from './user';
+import { defineAttachment } from './attachment';
+import { defineComment } from './comment';
+import { defineInvitation } from './invitation';
+import { defineShareLink } from './share-link';
+import { defineYarn } from './yarn';
 
 /**
  * Defines every model on one Sequelize instance and wires the associations in this one place.
@@ -20,6 +28,14 @@ export function defineModels(sequelize: Sequelize) {
     DraftVersion: defineDraftVersion(sequelize),
     PasswordReset: definePasswordReset(sequelize),
     Session: defineSession(sequelize),
+    DraftPlan: defineDraftPlan(sequelize),
+    LoomProgress: defineLoomProgress(sequelize),
+    WeavingResult: defineWeavingResult(sequelize),
+    Yarn: defineYarn(sequelize),
+    Comment: defineComment(sequelize),
+    ShareLink: defineShareLink(sequelize),
+    Invitation: defineInvitation(sequelize),
+    Attachment: defineAttachment(sequelize),
   };
   const { User, Studio, Membership, Draft, DraftVersion, PasswordReset } = models;
 
@@ -35,6 +51,14 @@ export function defineModels(sequelize: Sequelize) {
   DraftVersion.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 
   PasswordReset.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+
+  Draft.belongsTo(Draft, { foreignKey: 'parentDraftId', as: 'parent' });
+  models.Comment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
+  models.Attachment.belongsTo(User, { foreignKey: 'uploaderId', as: 'uploader' });
+  models.Invitation.belongsTo(Studio, { foreignKey: 'studioId', as: 'studio' });
+
+  models.DraftPlan.belongsTo(User, { foreignKey: 'updatedById', as: 'updatedBy' });
+  models.WeavingResult.belongsTo(User, { foreignKey: 'userId', as: 'weaver' });
   return models;
 }
 

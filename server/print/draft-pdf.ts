@@ -2,14 +2,38 @@ import PDFDocument from 'pdfkit';
 import { hexToRgb, pickCount, type Draft } from '../../shared/weave';
 import { computePlan, type PlanDocument, type PlanOutputs } from '../../shared/plan';
 import { cellOrigin, gridBounds, type DraftShape, type GridPlacement } from '../../shared/print/draft-layout';
-import { PAGE_MARGIN, LEGEND_HEAD, LEGEND_ROW, PAGE_OVERLAP, planDraftPages, type PagePart, type PrintView } from '../../shared/print/draft-pages';
+import { PAGE_MARGIN, LEGEND_HEAD, LEGEND_ROW, PAGE_OVERLAP, planDraftPages, type PagePart, type PrintView, type ViewCut } from '../../shared/print/draft-pages';
 import { LOOM_LIST_KINDS, pageSize, type LoomListKind, type PrintMeta, type PrintOptions, type Rect } from '../../shared/print/types';
 import type { Span } from '../../shared/print/page-split';
 import { fontData } from './fonts';
+import { drawMask, embedMask, gridPixels, markBits, placeGrid, type PdfPixels } from './pdf-image';
 import { BODY_SIZE, GRID_LINE, GRID_RULE, INK, LABEL_SIZE, MUTED, plural, swatch, text, type Doc } from './pdf-style';
+import { writeText, type TextItem } from './pdf-text';
 import { drawLoomLists, drawPlanPage, listOrientation } from './plan-pages';
-import { encodePngRgb } from './png';
 import { cellImage, clothSources, layerTint, orientCells, type CellImage, type ClothSources } from './raster';
+
+/**
+ * A cloth view (two-tone drawdown, faces, layer map) needing more sheets than this prints its
+ * first sheet only: hundreds of sheets repeating what the draft sheets already show help no one
+ * and would take most of the printing time. Page 1 says so.
+ */
+export const MAX_VIEW_SHEETS = 12;
+
+/** The longest stretch a print works without letting the server answer other requests. */
+export const PRINT_SLICE_MS = 25;
+
+/**
+ * A function to await between steps of a long job: it lets the event loop run once every
+ * PRINT_SLICE_MS, so a thousand-page print delays other requests by milliseconds, not seconds.
+ */
+export function turnTaker(sliceMs = PRINT_SLICE_MS): () => Promise<void> {
+  let since = performance.now();
+  return async () => {
+    if (performance.now() - since < sliceMs) return;
+    await new Promise<void>((resolve) => setImmediate(resolve));
+    since = performance.now();
+  };
+}
 
 export interface DraftPdfInput {
   draft: Draft;
@@ -28,9 +52,11 @@ export interface DraftPdfInput {
 
 /**
  * Prints a draft: the draft itself (threading, tie-up, treadling or lift plan, colour orders,
- * drawdown in colour and in two tones, both faces and the layer map of a layered cloth) split
- * across as many pages as legibility needs, a colour legend, the plan, then the loom-side lists
- * in working order with boxes to tick.
+ * drawdown in colour) split across as many pages as legibility needs, the cloth views (two tones,
+ * both faces and the layer map of a layered cloth; first sheet only past MAX_VIEW_SHEETS), a
+ * colour legend, the plan, then the loom-side lists in working order with boxes to tick. Grid
+ * cells are embedded pixels and numbers are written straight into the page, so a 2000 × 2000
+ * draft prints in about 1.5 s; the work yields to the event loop every PRINT_SLICE_MS.
  *
  * @example await renderDraftPdf({ draft, meta, options: { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, numberEvery: 4 } })
  */
@@ -67,21 +93,23 @@ export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
   const shape = draftShape(draft);
   const views: PrintView[] = sources.layers ? ['structure', 'front', 'back', 'layers'] : ['structure'];
   const legend = legendRows(draft);
-  const layout = planDraftPages({ page, shape, arrangement: options, views, legendRows: legend.length });
+  const layout = planDraftPages({ page, shape, arrangement: options, views, legendRows: legend.length, maxViewSheets: MAX_VIEW_SHEETS });
   const tiled = layout.pages.flatMap((p) => p.parts).some((p) => p.kind === 'draft' && p.across * p.down > 1);
-  const ctx: DrawContext = { doc, draft, options, shape, legend, sources, images: new Map(), ink: new GridInk(doc), labels: new Labels(doc), tiled };
-  layout.pages.forEach((p, i) => {
+  const ctx: DrawContext = { doc, draft, options, shape, legend, sources, images: new Map(), ink: new GridInk(doc), tiled, viewCut: layout.viewCut };
+  const breathe = turnTaker();
+  for (const [i, p] of layout.pages.entries()) {
+    await breathe();
     doc.addPage();
     if (i === 0) drawTitleBlock(ctx, meta);
     else drawRunningHead(ctx, meta.title, p.parts);
     for (const part of p.parts) drawPart(ctx, part);
-  });
+  }
 
   const outputs = input.plan ? (input.outputs ?? computePlan(draft, input.plan)) : undefined;
   const yarnNames = (colour: number) => legend.find((r) => r.colour === colour)?.yarns ?? 'no yarn named';
   drawPlanPage(doc, draft, yarnNames, input.plan && outputs ? { doc: input.plan, outputs } : undefined);
   const which = input.lists ?? (outputs ? LOOM_LIST_KINDS : (['threading', 'weaving'] as const));
-  drawLoomLists(doc, draft, yarnNames, which, listOrientation(input.plan, options.workingOrder), outputs);
+  await drawLoomLists(doc, draft, yarnNames, which, listOrientation(input.plan, options.workingOrder), outputs, breathe);
 
   doc.end();
   return finished;
@@ -105,9 +133,11 @@ interface DrawContext {
   /** Cell images made on first use. */
   images: Map<PrintView | 'colour', CellImage>;
   ink: GridInk;
-  labels: Labels;
+  /** The tie-up is the same on every sheet: stored once. */
+  tieup?: PdfPixels;
   /** The draft needs more than one sheet. */
   tiled: boolean;
+  viewCut?: ViewCut;
 }
 
 function draftShape(draft: Draft): DraftShape {
@@ -138,38 +168,6 @@ function legendRows(draft: Draft): LegendRow[] {
 }
 
 
-/**
- * Small numbers in the margins of the grids, thousands of them in a big draft: the style is set
- * once per run of labels and widths are measured once per string.
- */
-class Labels {
-  private readonly options = new Map<string, { lineBreak: false; textWidth: number; wordCount: number }>();
-  constructor(private readonly doc: Doc) {}
-  /** Sets the style for the labels that follow. */
-  begin(colour = INK): this {
-    this.doc.font('regular').fontSize(LABEL_SIZE).fillColor(colour);
-    return this;
-  }
-  /** A label starting at x, centred on cy. */
-  left(s: string, x: number, cy: number): void {
-    this.doc.text(s, x, cy - LABEL_SIZE * 0.62, this.measured(s));
-  }
-  /** A label centred on (cx, cy). */
-  centred(s: string, cx: number, cy: number): void {
-    const options = this.measured(s);
-    this.doc.text(s, cx - options.textWidth / 2, cy - LABEL_SIZE * 0.62, options);
-  }
-  /** Options that hand pdfkit the width it would otherwise measure again on every call. */
-  private measured(s: string): { lineBreak: false; textWidth: number; wordCount: number } {
-    let options = this.options.get(s);
-    if (!options) {
-      options = { lineBreak: false, textWidth: this.doc.widthOfString(s), wordCount: 1 };
-      this.options.set(s, options);
-    }
-    return options;
-  }
-}
-
 function summary(ctx: DrawContext): string {
   const { draft, shape } = ctx;
   const loom = shape.liftPlan ? 'lift plan' : plural(draft.treadles, 'treadle');
@@ -178,14 +176,22 @@ function summary(ctx: DrawContext): string {
 }
 
 function drawTitleBlock(ctx: DrawContext, meta: PrintMeta): void {
-  const { doc } = ctx;
+  const { doc, viewCut } = ctx;
   text(doc, meta.title, PAGE_MARGIN, PAGE_MARGIN, 16, INK, 'semibold');
   const by = [meta.author && `By ${meta.author}`, meta.studio, meta.date, `version ${meta.version}`].filter(Boolean).join(' · ');
-  text(doc, by, PAGE_MARGIN, PAGE_MARGIN + 22, BODY_SIZE, MUTED);
-  text(doc, summary(ctx), PAGE_MARGIN, PAGE_MARGIN + 35, BODY_SIZE);
+  text(doc, by, PAGE_MARGIN, PAGE_MARGIN + 20, BODY_SIZE, MUTED);
+  text(doc, summary(ctx), PAGE_MARGIN, PAGE_MARGIN + 31, BODY_SIZE);
+  const notes: string[] = [];
   if (ctx.shape.ends + ctx.shape.picks > 0 && ctx.tiled) {
-    text(doc, `The draft is split into sheets; dark bars in the margins mark the ${PAGE_OVERLAP} ends or picks each sheet repeats from its neighbour, to line them up.`, PAGE_MARGIN, PAGE_MARGIN + 47, LABEL_SIZE + 1, MUTED);
+    notes.push(`The draft is split into sheets; dark bars in the margins mark the ${PAGE_OVERLAP} ends or picks each sheet repeats from its neighbour, to line them up.`);
   }
+  if (viewCut) notes.push(viewCutNote(viewCut));
+  notes.forEach((n, i) => text(doc, n, PAGE_MARGIN, PAGE_MARGIN + 42 + i * 8, LABEL_SIZE + 1, MUTED));
+}
+
+/** Says which ends and picks the cut views show, and that the draft sheets show them all. */
+export function viewCutNote(cut: ViewCut): string {
+  return `The cloth views after the draft show ends ${spanText(cut.ends)} and picks ${spanText(cut.picks)} only (the whole cloth would take ${cut.fullSheets} sheets each); the draft sheets show every end and pick.`;
 }
 
 function spanText(s: Span): string {
@@ -224,12 +230,9 @@ function drawPart(ctx: DrawContext, part: PagePart): void {
   else drawLegend(ctx, part);
 }
 
+/** The cells [cols] × [rows] of a cloth picture, one pixel per cell, over the grid. */
 function placeImage(doc: Doc, img: CellImage, g: GridPlacement, cols: Span, rows: Span): void {
-  if (g.cols === 0 || g.rows === 0) return;
-  const cut = orientCells(img, cols, rows, g.stepX < 0, g.stepY < 0);
-  const b = gridBounds(g);
-  // Speed over size: these tiles are small and pdfkit stores the stream as it is.
-  doc.image(encodePngRgb(cut.width, cut.height, cut.rgb, 1), b.x, b.y, { width: b.width, height: b.height });
+  placeGrid(doc, g, orientCells(img, cols, rows, g.stepX < 0, g.stepY < 0));
 }
 
 const mod = (a: number, m: number) => ((a % m) + m) % m;
@@ -281,46 +284,19 @@ class GridInk {
   }
 }
 
-/** Filled marks in the cells listed, inset so the grid stays visible. */
-function marks(doc: Doc, g: GridPlacement, cells: Iterable<[number, number]>): void {
-  const inset = g.cell * 0.16;
-  let any = false;
-  for (const [col, row] of cells) {
-    if (col < 0 || col >= g.cols || row < 0 || row >= g.rows) continue;
-    const o = cellOrigin(g, col, row);
-    doc.rect(o.x + inset, o.y + inset, g.cell - 2 * inset, g.cell - 2 * inset);
-    any = true;
-  }
-  if (any) doc.fillColor(INK).fill();
+/** Pixels per cell side for marks, and the clear border of each: a mark fills the middle 4/6 of its cell. */
+const MARK_SCALE = 6;
+const MARK_INSET = 1;
+
+/** Filled marks where `marked` says, inset so the grid stays visible. */
+function marks(doc: Doc, g: GridPlacement, marked: (col: number, row: number) => boolean): void {
+  if (g.cols === 0 || g.rows === 0) return;
+  drawMask(doc, embedMask(doc, markBits(g, MARK_SCALE, MARK_INSET, marked)), gridBounds(g), INK);
 }
 
 /** Cells of a one-row or one-column grid filled with palette colours. */
 function colourStrip(doc: Doc, draft: Draft, g: GridPlacement, colours: number[], across: boolean): void {
-  const byColour = new Map<number, number[]>();
-  colours.forEach((c, i) => {
-    const list = byColour.get(c) ?? [];
-    list.push(i);
-    byColour.set(c, list);
-  });
-  for (const [c, cells] of byColour) {
-    for (const i of cells) {
-      const o = across ? cellOrigin(g, i, 0) : cellOrigin(g, 0, i);
-      doc.rect(o.x, o.y, g.cell, g.cell);
-    }
-    doc.fillColor(draft.palette[c] ?? '#000000').fill();
-  }
-}
-
-function* threadingCells(draft: Draft, cols: Span): Generator<[number, number]> {
-  for (let e = cols.start; e < cols.end; e++) for (const s of draft.threading[e]) yield [e - cols.start, s - 1];
-}
-
-function* pickCells(lists: number[][], rows: Span): Generator<[number, number]> {
-  for (let p = rows.start; p < rows.end; p++) for (const t of lists[p] ?? []) yield [t - 1, p - rows.start];
-}
-
-function* tieupCells(draft: Draft): Generator<[number, number]> {
-  for (let t = 0; t < draft.tieup.length; t++) for (const s of draft.tieup[t]) yield [t, s - 1];
+  placeGrid(doc, g, gridPixels(g, draft.palette, (c, r) => colours[across ? c : r]));
 }
 
 /** Shades the cells a sheet shares with its neighbours, in the number band beside them. */
@@ -339,22 +315,29 @@ function overlapMarks(doc: Doc, g: GridPlacement, cols: Span, rows: Span, total:
   doc.fillColor(GRID_RULE).fill();
 }
 
-function endNumbers(labels: Labels, g: GridPlacement, cols: Span, bandY: number, every: number): void {
-  labels.begin();
+/** Top of a label line whose middle is at cy. */
+const labelTop = (cy: number) => cy - LABEL_SIZE * 0.62;
+
+/** Every `every`-th end number over the grid, and the sheet's first end. */
+function endNumbers(g: GridPlacement, cols: Span, bandY: number, every: number): TextItem[] {
+  const items: TextItem[] = [];
   for (let e = cols.start; e < cols.end; e++) {
     if ((e + 1) % every !== 0 && e !== cols.start) continue;
     const o = cellOrigin(g, e - cols.start, 0);
-    labels.centred(String(e + 1), o.x + g.cell / 2, bandY + 6);
+    items.push({ s: String(e + 1), x: o.x + g.cell / 2, y: labelTop(bandY + 6), centred: true });
   }
+  return items;
 }
 
-function pickNumbers(labels: Labels, g: GridPlacement, rows: Span, x: number, every: number): void {
-  labels.begin();
+/** Every `every`-th pick number beside the grid, and the sheet's first pick. */
+function pickNumbers(g: GridPlacement, rows: Span, x: number, every: number): TextItem[] {
+  const items: TextItem[] = [];
   for (let p = rows.start; p < rows.end; p++) {
     if ((p + 1) % every !== 0 && p !== rows.start) continue;
     const o = cellOrigin(g, 0, p - rows.start);
-    labels.left(String(p + 1), x + 3, o.y + g.cell / 2);
+    items.push({ s: String(p + 1), x: x + 3, y: labelTop(o.y + g.cell / 2) });
   }
+  return items;
 }
 
 function drawDraftTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'draft' }>): void {
@@ -365,9 +348,15 @@ function drawDraftTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'draft'
   placeImage(doc, image(ctx, 'colour'), l.drawdown, tile.cols, tile.rows);
   colourStrip(doc, draft, l.warpColours, draft.warpColors.slice(tile.cols.start, tile.cols.end), true);
   colourStrip(doc, draft, l.weftColours, draft.weftColors.slice(tile.rows.start, tile.rows.end), false);
-  marks(doc, l.threading, threadingCells(draft, tile.cols));
-  marks(doc, l.treadling, pickCells(shape.liftPlan ? draft.liftplan : draft.treadling, tile.rows));
-  if (l.tieup) marks(doc, l.tieup, tieupCells(draft));
+  const { cols, rows } = tile;
+  marks(doc, l.threading, (c, s) => draft.threading[cols.start + c].includes(s + 1));
+  const lists = shape.liftPlan ? draft.liftplan : draft.treadling;
+  marks(doc, l.treadling, (t, p) => (lists[rows.start + p] ?? []).includes(t + 1));
+  const tieupGrid = l.tieup;
+  if (tieupGrid && tieupGrid.cols > 0 && tieupGrid.rows > 0) {
+    ctx.tieup ??= embedMask(doc, markBits(tieupGrid, MARK_SCALE, MARK_INSET, (t, s) => (draft.tieup[t] ?? []).includes(s + 1)));
+    drawMask(doc, ctx.tieup, gridBounds(tieupGrid), INK);
+  }
 
   const { ink } = ctx;
   ink.grid(l.drawdown, tile.cols.start, tile.rows.start, every);
@@ -377,17 +366,16 @@ function drawDraftTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'draft'
   ink.grid(l.warpColours);
   ink.grid(l.weftColours);
 
-  const { labels } = ctx;
-  endNumbers(labels, l.threading, tile.cols, l.endLabels.y, every);
-  pickNumbers(labels, l.treadling, tile.rows, l.pickLabels.x, every);
+  writeText(doc, [...endNumbers(l.threading, tile.cols, l.endLabels.y, every), ...pickNumbers(l.treadling, tile.rows, l.pickLabels.x, every)], LABEL_SIZE, INK);
   // Shaft numbers beside the threading; treadle (or shaft) numbers over the tie-up corner.
-  labels.begin(MUTED);
+  const loom: TextItem[] = [];
   for (let s = 0; s < shape.shafts; s++) {
-    labels.left(String(s + 1), l.pickLabels.x + 3, cellOrigin(l.threading, 0, s).y + l.cell / 2);
+    loom.push({ s: String(s + 1), x: l.pickLabels.x + 3, y: labelTop(cellOrigin(l.threading, 0, s).y + l.cell / 2) });
   }
   for (let t = 0; t < shape.pickColumns; t++) {
-    labels.centred(String(t + 1), cellOrigin(l.treadling, t, 0).x + l.cell / 2, l.endLabels.y + 6);
+    loom.push({ s: String(t + 1), x: cellOrigin(l.treadling, t, 0).x + l.cell / 2, y: labelTop(l.endLabels.y + 6), centred: true });
   }
+  writeText(doc, loom, LABEL_SIZE, MUTED);
   overlapMarks(doc, l.drawdown, tile.cols, tile.rows, shape, {
     endY: l.endLabels.y + l.endLabels.height - 3,
     pickX: l.pickLabels.x,
@@ -399,12 +387,12 @@ function drawViewTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'view' }
   const { doc, options, shape } = ctx;
   const { tile, layout: l, view } = part;
   const img = image(ctx, view);
-  const sheet = part.across * part.down > 1 ? ` (sheet ${tile.index + 1} of ${part.across * part.down})` : '';
+  const cut = ctx.viewCut ? ` (ends ${spanText(tile.cols)}, picks ${spanText(tile.rows)} only)` : '';
+  const sheet = part.across * part.down > 1 ? ` (sheet ${tile.index + 1} of ${part.across * part.down})` : cut;
   text(doc, VIEW_CAPTIONS[view] + sheet, l.caption.x, l.caption.y + 2, BODY_SIZE - 1, INK, 'semibold');
   placeImage(doc, img, l.grid, tile.cols, tile.rows);
   ctx.ink.grid(l.grid, tile.cols.start, tile.rows.start, options.numberEvery);
-  endNumbers(ctx.labels, l.grid, tile.cols, l.endLabels.y, options.numberEvery);
-  pickNumbers(ctx.labels, l.grid, tile.rows, l.pickLabels.x, options.numberEvery);
+  writeText(doc, [...endNumbers(l.grid, tile.cols, l.endLabels.y, options.numberEvery), ...pickNumbers(l.grid, tile.rows, l.pickLabels.x, options.numberEvery)], LABEL_SIZE, INK);
   overlapMarks(doc, l.grid, tile.cols, tile.rows, shape, {
     endY: l.endLabels.y + l.endLabels.height - 3,
     pickX: l.pickLabels.x,

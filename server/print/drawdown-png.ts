@@ -1,6 +1,6 @@
 import type { Draft } from '../../shared/weave';
-import { encodePngRgb } from './png';
-import { cellImage, clothSources, orientCells } from './raster';
+import { encodePngRgb, encodePngRgbAsync } from './png';
+import { cellImage, clothSources, orientCells, type CellImage } from './raster';
 
 export type PngView = 'structure' | 'colour' | 'front' | 'back';
 
@@ -25,6 +25,17 @@ export const MAX_PNG_PIXELS = 40_000_000;
  * @throws RangeError for a scale out of range or a picture too big; Error for a face of a one-layer draft.
  */
 export function renderDrawdownPng(draft: Draft, options: DrawdownPngOptions): Buffer {
+  const out = drawdownPixels(draft, options);
+  return encodePngRgb(out.width, out.height, out.rgb);
+}
+
+/** As renderDrawdownPng, compressing off the event loop (for the server). */
+export function renderDrawdownPngAsync(draft: Draft, options: DrawdownPngOptions): Promise<Buffer> {
+  const out = drawdownPixels(draft, options);
+  return encodePngRgbAsync(out.width, out.height, out.rgb);
+}
+
+function drawdownPixels(draft: Draft, options: DrawdownPngOptions): CellImage {
   const { scale } = options;
   if (!Number.isInteger(scale) || scale < 1 || scale > 64) throw new RangeError(`scale ${scale} is not a whole number from 1 to 64`);
   const src = clothSources(draft);
@@ -35,6 +46,5 @@ export function renderDrawdownPng(draft: Draft, options: DrawdownPngOptions): Bu
   const endOneRight = options.treadlingRight ?? true;
   const flipX = options.view === 'back' ? !endOneRight : endOneRight;
   const flipY = !(options.threadingAbove ?? true);
-  const out = orientCells(img, { start: 0, end: ends }, { start: 0, end: picks }, flipX, flipY, scale);
-  return encodePngRgb(out.width, out.height, out.rgb);
+  return orientCells(img, { start: 0, end: ends }, { start: 0, end: picks }, flipX, flipY, scale);
 }

@@ -1,3 +1,5 @@
+import { writeText } from './pdf-text';
+
 /** Inks, sizes and the one-line text call the print pages share. */
 export const INK = '#1d1d22';
 export const MUTED = '#5b5b66';
@@ -10,11 +12,9 @@ export const ROW_HEIGHT = 14;
 export type Doc = PDFKit.PDFDocument;
 export type FontStyle = 'regular' | 'semibold';
 
-export const ONE_LINE = { lineBreak: false } as const;
-
 /** One line of text with its top-left corner at (x, y). */
 export function text(doc: Doc, s: string, x: number, y: number, size: number, colour = INK, font: FontStyle = 'regular'): void {
-  doc.font(font).fontSize(size).fillColor(colour).text(s, x, y, ONE_LINE);
+  writeText(doc, [{ s, x, y }], size, colour, font);
 }
 
 /** A colour swatch with a fine border, so pale colours still show on white paper. */

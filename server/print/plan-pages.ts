@@ -17,6 +17,7 @@ import {
 import { PAGE_MARGIN } from '../../shared/print/draft-pages';
 import type { LoomListKind } from '../../shared/print/types';
 import { BODY_SIZE, INK, MUTED, plural, ROW_HEIGHT, swatch, text, type Doc, type FontStyle } from './pdf-style';
+import { textWidth } from './pdf-text';
 
 /** Writes top to bottom between the margins, turning the page when the next block would not fit. */
 class Flow {
@@ -85,16 +86,14 @@ class Flow {
     const { doc } = this;
     const indent = 110;
     const width = this.width - indent;
-    doc.font('regular').fontSize(BODY_SIZE);
     // Most steps fit on one line; measuring a wrapped height is much slower, so only long ones pay for it.
-    const oneLine = doc.widthOfString(detail) <= width;
-    const h = oneLine ? ROW_HEIGHT : Math.max(ROW_HEIGHT, doc.heightOfString(detail, { width }) + 4);
+    const oneLine = textWidth(doc, detail, BODY_SIZE) <= width;
+    const h = oneLine ? ROW_HEIGHT : Math.max(ROW_HEIGHT, doc.font('regular').fontSize(BODY_SIZE).heightOfString(detail, { width }) + 4);
     this.room(h);
     doc.rect(PAGE_MARGIN, this.y, 9, 9).lineWidth(0.6).strokeColor(INK).stroke();
     text(doc, label, PAGE_MARGIN + 16, this.y, BODY_SIZE, INK, 'semibold');
-    doc.font('regular').fontSize(BODY_SIZE).fillColor(INK);
-    if (oneLine) doc.text(detail, PAGE_MARGIN + indent, this.y, { lineBreak: false });
-    else doc.text(detail, PAGE_MARGIN + indent, this.y, { width });
+    if (oneLine) text(doc, detail, PAGE_MARGIN + indent, this.y, BODY_SIZE);
+    else doc.font('regular').fontSize(BODY_SIZE).fillColor(INK).text(detail, PAGE_MARGIN + indent, this.y, { width });
     this.y += h;
   }
 }
@@ -174,22 +173,26 @@ function orientationWords(o: Orientation): string {
   return `Working from the ${o.side} of the loom, ${o.direction.replace(/-/g, ' ')}, ${numbering}.`;
 }
 
-/** Loom-side lists from the plan, or from the draft alone (threading and weaving) without one. */
-export function drawLoomLists(
+/**
+ * Loom-side lists from the plan, or from the draft alone (threading and weaving) without one.
+ * `breathe` is awaited between rows, so a long list can let other work run.
+ */
+export async function drawLoomLists(
   doc: Doc,
   draft: Draft,
   yarnNames: YarnNames,
   which: readonly LoomListKind[],
   orientation: Orientation,
   outputs?: PlanOutputs,
-): void {
+  breathe: () => Promise<void> = async () => {},
+): Promise<void> {
   const threading = outputs?.threading ?? draftThreading(draft, orientation);
   const weaving = outputs?.weaving ?? weavingList(draft, { totalPicks: pickCount(draft), shaftNumbering: orientation.side === 'front' ? orientation.shaftNumbering : orientation.shaftNumbering === 'near' ? 'far' : 'near' });
   for (const kind of which) {
-    if (kind === 'threading') threadingList(doc, threading, orientation);
-    else if (kind === 'sleying' && outputs) sleyingList(doc, outputs, orientation);
-    else if (kind === 'tie-on' && outputs) tieOnList(doc, outputs, orientation);
-    else if (kind === 'weaving') weavingPages(doc, draft, weaving, yarnNames);
+    if (kind === 'threading') await threadingList(doc, threading, orientation, breathe);
+    else if (kind === 'sleying' && outputs) await sleyingList(doc, outputs, orientation, breathe);
+    else if (kind === 'tie-on' && outputs) await tieOnList(doc, outputs, orientation, breathe);
+    else if (kind === 'weaving') await weavingPages(doc, draft, weaving, yarnNames, breathe);
   }
 }
 
@@ -203,11 +206,14 @@ function draftThreading(draft: Draft, o: Orientation): Group<ThreadingStep>[] {
 
 const REST = 'Sit square to the loom, and rest your hands and eyes between groups.';
 
-function threadingList(doc: Doc, groups: Group<ThreadingStep>[], o: Orientation): void {
+type Breathe = () => Promise<void>;
+
+async function threadingList(doc: Doc, groups: Group<ThreadingStep>[], o: Orientation, breathe: Breathe): Promise<void> {
   const flow = new Flow(doc, 'Threading');
   flow.line(orientationWords(o), MUTED);
   flow.line(`Each group lists its ends in the order you reach them, with the shaft for each. ${REST}`, MUTED, BODY_SIZE - 1);
   for (const g of groups) {
+    await breathe();
     const first = g.items[0];
     const last = g.items[g.items.length - 1];
     if (!first || !last) continue;
@@ -216,11 +222,12 @@ function threadingList(doc: Doc, groups: Group<ThreadingStep>[], o: Orientation)
   }
 }
 
-function sleyingList(doc: Doc, outputs: PlanOutputs, o: Orientation): void {
+async function sleyingList(doc: Doc, outputs: PlanOutputs, o: Orientation, breathe: Breathe): Promise<void> {
   const flow = new Flow(doc, 'Sleying');
   flow.line(`${orientationWords(o)} Denting ${dentingLabel(outputs.denting.pattern)}.`, MUTED);
   flow.line(`Each group lists its dents with the ends that go through them. ${REST}`, MUTED, BODY_SIZE - 1);
   for (const g of outputs.sleying) {
+    await breathe();
     const first = g.items[0];
     const last = g.items[g.items.length - 1];
     if (!first || !last) continue;
@@ -229,10 +236,11 @@ function sleyingList(doc: Doc, outputs: PlanOutputs, o: Orientation): void {
   }
 }
 
-function tieOnList(doc: Doc, outputs: PlanOutputs, o: Orientation): void {
+async function tieOnList(doc: Doc, outputs: PlanOutputs, o: Orientation, breathe: Breathe): Promise<void> {
   const flow = new Flow(doc, 'Tying on');
   flow.line(orientationWords(o), MUTED);
   for (const g of outputs.tieOn) {
+    await breathe();
     const first = g.items[0];
     const last = g.items[g.items.length - 1];
     if (first === undefined || last === undefined) continue;
@@ -240,13 +248,14 @@ function tieOnList(doc: Doc, outputs: PlanOutputs, o: Orientation): void {
   }
 }
 
-function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames: YarnNames): void {
+async function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames: YarnNames, breathe: Breathe): Promise<void> {
   const flow = new Flow(doc, draft.control === 'liftplan' ? 'Lift plan' : 'Treadling');
   const times = list.repeats > 0 ? `Weave the sequence ${plural(list.repeats, 'time')}${list.extraPicks ? `, then picks 1–${list.extraPicks} once more` : ''}. ` : '';
   flow.line(`${times}${list.picksPerUnit} picks per ${list.unit}. Shafts are numbered from the front of the loom.`, MUTED);
   flow.line(`Tick each line as you weave it. ${REST}`, MUTED, BODY_SIZE - 1);
   const layered = draft.weftLayers.some((l) => l > 1);
   for (const r of list.rows) {
+    await breathe();
     const label = r.fromPick === r.toPick ? `Pick ${r.fromPick}` : `Picks ${r.fromPick}–${r.toPick}`;
     const how = r.treadles ? `treadle ${r.treadles.join('+')} (raises ${r.raised.join(' ') || 'nothing'})` : `raise ${r.raised.join(' ') || 'nothing'}`;
     const layer = layered ? ` · layer ${r.layer}` : '';

@@ -46,7 +46,7 @@ export function clothSources(draft: Draft): ClothSources {
 }
 
 /** Fills an RGB image from a colour per cell given as an index into a list of '#rrggbb'. */
-function fromIndices(width: number, height: number, colours: readonly string[], indexAt: (end: number, pick: number) => number): CellImage {
+export function fromIndices(width: number, height: number, colours: readonly string[], indexAt: (end: number, pick: number) => number): CellImage {
   const table = colours.map(hexToRgb);
   const rgb = new Uint8Array(width * height * 3);
   for (let p = 0; p < height; p++) {

@@ -5,16 +5,20 @@ import { resourceRole, siteAccess } from '../middleware/access';
 import { validationError } from '../middleware/errors';
 import { createLimiters } from '../middleware/rate-limit';
 import { authRoutes } from './auth';
+import { collaborationRoutes } from './collaboration';
 import { devRoutes } from './dev';
 import { draftRoutes } from './drafts';
+import { exportRoutes } from './exports';
+import { planRoutes } from './plans';
 import type { RouteSpec } from './route';
 import { studioRoutes } from './studios';
+import { yarnRoutes } from './yarns';
 
 /**
  * Every API route with the role it needs. The access matrix test walks this list, so a route added
  * here is tested for every role, and a route not added here does not exist.
  */
-export const routeTable: readonly RouteSpec[] = [...authRoutes, ...studioRoutes, ...draftRoutes, ...devRoutes];
+export const routeTable: readonly RouteSpec[] = [...authRoutes, ...studioRoutes, ...draftRoutes, ...collaborationRoutes, ...yarnRoutes, ...planRoutes, ...exportRoutes, ...devRoutes];
 
 function parse(schema: z.ZodType | undefined, value: unknown): unknown {
   if (!schema) return undefined;
@@ -34,6 +38,7 @@ export function apiRouter(app: AppContext): Router {
     const chain: RequestHandler[] = [];
     if (spec.limiter) chain.push(limiters[spec.limiter]);
     chain.push(siteAccess(spec, app));
+    if (spec.upload) chain.push(spec.upload);
     chain.push(async (req, res) => {
       const params = parse(spec.params, req.params) as { id?: number; userId?: number } | undefined;
       const query = parse(spec.query, req.query);

@@ -1,4 +1,4 @@
-import type { Request, Response } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import type { z } from 'zod';
 import type { StudioRole } from '../../shared/api/auth';
 import type { AppContext } from '../context';
@@ -23,13 +23,15 @@ export interface Ctx<B, Q, P> {
 export type Handler<B = unknown, Q = unknown, P = unknown> = (ctx: Ctx<B, Q, P>) => Promise<void>;
 
 export interface RouteSpec {
-  method: 'get' | 'post' | 'patch' | 'delete';
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   path: string;
   minimumRole: MinimumRole;
   /** What `:id` names, for studio roles. */
   resource?: 'studio' | 'draft';
   /** A member acting on their own `:userId` (leaving a studio) needs only 'viewer'. */
   allowSelf?: boolean;
+  /** Reads a multipart file (after the sign-in check, before validation); see middleware/upload. */
+  upload?: RequestHandler;
   /** Rate-limited routes share a counter per limiter and client address. */
   limiter?: 'signIn' | 'passwordReset';
   body?: z.ZodType;

@@ -3,25 +3,26 @@ import type { StudioRole } from '../../shared/api/auth';
 import type { DraftDetail, DraftListQuery, DraftListResponse, DraftSummary } from '../../shared/api/drafts';
 import type { Draft } from '../../shared/weave/types';
 import { notFound } from '../middleware/errors';
-import type { DraftAttributes, DraftRow } from '../models/draft';
+import type { DraftRow } from '../models/draft';
 import type { Models } from '../models';
+import { derivedColumns } from './draft-derived';
 
-/** The small columns kept beside the document so the library can filter and sort without parsing it. */
-export function draftStats(draft: Draft): Pick<DraftAttributes, 'ends' | 'picks' | 'shafts' | 'colors'> {
-  const picks = draft.control === 'liftplan' ? draft.liftplan.length : draft.treadling.length;
-  return {
-    ends: draft.threading.length,
-    picks,
-    shafts: draft.shafts,
-    colors: new Set([...draft.warpColors, ...draft.weftColors]).size,
-  };
-}
+export { draftStats } from './draft-derived';
 
 /** Saves a new draft with its first version, both in one transaction. */
 export async function createDraft(
   models: Models,
-  input: { ownerId: number; studioId: number | null; document: Draft; tags: string[]; message?: string },
+  input: {
+    ownerId: number;
+    studioId: number | null;
+    document: Draft;
+    tags: string[];
+    message?: string;
+    /** Set when the draft is a fork. */
+    parent?: { draftId: number; version: number };
+  },
 ): Promise<DraftRow> {
+  const derived = derivedColumns(input.document);
   return models.Draft.sequelize!.transaction(async (transaction) => {
     const row = await models.Draft.create({
       ownerId: input.ownerId,
@@ -30,7 +31,9 @@ export async function createDraft(
       document: input.document,
       tags: input.tags,
       version: 1,
-      ...draftStats(input.document),
+      parentDraftId: input.parent?.draftId ?? null,
+      parentVersion: input.parent?.version ?? null,
+      ...derived,
     }, { transaction });
     await models.DraftVersion.create({
       draftId: row.id, version: 1, authorId: input.ownerId, message: input.message ?? 'First version', document: input.document,
@@ -44,7 +47,16 @@ async function memberStudioIds(models: Models, userId: number): Promise<number[]
   return rows.map((r) => r.studioId);
 }
 
-function summary(row: DraftRow): DraftSummary {
+/** The condition for drafts a user can see: their own, and those of their studios. */
+export async function visibleDraftsWhere(models: Models, userId: number): Promise<WhereOptions> {
+  const studioIds = await memberStudioIds(models, userId);
+  return studioIds.length > 0
+    ? { [Op.or]: [{ ownerId: userId }, { studioId: { [Op.in]: studioIds } }] }
+    : { ownerId: userId };
+}
+
+/** The library's view of a draft row (loaded without its document and thumbnail bytes). */
+export function summary(row: DraftRow): DraftSummary {
   return {
     id: row.id,
     name: row.name,
@@ -56,41 +68,48 @@ function summary(row: DraftRow): DraftSummary {
     shafts: row.shafts,
     colors: row.colors,
     tags: row.tags,
+    structure: row.structure ?? [],
     version: row.version,
     updatedAt: row.updatedAt.toISOString(),
-    thumbnailUrl: null,
+    // The version in the address lets browsers cache each thumbnail for good.
+    thumbnailUrl: row.ends > 0 && row.picks > 0 ? `/api/drafts/${row.id}/thumbnail.png?v=${row.version}` : null,
   };
 }
+
+/** Columns a list or a role check never needs. */
+export const LARGE_COLUMNS = ['document', 'thumbnail'];
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /** The drafts a user owns or sees through a studio, filtered, sorted and paged. */
 export async function listDrafts(models: Models, userId: number, query: DraftListQuery): Promise<DraftListResponse> {
-  const studioIds = await memberStudioIds(models, userId);
-  const visible: WhereOptions = studioIds.length > 0
-    ? { [Op.or]: [{ ownerId: userId }, { studioId: { [Op.in]: studioIds } }] }
-    : { ownerId: userId };
-  const filters: WhereOptions[] = [visible];
+  const filters: WhereOptions[] = [await visibleDraftsWhere(models, userId)];
   if (query.q) filters.push({ name: { [Op.like]: `%${escapeLike(query.q)}%` } });
   if (query.shafts) filters.push({ shafts: query.shafts });
   if (query.studio) filters.push({ studioId: query.studio });
   if (query.tag) filters.push(where(fn('JSON_CONTAINS', col('Draft.tags'), JSON.stringify(query.tag)), 1));
+  if (query.structure) filters.push(where(fn('JSON_CONTAINS', col('Draft.structure'), JSON.stringify(query.structure)), 1));
 
   const dir = query.dir === 'asc' ? 'ASC' : 'DESC';
   const key = { updated: [['updatedAt', dir]], name: [['name', dir]], size: [[literal('`Draft`.`ends` * `Draft`.`picks`'), dir]] }[query.sort];
   const order = [...key, ['id', dir]] as Order;
 
-  const { rows, count } = await models.Draft.findAndCountAll({
-    where: { [Op.and]: filters },
-    attributes: { exclude: ['document'] },
-    include: [
-      { model: models.User, as: 'owner', attributes: ['name'] },
-      { model: models.Studio, as: 'studio', attributes: ['name'] },
-    ],
-    order,
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
-  });
+  const matching = { [Op.and]: filters };
+  // Counted apart from the page: the count needs no joins, and both run at once.
+  const [rows, count] = await Promise.all([
+    models.Draft.findAll({
+      where: matching,
+      attributes: { exclude: LARGE_COLUMNS },
+      include: [
+        { model: models.User, as: 'owner', attributes: ['name'] },
+        { model: models.Studio, as: 'studio', attributes: ['name'] },
+      ],
+      order,
+      limit: query.pageSize,
+      offset: (query.page - 1) * query.pageSize,
+    }),
+    models.Draft.count({ where: matching }),
+  ]);
   return { items: rows.map(summary), total: count, page: query.page, pageSize: query.pageSize };
 }
 
@@ -110,6 +129,7 @@ export async function draftRole(models: Models, userId: number, draftId: number)
 /** One draft with its document, for a user whose role the access check already found. */
 export async function draftDetail(models: Models, draftId: number, role: StudioRole): Promise<DraftDetail> {
   const row = await models.Draft.findByPk(draftId, {
+    attributes: { exclude: ['thumbnail'] },
     include: [
       { model: models.User, as: 'owner', attributes: ['name'] },
       { model: models.Studio, as: 'studio', attributes: ['name'] },

@@ -9,6 +9,8 @@ const positiveInt = z.coerce.number().int().positive();
 export const draftListQuerySchema = z.object({
   q: z.string().trim().max(100).optional(),
   tag: z.string().trim().max(50).optional(),
+  /** A structure the server found in the draft (STRUCTURE_TAGS), e.g. "twill". */
+  structure: z.string().trim().max(50).optional(),
   shafts: positiveInt.max(32).optional(),
   studio: positiveInt.optional(),
   sort: z.enum(draftSorts).default('updated'),
@@ -29,6 +31,8 @@ export const draftSummarySchema = z.object({
   shafts: z.number().int(),
   colors: z.number().int(),
   tags: z.array(z.string()),
+  /** Computed from the document when saved (plain weave, twill, double weave, …); the weaver's own words are in `tags`. */
+  structure: z.array(z.string()),
   version: z.number().int(),
   updatedAt: z.string(),
   thumbnailUrl: z.string().nullable(),
@@ -47,3 +51,37 @@ export type DraftListResponse = z.infer<typeof draftListResponseSchema>;
 export const draftDetailSchema = draftSummarySchema.extend({ document: z.unknown(), role: studioRoleSchema });
 export type DraftDetail = z.infer<typeof draftDetailSchema>;
 export const draftDetailResponseSchema = z.object({ draft: draftDetailSchema });
+
+const draftName = z.string().trim().min(1).max(200);
+const tagList = z.array(z.string().trim().min(1).max(50)).max(20);
+
+/** POST /api/drafts: a new draft, empty unless a document is given; personal unless a studio is named. */
+export const createDraftBodySchema = z.object({
+  name: draftName,
+  document: z.unknown().optional(),
+  studioId: z.number().int().positive().optional(),
+  tags: tagList.optional(),
+});
+export type CreateDraftBody = z.infer<typeof createDraftBodySchema>;
+export const draftCreatedResponseSchema = z.object({ draft: draftSummarySchema });
+
+/** PATCH /api/drafts/:id: rename and retag (no new version: the document is unchanged). */
+export const updateDraftBodySchema = z.object({ name: draftName.optional(), tags: tagList.optional() })
+  .refine((b) => b.name !== undefined || b.tags !== undefined, { error: 'Give a name or tags' });
+export type UpdateDraftBody = z.infer<typeof updateDraftBodySchema>;
+
+/** PUT /api/drafts/:id: save the document as a new version on top of `baseVersion`. */
+export const saveDraftBodySchema = z.object({
+  document: z.unknown(),
+  baseVersion: z.number().int().positive(),
+  message: z.string().trim().max(500).optional(),
+});
+export type SaveDraftBody = z.infer<typeof saveDraftBodySchema>;
+export const saveDraftResponseSchema = z.object({ version: z.number().int() });
+
+/** The 409 answer to a save based on an old version: what the server holds now. */
+export const saveConflictSchema = z.object({
+  error: z.object({ code: z.literal('conflict'), message: z.string() }),
+  current: z.object({ version: z.number().int(), document: z.unknown() }),
+});
+export type SaveConflict = z.infer<typeof saveConflictSchema>;

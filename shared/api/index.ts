@@ -3,3 +3,8 @@ export * from './auth';
 export * from './studios';
 export * from './drafts';
 export * from './dev';
+export * from './history';
+export * from './sharing';
+export * from './comments';
+export * from './photos';
+export * from './yarns';

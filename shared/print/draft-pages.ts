@@ -10,7 +10,7 @@ import {
   type DraftTileLayout,
   type ViewTileLayout,
 } from './draft-layout';
-import { splitGrid, type Tile } from './page-split';
+import { splitGrid, type Span, type Tile } from './page-split';
 import type { DraftArrangement, Rect, Size } from './types';
 
 /** Cloth views printed after the draft itself, each as a plain grid. */
@@ -45,6 +45,19 @@ export interface DraftPagesInput {
   views: readonly PrintView[];
   legendRows: number;
   overlap?: number;
+  /**
+   * A view that would need more sheets than this prints only its first sheet (end 1 and pick 1
+   * onwards). The draft sheets always carry every end and pick; the views repeat them.
+   */
+  maxViewSheets?: number;
+}
+
+/** What a view printed when it was cut to its first sheet. */
+export interface ViewCut {
+  ends: Span;
+  picks: Span;
+  /** Sheets the whole view would have needed. */
+  fullSheets: number;
 }
 
 export interface DraftPages {
@@ -53,6 +66,8 @@ export interface DraftPages {
   /** Area inside the margins and below the head, shared by every draft page. */
   body: Rect;
   pages: PrintPage[];
+  /** Set when the views were cut to their first sheet (see `maxViewSheets`). */
+  viewCut?: ViewCut;
 }
 
 /**
@@ -70,13 +85,14 @@ export function planDraftPages(input: DraftPagesInput): DraftPages {
     width: input.page.width - 2 * PAGE_MARGIN,
     height: input.page.height - 2 * PAGE_MARGIN - HEAD_HEIGHT,
   };
-  const cell = chooseCellSize((c) => layoutAt(input, body, c)?.length ?? Number.POSITIVE_INFINITY);
-  const pages = layoutAt(input, body, cell);
-  if (!pages) throw new RangeError('the draft does not fit on this paper even at the smallest cell size');
-  return { cell, body, pages };
+  // Candidate sizes only need counting; placing every part is left to the chosen one.
+  const cell = chooseCellSize((c) => layoutAt(input, body, c, true)?.pages.length ?? Number.POSITIVE_INFINITY);
+  const laid = layoutAt(input, body, cell, false);
+  if (!laid) throw new RangeError('the draft does not fit on this paper even at the smallest cell size');
+  return { cell, body, ...laid };
 }
 
-function layoutAt(input: DraftPagesInput, body: Rect, cell: number): PrintPage[] | null {
+function layoutAt(input: DraftPagesInput, body: Rect, cell: number, countOnly: boolean): { pages: PrintPage[]; viewCut?: ViewCut } | null {
   const overlap = input.overlap ?? PAGE_OVERLAP;
   const { shape, arrangement } = input;
   const cap = draftCapacity(body.width, body.height, shape, cell);
@@ -118,19 +134,27 @@ function layoutAt(input: DraftPagesInput, body: Rect, cell: number): PrintPage[]
     const cols = tile.cols.end - tile.cols.start;
     const rows = tile.rows.end - tile.rows.start;
     const at = place(draftTileSize(shape, cols, rows, cell), true);
+    if (countOnly) continue;
     const layout = placeDraftTile(at.x, at.y, shape, cols, rows, cell, arrangement);
     last().parts.push({ kind: 'draft', tile, across: split.across, down: split.down, layout });
   }
   // Nothing shares a row with the draft: the next block starts below it.
   newRow();
 
+  let viewCut: ViewCut | undefined;
   for (const view of input.views) {
-    const vsplit = splitGrid(shape.ends, shape.picks, vcap.cols, vcap.rows, overlap);
+    let vsplit = splitGrid(shape.ends, shape.picks, vcap.cols, vcap.rows, overlap);
+    if (input.maxViewSheets !== undefined && vsplit.tiles.length > input.maxViewSheets) {
+      const first = vsplit.tiles[0];
+      viewCut = { ends: first.cols, picks: first.rows, fullSheets: vsplit.tiles.length };
+      vsplit = { across: 1, down: 1, tiles: [first] };
+    }
     const own = vsplit.tiles.length > 1;
     for (const tile of vsplit.tiles) {
       const cols = tile.cols.end - tile.cols.start;
       const rows = tile.rows.end - tile.rows.start;
       const at = place(viewTileSize(cols, rows, cell), own);
+      if (countOnly) continue;
       // The back is seen turned over, so its ends run the other way across the page.
       const seen = view === 'back' ? { ...arrangement, treadlingRight: !arrangement.treadlingRight } : arrangement;
       const layout = placeViewTile(at.x, at.y, cols, rows, cell, seen);
@@ -153,5 +177,5 @@ function layoutAt(input: DraftPagesInput, body: Rect, cell: number): PrintPage[]
     y += height + BLOCK_GAP;
     first += count;
   }
-  return pages;
+  return { pages, viewCut };
 }

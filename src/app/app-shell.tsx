@@ -7,6 +7,7 @@ import type { SessionUser } from '../types/api';
 
 const navItems = [
   { to: '/drafts', label: 'Drafts' },
+  { to: '/yarns', label: 'Yarns' },
   { to: '/studios', label: 'Studios' },
   { to: '/account', label: 'Account' },
 ];

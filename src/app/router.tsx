@@ -19,12 +19,18 @@ export function createRoutes(): RouteObject[] {
         { path: '/forgot', lazy: { Component: async () => (await import('./routes/forgot')).ForgotRoute } },
         { path: '/reset', lazy: { Component: async () => (await import('./routes/reset')).ResetRoute } },
         { path: '/admin/mails', lazy: { Component: async () => (await import('./routes/admin-mails')).AdminMailsRoute } },
+        { path: '/shared/:token', lazy: { Component: async () => (await import('./routes/shared')).SharedRoute } },
         {
           lazy: { Component: async () => (await import('./routes/app-layout')).AppLayout },
           children: [
             { index: true, element: <Navigate to="/drafts" replace /> },
             { path: '/drafts', lazy: { Component: async () => (await import('./routes/drafts')).DraftsRoute } },
             { path: '/drafts/:id', lazy: { Component: async () => (await import('./routes/draft')).DraftRoute } },
+            { path: '/drafts/:id/plan', lazy: { Component: async () => (await import('./routes/plan')).PlanRoute } },
+            { path: '/drafts/:id/loom', lazy: { Component: async () => (await import('./routes/loom')).LoomRoute } },
+            { path: '/drafts/:id/history', lazy: { Component: async () => (await import('./routes/history')).HistoryRoute } },
+            { path: '/yarns', lazy: { Component: async () => (await import('./routes/yarns')).YarnsRoute } },
+            { path: '/join', lazy: { Component: async () => (await import('./routes/join')).JoinRoute } },
             { path: '/studios', lazy: { Component: async () => (await import('./routes/studios')).StudiosRoute } },
             { path: '/studios/:id', lazy: { Component: async () => (await import('./routes/studio')).StudioRoute } },
             { path: '/account', lazy: { Component: async () => (await import('./routes/account')).AccountRoute } },

@@ -27,3 +27,25 @@ export function checkerboard(ends: number, picks: number, overrides: Partial<Dra
     ...overrides,
   });
 }
+
+/** An invented 8-shaft point twill with colour stripes every 40 ends and picks, `n` ends and picks: the big print of the benchmark. */
+export function bigPointTwill(n: number): Draft {
+  const point = [1, 2, 3, 4, 5, 6, 7, 8, 7, 6, 5, 4, 3, 2];
+  return createDraft({
+    name: 'Big point twill',
+    shafts: 8,
+    treadles: 8,
+    threading: Array.from({ length: n }, (_, i) => [point[i % point.length]]),
+    // 2/2/1/3 style twill tie-up: each treadle lifts a run of shafts stepping by one.
+    tieup: Array.from({ length: 8 }, (_, t) => [0, 1, 3, 4].map((k) => ((t + k) % 8) + 1)),
+    treadling: Array.from({ length: n }, (_, i) => [point[i % point.length]]),
+    palette: ['#2d3a5c', '#e9e2cf', '#a6452f'],
+    warpColors: Array.from({ length: n }, (_, i) => (Math.floor(i / 40) % 2 === 0 ? 0 : 2)),
+    weftColors: Array.from({ length: n }, (_, i) => (Math.floor(i / 40) % 2 === 0 ? 1 : 0)),
+    yarns: [
+      { id: 'a', name: 'Slate 8/2 cotton', color: 0 },
+      { id: 'b', name: 'Linen white 16/2', color: 1 },
+      { id: 'c', name: 'Brick 8/2 cotton', color: 2 },
+    ],
+  });
+}

@@ -1,11 +1,22 @@
 import { createHash, randomBytes } from 'node:crypto';
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { roleRank, type StudioRole } from '../../shared/api/auth';
+import { defaultPlan } from '../../shared/plan/plan-schema';
 import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import type { UserRow } from '../../server/models';
 import { routeTable } from '../../server/routes';
 import type { RouteSpec } from '../../server/routes/route';
 import { createDraft } from '../../server/services/drafts';
+import { addComment } from '../../server/services/comments';
+import { addPhoto } from '../../server/services/photos';
+import { createShareLink } from '../../server/services/sharing';
+import { tokenHash } from '../../server/services/tokens';
+import { createYarn } from '../../server/services/yarns';
+import { toWif } from '../../shared/weave';
+import { encodePngRgb } from '../../server/print/png';
 import { createStudio } from '../../server/services/studios';
 import { startTestServer, TEST_PASSWORD, type TestClient, type TestServer } from '../helpers/server';
 import { uniqueEmail } from '../helpers/test-db';
@@ -24,8 +35,11 @@ interface Fixture {
   targetId: number;
 }
 interface Case {
-  path: (f: Fixture) => string;
-  body?: () => Promise<unknown> | unknown;
+  /** The caller is passed for routes on things a user owns (their comment, their yarn). */
+  path: (f: Fixture, caller: Caller) => string | Promise<string>;
+  body?: (f: Fixture) => Promise<unknown> | unknown;
+  /** A file sent as multipart field "file" instead of a JSON body. */
+  upload?: () => { bytes: Buffer; name: string };
   success: number;
   /** Changes the studio (needs its own), or the session (needs its own signed-in client). */
   changes?: 'studio' | 'session';
@@ -75,7 +89,111 @@ const cases: Record<string, Case> = {
   },
   'GET /api/drafts': { path: () => '/api/drafts', success: 200 },
   'GET /api/drafts/:id': { path: (f) => `/api/drafts/${f.draftId}`, success: 200 },
+  'GET /api/drafts/:id/plan': { path: (f) => `/api/drafts/${f.draftId}/plan`, success: 200 },
+  'PUT /api/drafts/:id/plan': { path: (f) => `/api/drafts/${f.draftId}/plan`, body: () => defaultPlan('cm'), success: 200 },
+  'GET /api/drafts/:id/progress': { path: (f) => `/api/drafts/${f.draftId}/progress`, success: 200 },
+  'PUT /api/drafts/:id/progress': {
+    path: (f) => `/api/drafts/${f.draftId}/progress`,
+    body: () => ({ list: 'threading', position: 3, settings: { side: 'back', direction: 'right-to-left', shaftNumbering: 'near' } }),
+    success: 200,
+  },
+  'GET /api/drafts/:id/results': { path: (f) => `/api/drafts/${f.draftId}/results`, success: 200 },
+  'POST /api/drafts/:id/results': {
+    path: (f) => `/api/drafts/${f.draftId}/results`,
+    body: () => ({ unit: 'inch', widthInReed: 20, lengthOnLoom: 100, widthOffLoom: 18, lengthOffLoom: 90 }),
+    success: 201,
+  },
+  'GET /api/me/plan-defaults': { path: () => '/api/me/plan-defaults', success: 200 },
 };
+
+// Drafts service: things the cases act on that belong to one caller, made on demand.
+const tinyPng = () => encodePngRgb(1, 1, Uint8Array.of(200, 100, 50));
+const ownerOf = (caller: Caller) => people[caller === 'signed out' ? 'owner' : caller];
+/** Members comment as themselves; callers who cannot see the draft try to delete the owner's comment. */
+async function commentPath(f: Fixture, caller: Caller): Promise<string> {
+  const author = caller === 'viewer' || caller === 'editor' ? people[caller] : people.owner;
+  const comment = await addComment(server.ctx.models, f.draftId, author.id, { text: 'A question about pick 3' });
+  return `/api/drafts/${f.draftId}/comments/${comment.id}`;
+}
+async function yarnPath(_f: Fixture, caller: Caller): Promise<string> {
+  const yarn = await createYarn(server.ctx.models, ownerOf(caller).id, { name: 'Matrix wool', fibre: 'wool', colour: '#336699', count: '2/8', yardsPerPound: null });
+  return `/api/yarns/${yarn.id}`;
+}
+const photoIds = new Map<number, number>();
+async function photoPath(f: Fixture): Promise<string> {
+  if (!photoIds.has(f.draftId)) {
+    const photo = await addPhoto(server.ctx.models, server.ctx.storage, f.draftId, 1, people.owner.id, tinyPng());
+    photoIds.set(f.draftId, photo.id);
+  }
+  return `/api/drafts/${f.draftId}/photos/${photoIds.get(f.draftId)}`;
+}
+/** To a studio of its own: accepting must not make the matrix's non-member a member of the shared one. */
+async function inviteToken(): Promise<string> {
+  const token = randomBytes(32).toString('base64url');
+  const studio = await createStudio(server.ctx.models, people.owner.id, 'Invitation studio');
+  await server.ctx.models.Invitation.create({
+    studioId: studio.id, invitedById: people.owner.id, email: uniqueEmail('invited'), role: 'viewer',
+    tokenHash: tokenHash(token), expiresAt: new Date(Date.now() + 60_000),
+  });
+  return token;
+}
+async function sendFile(client: TestClient, path: string, file: { bytes: Buffer; name: string }) {
+  return client.agent.post(path).set('x-csrf-token', await client.csrf()).attach('file', file.bytes, file.name);
+}
+
+const draftsServiceCases: Record<string, Case> = {
+  'POST /api/drafts': { path: () => '/api/drafts', body: () => ({ name: 'Matrix draft' }), success: 201 },
+  'POST /api/drafts/import-wif': {
+    path: () => '/api/drafts/import-wif', upload: () => ({ bytes: Buffer.from(toWif(pointTwillScarf())), name: 'scarf.wif' }), success: 201,
+  },
+  'PUT /api/drafts/:id': {
+    path: (f) => `/api/drafts/${f.draftId}`, body: () => ({ document: pointTwillScarf(), baseVersion: 1 }), success: 200, changes: 'studio',
+  },
+  'PATCH /api/drafts/:id': { path: (f) => `/api/drafts/${f.draftId}`, body: () => ({ tags: ['matrix'] }), success: 200 },
+  'DELETE /api/drafts/:id': { path: (f) => `/api/drafts/${f.draftId}`, success: 204, changes: 'studio' },
+  'GET /api/drafts/:id/thumbnail.png': { path: (f) => `/api/drafts/${f.draftId}/thumbnail.png?v=1`, success: 200 },
+  'GET /api/drafts/:id/versions': { path: (f) => `/api/drafts/${f.draftId}/versions`, success: 200 },
+  'GET /api/drafts/:id/versions/:n': { path: (f) => `/api/drafts/${f.draftId}/versions/1`, success: 200 },
+  'POST /api/drafts/:id/versions/:n/restore': { path: (f) => `/api/drafts/${f.draftId}/versions/1/restore`, success: 200 },
+  'GET /api/drafts/:id/compare': { path: (f) => `/api/drafts/${f.draftId}/compare?a=1&b=1`, success: 200 },
+  'GET /api/drafts/:id/compare.png': { path: (f) => `/api/drafts/${f.draftId}/compare.png?a=1&b=1`, success: 200 },
+  'POST /api/drafts/:id/fork': { path: (f) => `/api/drafts/${f.draftId}/fork`, body: () => ({ name: 'Matrix colourway' }), success: 201 },
+  'GET /api/drafts/:id/lineage': { path: (f) => `/api/drafts/${f.draftId}/lineage`, success: 200 },
+  'GET /api/drafts/:id/export.wif': { path: (f) => `/api/drafts/${f.draftId}/export.wif`, success: 200 },
+  'GET /api/drafts/:id/export.json': { path: (f) => `/api/drafts/${f.draftId}/export.json?version=1`, success: 200 },
+  'GET /api/drafts/:id/share': { path: (f) => `/api/drafts/${f.draftId}/share`, success: 200 },
+  'POST /api/drafts/:id/share': { path: (f) => `/api/drafts/${f.draftId}/share`, success: 201 },
+  'DELETE /api/drafts/:id/share': { path: (f) => `/api/drafts/${f.draftId}/share`, success: 200 },
+  'GET /api/shared/:token': {
+    path: async (f) => `/api/shared/${(await createShareLink(server.ctx.models, f.draftId, people.owner.id, 'http://x')).token}`, success: 200,
+  },
+  'POST /api/studios/:id/invitations': {
+    path: (f) => `/api/studios/${f.studioId}/invitations`, body: () => ({ email: uniqueEmail('invitee'), role: 'viewer' }), success: 201,
+  },
+  'POST /api/invitations/accept': { path: () => '/api/invitations/accept', body: async () => ({ token: await inviteToken() }), success: 200 },
+  'GET /api/drafts/:id/comments': { path: (f) => `/api/drafts/${f.draftId}/comments`, success: 200 },
+  'POST /api/drafts/:id/comments': { path: (f) => `/api/drafts/${f.draftId}/comments`, body: () => ({ text: 'Lovely', end: 3 }), success: 201 },
+  'DELETE /api/drafts/:id/comments/:commentId': { path: commentPath, success: 204 },
+  'GET /api/drafts/:id/photos': { path: (f) => `/api/drafts/${f.draftId}/photos`, success: 200 },
+  'POST /api/drafts/:id/versions/:n/photos': {
+    path: (f) => `/api/drafts/${f.draftId}/versions/1/photos`, upload: () => ({ bytes: tinyPng(), name: 'cloth.png' }), success: 201,
+  },
+  'GET /api/drafts/:id/photos/:photoId': { path: photoPath, success: 200 },
+  'GET /api/yarns': { path: () => '/api/yarns', success: 200 },
+  'POST /api/yarns': { path: () => '/api/yarns', body: () => ({ name: 'Linen', colour: '#eeddcc' }), success: 201 },
+  'PATCH /api/yarns/:id': { path: yarnPath, body: () => ({ name: 'Renamed wool' }), success: 200 },
+  'DELETE /api/yarns/:id': { path: yarnPath, success: 204 },
+};
+Object.assign(cases, draftsServiceCases);
+
+// Printed drafts and pictures (server/routes/exports.ts).
+const shareToken = async (f: Fixture) => (await createShareLink(server.ctx.models, f.draftId, people.owner.id, 'http://x')).token;
+Object.assign(cases, {
+  'GET /api/drafts/:id/print.pdf': { path: (f) => `/api/drafts/${f.draftId}/print.pdf?paper=letter&lists=threading`, success: 200 },
+  'GET /api/drafts/:id/drawdown.png': { path: (f) => `/api/drafts/${f.draftId}/drawdown.png?view=structure&scale=2`, success: 200 },
+  'GET /api/shared/:token/print.pdf': { path: async (f) => `/api/shared/${await shareToken(f)}/print.pdf?lists=`, success: 200 },
+  'GET /api/shared/:token/drawdown.png': { path: async (f) => `/api/shared/${await shareToken(f)}/drawdown.png?scale=1`, success: 200 },
+} satisfies Record<string, Case>);
 
 const keyOf = (spec: RouteSpec) => `${spec.method.toUpperCase()} ${spec.path}`;
 
@@ -114,7 +232,7 @@ let sharedFixture: Fixture;
 const sharedClients = new Map<Caller, TestClient>();
 
 beforeAll(async () => {
-  server = await startTestServer();
+  server = await startTestServer({ attachmentsDir: mkdtempSync(join(tmpdir(), 'shedwright-matrix-')) });
   people.owner = await server.createUser({ name: 'Matrix owner' });
   people.editor = await server.createUser({ name: 'Matrix editor' });
   people.viewer = await server.createUser({ name: 'Matrix viewer' });
@@ -139,8 +257,9 @@ describe('access matrix', () => {
     expect(c, `a case for ${keyOf(spec)}`).toBeDefined();
     const fixture = c.changes === 'studio' ? await createFixture() : sharedFixture;
     const client = c.changes === 'session' ? await signedInClient(caller) : sharedClients.get(caller)!;
-    const body = c.body ? await c.body() : undefined;
-    const res = await client.send(spec.method, c.path(fixture), body);
+    const body = c.body ? await c.body(fixture) : undefined;
+    const path = await c.path(fixture, caller);
+    const res = c.upload ? await sendFile(client, path, c.upload()) : await client.send(spec.method, path, body);
     const expected = expectedStatus(spec, caller, c.success);
     expect(res.status, `${keyOf(spec)} as ${caller}: ${JSON.stringify(res.body)}`).toBe(expected);
     if (expected >= 400) expect(res.body.error?.code).toBeTypeOf('string');

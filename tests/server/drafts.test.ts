@@ -38,7 +38,7 @@ describe('drafts visibility', () => {
     expect(list.items.map((d) => d.id).sort()).toEqual([s.studioDraft.id, s.ownDraft.id].sort());
     expect(list.total).toBe(2);
     const studioItem = list.items.find((d) => d.id === s.studioDraft.id)!;
-    expect(studioItem).toMatchObject({ name: 'Point twill scarf', studioId: s.studioId, studioName: 'Test studio', ends: 60, picks: 60, shafts: 4, version: 1, thumbnailUrl: null });
+    expect(studioItem).toMatchObject({ name: 'Point twill scarf', studioId: s.studioId, studioName: 'Test studio', ends: 60, picks: 60, shafts: 4, version: 1, thumbnailUrl: `/api/drafts/${s.studioDraft.id}/thumbnail.png?v=1` });
     expect((await s.viewer.get(`/api/drafts/${s.privateOfOwner.id}`)).status).toBe(404);
   });
 

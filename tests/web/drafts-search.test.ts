@@ -4,6 +4,8 @@ import {
   DEFAULT_DRAFTS_SEARCH,
   DRAFT_SORTS,
   draftsSearchToParams,
+  MAX_SHAFTS,
+  STRUCTURES,
   MAX_QUERY_LENGTH,
   NATURAL_DIRECTION,
   PAGE_SIZES,
@@ -19,6 +21,9 @@ const searchArb: fc.Arbitrary<DraftsSearch> = fc.record({
   dir: fc.constantFrom('asc' as const, 'desc' as const),
   page: fc.integer({ min: 1, max: 100_000 }),
   pageSize: fc.constantFrom(...PAGE_SIZES),
+  shafts: fc.option(fc.integer({ min: 1, max: MAX_SHAFTS }), { nil: undefined }),
+  structure: fc.constantFrom('', ...STRUCTURES),
+  studio: fc.option(fc.integer({ min: 1, max: 2 ** 31 - 1 }), { nil: undefined }),
 });
 
 describe('drafts list state in the URL', () => {
@@ -34,7 +39,7 @@ describe('drafts list state in the URL', () => {
   });
 
   it('falls back to defaults for nonsense', () => {
-    const search = parseDraftsSearch(new URLSearchParams('sort=colour&dir=up&page=-3&pageSize=7'));
+    const search = parseDraftsSearch(new URLSearchParams('sort=colour&dir=up&page=-3&pageSize=7&shafts=33&structure=satin&studio=0'));
     expect(search).toEqual(DEFAULT_DRAFTS_SEARCH);
     expect(parseDraftsSearch(new URLSearchParams('page=2.5')).page).toBe(1);
   });

@@ -9,6 +9,10 @@ describe('draft page', () => {
     mockApi({
       'GET /api/session': { body: { user: sessionUser() } },
       'GET /api/drafts/7': { body: { draft: draftDetail({ id: 7, name: 'Two-block table mat', ends: 240, picks: 300, shafts: 8, role: 'viewer', studioName: 'Mill Lane Studio' }) } },
+      // The Drafts service's parts of the page: yarns for a new colourway, lineage, comments.
+      'GET /api/yarns': { body: { yarns: [] } },
+      'GET /api/drafts/7/lineage': { body: { draft: { id: 7, name: 'Two-block table mat', ownerName: 'Wren Hollis', parentVersion: null }, ancestors: [], hiddenAncestors: 0, children: [] } },
+      'GET /api/drafts/7/comments': { body: { comments: [] } },
     });
     renderApp('/drafts/7');
     expect(await screen.findByRole('heading', { level: 1, name: 'Two-block table mat' })).toBeTruthy();

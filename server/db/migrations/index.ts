@@ -1,6 +1,8 @@
 import type { QueryInterface } from 'sequelize';
 import type { RunnableMigration } from 'umzug';
 import * as initial from './0001-initial';
+import * as plansAndProgress from './0002-plans-and-progress';
+import * as draftsService from './0003-drafts-service';
 
 /**
  * Every migration, oldest first. Listed by hand rather than globbed so the list is type-checked and
@@ -8,4 +10,6 @@ import * as initial from './0001-initial';
  */
 export const migrations: RunnableMigration<QueryInterface>[] = [
   { name: '0001-initial', ...initial },
+  { name: '0002-plans-and-progress', ...plansAndProgress },
+  { name: '0003-drafts-service', ...draftsService },
 ];

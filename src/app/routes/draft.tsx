@@ -1,7 +1,9 @@
 import { Link, useParams } from 'react-router-dom';
 import { DraftOverview } from '../../features/library/components/draft-overview';
+import { DraftPrintSection } from '../../features/print/components/draft-print-section';
 import { parseId } from '../parse-id';
 import { DraftEditorRegion } from './draft-editor-region';
+import { DraftExtras } from './draft-extras';
 import { NotFound } from './not-found';
 
 export function DraftRoute() {
@@ -15,6 +17,8 @@ export function DraftRoute() {
         <Link to={`/drafts/${id}/loom`}>At the loom</Link>
       </nav>
       <DraftOverview key={id} draftId={id} editor={(draft) => <DraftEditorRegion draft={draft} />} />
+      <DraftExtras key={`extras-${id}`} draftId={id} />
+      <DraftPrintSection key={`print-${id}`} draftId={id} />
     </>
   );
 }

@@ -1,6 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useNavigate, useParams } from 'react-router-dom';
 import { sessionQueryOptions, useSignedInUser } from '../../features/auth/api/get-session';
+import { InviteForm } from '../../features/invitations/components/invite-form';
 import { StudioMembers } from '../../features/studio/components/studio-members';
 import { parseId } from '../parse-id';
 import { NotFound } from './not-found';
@@ -21,6 +22,7 @@ export function StudioRoute() {
     <>
       <title>Studio · Shedwright</title>
       <StudioMembers key={id} studioId={id} currentUserId={user.id} onLeft={onLeft} />
+      {user.memberships.some((m) => m.studioId === id && m.role === 'owner') && <div className="mt-6"><InviteForm studioId={id} /></div>}
     </>
   );
 }

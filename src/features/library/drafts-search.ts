@@ -5,6 +5,10 @@ export interface DraftsSearch {
   dir: SortDirection;
   page: number;
   pageSize: number;
+  /** Filters: only drafts for this many shafts, with this structure, in this studio. */
+  shafts: number | undefined;
+  structure: string;
+  studio: number | undefined;
 }
 
 // NOTE: sorts, sizes and limits repeat shared/api/drafts rather than import it, which would bring
@@ -18,7 +22,19 @@ export const PAGE_SIZES: readonly number[] = [10, 20, 50];
 /** The way each column reads best first: newest, A to Z, largest. */
 export const NATURAL_DIRECTION: Record<DraftSort, SortDirection> = { updated: 'desc', name: 'asc', size: 'desc' };
 
-export const DEFAULT_DRAFTS_SEARCH: DraftsSearch = { q: '', sort: 'updated', dir: 'desc', page: 1, pageSize: 20 };
+export const DEFAULT_DRAFTS_SEARCH: DraftsSearch = {
+  q: '', sort: 'updated', dir: 'desc', page: 1, pageSize: 20, shafts: undefined, structure: '', studio: undefined,
+};
+
+/** Structures the server tags drafts with (server/services/draft-derived STRUCTURE_TAGS). */
+export const STRUCTURES: readonly string[] = ['plain weave', 'twill', 'double weave', 'block weave'];
+export const MAX_SHAFTS = 32;
+
+// Undefined, not null, for "no filter": the list query leaves undefined out, as the server expects.
+const positiveInt = (text: string | null, max = 2 ** 31 - 1): number | undefined => {
+  const n = Number(text);
+  return text !== null && Number.isSafeInteger(n) && n >= 1 && n <= max ? n : undefined;
+};
 
 /** The server's limit on `q` (draftListQuerySchema); a longer search would be refused with a 400. */
 export const MAX_QUERY_LENGTH = 100;
@@ -37,6 +53,9 @@ export function parseDraftsSearch(params: URLSearchParams): DraftsSearch {
     dir,
     page: Number.isSafeInteger(page) && page >= 1 ? page : DEFAULT_DRAFTS_SEARCH.page,
     pageSize: PAGE_SIZES.includes(pageSize) ? pageSize : DEFAULT_DRAFTS_SEARCH.pageSize,
+    shafts: positiveInt(params.get('shafts'), MAX_SHAFTS),
+    structure: STRUCTURES.find((s) => s === params.get('structure')) ?? '',
+    studio: positiveInt(params.get('studio')),
   };
 }
 
@@ -48,6 +67,9 @@ export function draftsSearchToParams(search: DraftsSearch): URLSearchParams {
   if (search.dir !== NATURAL_DIRECTION[search.sort]) params.set('dir', search.dir);
   if (search.page !== DEFAULT_DRAFTS_SEARCH.page) params.set('page', String(search.page));
   if (search.pageSize !== DEFAULT_DRAFTS_SEARCH.pageSize) params.set('pageSize', String(search.pageSize));
+  if (search.shafts !== undefined) params.set('shafts', String(search.shafts));
+  if (search.structure) params.set('structure', search.structure);
+  if (search.studio !== undefined) params.set('studio', String(search.studio));
   return params;
 }
 

@@ -117,6 +117,51 @@ describe('renderDraftPdf', () => {
     expectColour(img.at(Math.round((w.x * dpi) / 72), Math.round((w.y * dpi) / 72)), HARBOUR);
   });
 
+  it('marks the threading, tie-up and treadling in ink where the draft says, and nowhere else', async () => {
+    // Plain weave on 2 shafts: end e on shaft (e mod 2) + 1, pick p on treadle (p mod 2) + 1, treadle t lifts shaft t.
+    const draft = checkerboard(12, 10);
+    const opts: PrintOptions = { ...options, shaftsFromBottom: false, treadlingRight: false };
+    const pdf = await renderDraftPdf({ draft, meta, options: opts, lists: [] });
+    // Grid cells are drawn as pixels that viewers must not smooth (PDF 1.7 §8.9.5.1).
+    expect(pdf.toString('latin1')).toContain('/Interpolate false');
+    const part = planFor(draft, opts).pages[0].parts[0];
+    if (part.kind !== 'draft') throw new Error('the draft comes first on page 1');
+    const dpi = 150;
+    const img = renderPage(pdf, 1, dpi);
+    const px = (x: number, y: number) => img.at(Math.round((x * dpi) / 72), Math.round((y * dpi) / 72));
+    const l = part.layout;
+    for (let e = 0; e < 12; e++) {
+      for (let s = 0; s < 2; s++) {
+        const c = cellCentre(l.threading, e, s);
+        expectColour(px(c.x, c.y), draft.threading[e].includes(s + 1) ? '#1d1d22' : '#ffffff');
+      }
+    }
+    for (let p = 0; p < 10; p++) {
+      for (let t = 0; t < 2; t++) {
+        const c = cellCentre(l.treadling, t, p);
+        expectColour(px(c.x, c.y), draft.treadling[p].includes(t + 1) ? '#1d1d22' : '#ffffff');
+      }
+    }
+    for (let t = 0; t < 2; t++) {
+      for (let s = 0; s < 2; s++) {
+        const c = cellCentre(l.tieup!, t, s);
+        expectColour(px(c.x, c.y), draft.tieup[t].includes(s + 1) ? '#1d1d22' : '#ffffff');
+      }
+    }
+  });
+
+  it('prints the cloth views of a very large draft for its first sheet only, and says so on page 1', async () => {
+    const draft = checkerboard(900, 700);
+    const pdf = await renderDraftPdf({ draft, meta, options, lists: [] });
+    const { pages } = await readBack(pdf);
+    expect(pages[0]).toMatch(/The cloth views after the draft show ends 1–\d+ and picks 1–\d+ only \(the whole cloth would take \d+ sheets each\); the draft sheets show every end and pick\./);
+    const structure = pages.filter((p) => p.includes('Drawdown in two tones'));
+    expect(structure).toHaveLength(1);
+    expect(structure[0]).toMatch(/Drawdown in two tones \(black: end up\) \(ends 1–\d+, picks 1–\d+ only\)/);
+    // Every end and pick is still on a draft sheet: the last sheet's running head names the last end and pick.
+    expect(pages.some((p) => /Draft: sheet \d+ of \d+ · ends \d+–900 · picks \d+–700/.test(p))).toBe(true);
+  });
+
   it('splits a wide and long draft into sheets that each say which ends and picks they hold', async () => {
     const draft = checkerboard(180, 150);
     const plan = planFor(draft, options);

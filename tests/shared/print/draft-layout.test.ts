@@ -110,6 +110,45 @@ describe('planDraftPages', () => {
     );
   });
 
+  it('cuts a view that needs too many sheets to its first sheet, and still gives the draft every end and pick', () => {
+    const big = fc.record({
+      ends: fc.integer({ min: 1, max: 3000 }),
+      picks: fc.integer({ min: 1, max: 3000 }),
+      shafts: fc.integer({ min: 2, max: 16 }),
+      liftPlan: fc.constant(false),
+      pickColumns: fc.integer({ min: 2, max: 16 }),
+    });
+    fc.assert(
+      fc.property(big, arrangement, fc.integer({ min: 1, max: 12 }), (sh, arr, maxViewSheets) => {
+        const input = { page: pageSize('a4', 'portrait'), shape: sh, arrangement: arr, views: ['structure', 'front'] as PrintView[], legendRows: 3 };
+        const cut = planDraftPages({ ...input, maxViewSheets });
+        const parts = cut.pages.flatMap((page) => page.parts);
+        // The draft sheets still carry every end and pick.
+        const ends = new Uint8Array(sh.ends);
+        const picks = new Uint8Array(sh.picks);
+        for (const p of parts) {
+          if (p.kind !== 'draft') continue;
+          ends.fill(1, p.tile.cols.start, p.tile.cols.end);
+          picks.fill(1, p.tile.rows.start, p.tile.rows.end);
+        }
+        expect(ends.every((v) => v === 1) && picks.every((v) => v === 1)).toBe(true);
+        const views = parts.filter((p) => p.kind === 'view');
+        if (!cut.viewCut) {
+          expect(views.length).toBeLessThanOrEqual(2 * maxViewSheets);
+          return;
+        }
+        expect(cut.viewCut.fullSheets).toBeGreaterThan(maxViewSheets);
+        expect(views).toHaveLength(2);
+        for (const v of views) {
+          if (v.kind !== 'view') continue;
+          expect(v.tile.cols).toEqual({ start: 0, end: cut.viewCut.ends.end });
+          expect(v.tile.rows).toEqual({ start: 0, end: cut.viewCut.picks.end });
+        }
+      }),
+      { numRuns: 40 },
+    );
+  });
+
   it('gives the cell centre of a known cell inside its cell', () => {
     const plan = planDraftPages({
       page: pageSize('a4', 'portrait'),

@@ -1,4 +1,5 @@
 // Invented test data with overrides (demo names are our own).
+import { emptyDraft } from '../../../shared/weave';
 import type { DraftDetail, DraftListResponse, DraftSummary, SessionUser, StudioMember } from '../../../src/types/api';
 
 export function sessionUser(overrides: Partial<SessionUser> = {}): SessionUser {
@@ -17,6 +18,7 @@ export function draftSummary(overrides: Partial<DraftSummary> = {}): DraftSummar
     shafts: 8,
     colors: 2,
     tags: ['double weave'],
+    structure: ['double weave'],
     version: 3,
     updatedAt: '2025-03-14T10:00:00.000Z',
     thumbnailUrl: null,
@@ -25,7 +27,7 @@ export function draftSummary(overrides: Partial<DraftSummary> = {}): DraftSummar
 }
 
 export function draftDetail(overrides: Partial<DraftDetail> = {}): DraftDetail {
-  return { ...draftSummary(), document: {}, role: 'owner', ...overrides };
+  return { ...draftSummary(), document: emptyDraft(4, 4), role: 'owner', ...overrides };
 }
 
 export function draftsPage(items: DraftSummary[], overrides: Partial<DraftListResponse> = {}): DraftListResponse {

@@ -4,12 +4,14 @@ import { ErrorNotice } from '../../../components/ui/error-notice';
 import { Spinner } from '../../../components/ui/spinner';
 import { useDrafts } from '../api/get-drafts';
 import { draftsSearchToParams, pageCount, parseDraftsSearch, toggleSort, type DraftsSearch } from '../drafts-search';
+import { DraftsFilters } from './drafts-filters';
 import { DraftsSearchForm } from './drafts-search-form';
+import { ImportWifButton } from './import-wif-button';
 import { DraftsTable } from './drafts-table';
 import { Pagination } from './pagination';
 
-/** The Drafts library: search, sort and pages live in the URL; the server does the work. */
-export function DraftsLibrary() {
+/** The Drafts library: search, filters, sort and pages live in the URL; the server does the work. */
+export function DraftsLibrary({ studios = [] }: { studios?: readonly { id: number; name: string }[] }) {
   const [params, setParams] = useSearchParams();
   const search = parseDraftsSearch(params);
   const drafts = useDrafts(search);
@@ -19,6 +21,8 @@ export function DraftsLibrary() {
     <div className="flex flex-col gap-4">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <DraftsSearchForm query={search.q} onSearch={(q) => go({ ...search, q, page: 1 })} />
+        <DraftsFilters search={search} studios={studios} onChange={go} />
+        <ImportWifButton />
         {drafts.data && (
           <p aria-live="polite" className="text-sm text-muted">
             {drafts.data.total === 1 ? '1 draft' : `${drafts.data.total} drafts`}

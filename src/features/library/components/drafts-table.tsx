@@ -37,6 +37,9 @@ export function DraftsTable({ drafts, search, onSort, stale = false }: DraftsTab
         <caption className="sr-only">Drafts you own or can see through your studios</caption>
         <thead className="border-b border-line bg-sunken">
           <tr>
+            <th scope="col" className={`${cell} w-16`}>
+              <span className="sr-only">Cloth</span>
+            </th>
             {sortable('name', 'Name')}
             <th scope="col" className={`${cell} font-semibold`}>
               Owner
@@ -48,12 +51,22 @@ export function DraftsTable({ drafts, search, onSort, stale = false }: DraftsTab
             <th scope="col" className={`${cell} text-right font-semibold`}>
               Shafts
             </th>
+            <th scope="col" className={`${cell} font-semibold`}>
+              Structure
+            </th>
             {sortable('updated', 'Updated')}
           </tr>
         </thead>
         <tbody>
           {drafts.map((draft) => (
             <tr key={draft.id} className="border-b border-line last:border-b-0 hover:bg-paper">
+              <td className={`${cell} w-16`}>
+                {draft.thumbnailUrl ? (
+                  <img src={draft.thumbnailUrl} alt="" width={48} height={48} loading="lazy" className="size-12 rounded border border-line object-cover [image-rendering:pixelated]" />
+                ) : (
+                  <span aria-hidden="true" className="block size-12 rounded border border-dashed border-line" />
+                )}
+              </td>
               <th scope="row" className={`${cell} font-medium`}>
                 <Link to={`/drafts/${draft.id}`} className="text-accent underline-offset-4 hover:underline">
                   {draft.name}
@@ -65,6 +78,7 @@ export function DraftsTable({ drafts, search, onSort, stale = false }: DraftsTab
                 {draft.ends} × {draft.picks}
               </td>
               <td className={`${cell} text-right tabular-nums`}>{draft.shafts}</td>
+              <td className={cell}>{draft.structure.join(', ') || <span className="text-muted">—</span>}</td>
               <td className={`${cell} whitespace-nowrap`}>
                 <time dateTime={draft.updatedAt}>{formatDate(draft.updatedAt)}</time>
               </td>

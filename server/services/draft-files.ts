@@ -1,0 +1,24 @@
+import { fromWif, WifError, type Draft } from '../../shared/weave';
+import { HttpError } from '../middleware/errors';
+
+/** Reads an uploaded WIF file; a file that is not one, or does not make a valid draft, is a 422 saying why. */
+export function draftFromWifFile(file: { buffer: Buffer; originalname: string } | undefined): Draft {
+  if (!file || file.buffer.length === 0) throw new HttpError(400, 'bad_request', 'Attach the WIF file as the form field "file"');
+  // WIF is plain text; files from older programs may be Latin-1, which a lenient decoder reads well enough.
+  const text = new TextDecoder('utf-8').decode(file.buffer);
+  let draft: Draft;
+  try {
+    draft = fromWif(text);
+  } catch (err) {
+    if (err instanceof WifError) throw new HttpError(422, 'unprocessable', err.message, { file: err.message });
+    throw err;
+  }
+  const fallbackName = file.originalname.replace(/\.wif$/i, '').trim().slice(0, 200);
+  return draft.name.trim() ? draft : { ...draft, name: fallbackName || 'Imported draft' };
+}
+
+/** A file name a browser accepts in Content-Disposition, plus the exact name for those that read RFC 5987. */
+export function attachmentDisposition(name: string, extension: string): string {
+  const plain = name.replace(/[^A-Za-z0-9 ._-]+/g, '_').trim() || 'draft';
+  return `attachment; filename="${plain}.${extension}"; filename*=UTF-8''${encodeURIComponent(`${name}.${extension}`)}`;
+}

@@ -1,0 +1,115 @@
+import { Op, type WhereOptions } from 'sequelize';
+import { roleRank } from '../../shared/api/auth';
+import type { CreateDraftBody, DraftSummary, ForkBody, LineageDraft, LineageResponse, UpdateDraftBody } from '../../shared/api';
+import { emptyDraft, type Draft } from '../../shared/weave';
+import { forbidden, HttpError, notFound } from '../middleware/errors';
+import type { Models } from '../models';
+import type { DraftRow } from '../models/draft';
+import { parseDocument, versionDocument } from './draft-documents';
+import { createDraft, draftDetail, LARGE_COLUMNS, visibleDraftsWhere } from './drafts';
+import { studioRole } from './studios';
+
+/** Adding a draft to a studio takes the editor role there; a studio the user is not in does not exist for them. */
+export async function checkStudioWriter(models: Models, userId: number, studioId: number | undefined): Promise<number | null> {
+  if (studioId === undefined) return null;
+  const role = await studioRole(models, userId, studioId);
+  if (!role) throw notFound('No such studio');
+  if (roleRank(role) < roleRank('editor')) throw forbidden('Only editors and owners can add drafts to this studio');
+  return studioId;
+}
+
+async function summaryOf(models: Models, row: DraftRow, userId: number): Promise<DraftSummary> {
+  const { document: _document, role: _role, ...summary } = await draftDetail(models, row.id, row.ownerId === userId ? 'owner' : 'editor');
+  return summary;
+}
+
+/** POST /api/drafts: an empty 4-shaft draft unless a document is given; the name given wins over the document's. */
+export async function createFromBody(models: Models, userId: number, body: CreateDraftBody): Promise<DraftSummary> {
+  const studioId = await checkStudioWriter(models, userId, body.studioId);
+  const base = body.document === undefined ? emptyDraft(4, 4) : parseDocument(body.document);
+  const document: Draft = { ...base, name: body.name };
+  const row = await createDraft(models, { ownerId: userId, studioId, document, tags: body.tags ?? [] });
+  return summaryOf(models, row, userId);
+}
+
+/** A draft read from a file: same checks as a new draft. */
+export async function createFromDocument(models: Models, userId: number, document: Draft, studioId: number | undefined, message: string) {
+  const target = await checkStudioWriter(models, userId, studioId);
+  const row = await createDraft(models, { ownerId: userId, studioId: target, document, tags: [], message });
+  return summaryOf(models, row, userId);
+}
+
+/** Rename and retag; the document keeps its own name until the next save. */
+export async function updateDraft(models: Models, draftId: number, body: UpdateDraftBody): Promise<void> {
+  const changes: Partial<Pick<DraftRow, 'name' | 'tags'>> = {};
+  if (body.name !== undefined) changes.name = body.name;
+  if (body.tags !== undefined) changes.tags = [...new Set(body.tags)];
+  await models.Draft.update(changes, { where: { id: draftId } });
+}
+
+/** Deletes a draft with its history, comments and links; its photos are removed from storage afterwards. */
+export async function deleteDraft(models: Models, storage: { delete(key: string): Promise<void> }, draftId: number): Promise<void> {
+  const photos = await models.Attachment.findAll({ where: { draftId }, attributes: ['storageKey'] });
+  await models.Draft.destroy({ where: { id: draftId } });
+  for (const p of photos) await storage.delete(p.storageKey);
+}
+
+/**
+ * POST /api/drafts/:id/fork: a new draft (own history, version 1) from one version of another,
+ * optionally in a new colourway: `palette` replaces the colours entry for entry, so every end and
+ * pick keeps its place in the colour order.
+ */
+export async function forkDraft(models: Models, userId: number, sourceId: number, body: ForkBody): Promise<DraftSummary> {
+  const studioId = await checkStudioWriter(models, userId, body.studioId);
+  const source = await versionDocument(models, sourceId, body.version);
+  if (body.palette && body.palette.length !== source.document.palette.length) {
+    throw new HttpError(422, 'unprocessable', `The new colourway has ${body.palette.length} colours; the draft has ${source.document.palette.length}`,
+      { palette: `give exactly ${source.document.palette.length} colours, one for each colour of the draft` });
+  }
+  const document: Draft = { ...source.document, name: body.name, palette: body.palette ?? source.document.palette };
+  const from = await models.Draft.findByPk(sourceId, { attributes: ['name'] });
+  const row = await createDraft(models, {
+    ownerId: userId,
+    studioId,
+    document,
+    tags: [],
+    message: `New colourway of “${from?.name ?? 'a draft'}” version ${source.version}`,
+    parent: { draftId: sourceId, version: source.version },
+  });
+  return summaryOf(models, row, userId);
+}
+
+const MAX_ANCESTORS = 100;
+
+function lineageDraft(row: DraftRow): LineageDraft {
+  return { id: row.id, name: row.name, ownerName: row.owner?.name ?? '', parentVersion: row.parentVersion };
+}
+
+/** Where a draft came from (parents, nearest first) and the drafts forked from it, as far as the user can see. */
+export async function lineage(models: Models, userId: number, draftId: number): Promise<LineageResponse> {
+  const visible = await visibleDraftsWhere(models, userId);
+  const load = (where: WhereOptions<DraftRow>) => models.Draft.findAll({
+    where,
+    attributes: { exclude: LARGE_COLUMNS },
+    include: [{ model: models.User, as: 'owner', attributes: ['name'] }],
+    order: [['createdAt', 'ASC'], ['id', 'ASC']],
+  });
+  const [self] = await load({ id: draftId });
+  if (!self) throw notFound('No such draft');
+
+  const ancestors: LineageDraft[] = [];
+  let hiddenAncestors = 0;
+  let parentId = self.parentDraftId;
+  const seen = new Set([draftId]);
+  while (parentId !== null && !seen.has(parentId) && seen.size <= MAX_ANCESTORS) {
+    seen.add(parentId);
+    const [parent] = await load({ id: parentId });
+    if (!parent) break;
+    const [shown] = await load({ [Op.and]: [{ id: parentId }, visible] });
+    if (shown) ancestors.push(lineageDraft(shown));
+    else hiddenAncestors++;
+    parentId = parent.parentDraftId;
+  }
+  const children = await load({ [Op.and]: [{ parentDraftId: draftId }, visible] });
+  return { draft: lineageDraft(self), ancestors, hiddenAncestors, children: children.map(lineageDraft) };
+}

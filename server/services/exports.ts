@@ -1,0 +1,123 @@
+import type { DrawdownPngQuery, PrintQuery } from '../../shared/api/exports';
+import type { LoomList } from '../../shared/api/plans';
+import type { PlanDocument } from '../../shared/plan';
+import type { LoomListKind, PrintMeta } from '../../shared/print/types';
+import { parseDraft, pickCount, type Draft } from '../../shared/weave';
+import { HttpError, notFound } from '../middleware/errors';
+import type { Models } from '../models';
+import { renderDraftPdf } from '../print/draft-pdf';
+import { renderDrawdownPngAsync } from '../print/drawdown-png';
+import { isLayered } from '../print/raster';
+import { getPlan } from './plans';
+import { sharedDraft } from './sharing';
+
+/** A draft with what its print says about it. */
+export interface Printable {
+  draft: Draft;
+  name: string;
+  meta: PrintMeta;
+  plan?: PlanDocument;
+}
+
+/** "2 March 2025", as the weaver reads a date on paper. */
+function paperDate(d: Date): string {
+  return d.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+}
+
+/** The draft as its editors see it now (the working document), with its saved plan if any. */
+export async function draftPrintable(models: Models, draftId: number): Promise<Printable> {
+  const [row, saved] = await Promise.all([
+    models.Draft.findByPk(draftId, {
+      attributes: ['name', 'version', 'updatedAt', 'document'],
+      include: [
+        { model: models.User, as: 'owner', attributes: ['name'] },
+        { model: models.Studio, as: 'studio', attributes: ['name'] },
+      ],
+    }),
+    getPlan(models, draftId),
+  ]);
+  if (!row) throw notFound('No such draft');
+  return {
+    draft: parseDraft(row.document),
+    name: row.name,
+    meta: { title: row.name, author: row.owner?.name ?? '', studio: row.studio?.name ?? '', date: paperDate(row.updatedAt), version: row.version },
+    ...(saved.plan ? { plan: saved.plan } : {}),
+  };
+}
+
+/**
+ * The draft behind a public link. The link shows the draft alone, so its print carries no saved
+ * plan (notes and yarn choices stay with the studio) and no studio name.
+ */
+export async function sharedPrintable(models: Models, token: string): Promise<Printable> {
+  const { draft } = await sharedDraft(models, token);
+  return {
+    draft: parseDraft(draft.document),
+    name: draft.name,
+    meta: { title: draft.name, author: draft.ownerName, studio: '', date: paperDate(new Date(draft.updatedAt)), version: draft.version },
+  };
+}
+
+const LIST_KINDS: Record<LoomList, LoomListKind> = { threading: 'threading', sleying: 'sleying', tieon: 'tie-on', weaving: 'weaving' };
+
+/** Prints never run side by side: a second waits for the first, so a burst of prints cannot eat the server's memory. */
+let queue: Promise<unknown> = Promise.resolve();
+
+function oneAtATime<T>(job: () => Promise<T>): Promise<T> {
+  const run = queue.then(job, job);
+  queue = run.catch(() => undefined);
+  return run;
+}
+
+/** The printed draft as a PDF, following the query's paper, arrangement, numbering, lists and working order. */
+export function printPdf(p: Printable, q: PrintQuery): Promise<Buffer> {
+  const workingOrder = {
+    ...(q.from ? { side: q.from } : {}),
+    ...(q.direction ? { direction: q.direction } : {}),
+    ...(q.shaftNumbering ? { shaftNumbering: q.shaftNumbering } : {}),
+  };
+  return oneAtATime(async () => {
+    try {
+      return await renderDraftPdf({
+        draft: p.draft,
+        meta: p.meta,
+        ...(p.plan ? { plan: p.plan } : {}),
+        ...(q.lists ? { lists: q.lists.map((l) => LIST_KINDS[l]) } : {}),
+        options: {
+          paper: q.paper,
+          orientation: q.orientation,
+          threadingAbove: q.threadingAbove,
+          treadlingRight: q.treadlingRight,
+          shaftsFromBottom: q.shaftsFromBottom,
+          numberEvery: q.numberEvery,
+          workingOrder,
+        },
+      });
+    } catch (err) {
+      if (err instanceof RangeError) throw new HttpError(422, 'unprocessable', err.message);
+      throw err;
+    }
+  });
+}
+
+/**
+ * Largest picture served: 16 megapixels (a 2000 × 2000 draft at 2 pixels a cell). Laying out the
+ * pixels holds the event loop (about 0.1 s per 4 megapixels here); compressing does not.
+ */
+export const EXPORT_MAX_PIXELS = 16_000_000;
+
+/** A picture of the cloth; 400 for a picture too big at that scale, 422 for a face of a one-layer draft. */
+export function drawdownPng(p: Printable, q: DrawdownPngQuery): Promise<Buffer> {
+  const { draft } = p;
+  if ((q.view === 'front' || q.view === 'back') && !isLayered(draft)) {
+    throw new HttpError(422, 'unprocessable', `The ${q.view} view needs a draft woven in more than one layer`, { view: 'needs a layered draft' });
+  }
+  const cells = draft.threading.length * pickCount(draft);
+  if (cells === 0) throw new HttpError(422, 'unprocessable', 'The draft has no cells to draw yet');
+  if (cells * q.scale * q.scale > EXPORT_MAX_PIXELS) {
+    const most = Math.floor(Math.sqrt(EXPORT_MAX_PIXELS / cells));
+    const hint = most >= 1 ? `at most ${most} for this draft` : 'this draft is too big for a picture; print it instead';
+    throw new HttpError(400, 'validation', `The picture would be too big at ${q.scale} pixels per cell`, { scale: hint });
+  }
+  return renderDrawdownPngAsync(draft, { view: q.view, scale: q.scale, threadingAbove: q.threadingAbove, treadlingRight: q.treadlingRight });
+}

@@ -1,0 +1,144 @@
+import { useId, useState } from 'react';
+import type { PngViewName } from '../../../../shared/api/exports';
+import { loomLists, type LoomList, type WorkingOrder } from '../../../../shared/api/plans';
+import { buttonClasses } from '../../../components/ui/button';
+import { SelectField } from '../../../components/ui/field';
+import { pngUrl, printUrl, type PrintArrangement, type PrintChoices } from '../print-links';
+
+export interface PrintOptionsProps {
+  /** `/api/drafts/7` or `/api/shared/<token>`. */
+  base: string;
+  ends: number;
+  picks: number;
+  /** Woven in more than one layer: the front and back faces can be exported. */
+  layered: boolean;
+  /** The arrangement the weaver uses in the editor, to start from. */
+  arrangement?: PrintArrangement;
+  /** Also offer the draft's WIF and JSON files (not through a public link). */
+  files?: boolean;
+}
+
+const LIST_LABELS: Record<LoomList, string> = { threading: 'Threading', sleying: 'Sleying', tieon: 'Tying on', weaving: 'Treadling or lift plan' };
+const VIEW_LABELS: Record<PngViewName, string> = { colour: 'Cloth in colour', structure: 'Drawdown in two tones', front: 'Front face', back: 'Back face' };
+
+/** Pictures above this size are not offered (the server allows 16 megapixels). */
+const PICTURE_PIXELS = 4_000_000;
+
+/** The largest whole number of pixels per cell (up to 16) that keeps the picture near four megapixels. */
+export function pictureScale(ends: number, picks: number): number | null {
+  const cells = ends * picks;
+  if (cells === 0 || cells > PICTURE_PIXELS * 4) return null;
+  return Math.max(1, Math.min(16, Math.floor(Math.sqrt(PICTURE_PIXELS / cells))));
+}
+
+/**
+ * Print and Export: paper, arrangement, numbering, which loom-side lists and in which working
+ * order, then a link that opens the printed draft, and links to pictures and files of the draft.
+ */
+export function PrintOptions({ base, ends, picks, layered, arrangement, files = false }: PrintOptionsProps) {
+  const headingId = useId();
+  const [choices, setChoices] = useState<PrintChoices>(() => ({
+    paper: 'a4',
+    orientation: 'portrait',
+    threadingAbove: arrangement?.threadingAbove ?? true,
+    treadlingRight: arrangement?.treadlingRight ?? true,
+    shaftsFromBottom: arrangement?.shaftsFromBottom ?? true,
+    numberEvery: 4,
+    lists: [...loomLists],
+    workingOrder: { side: 'front', direction: 'right-to-left', shaftNumbering: 'near' },
+  }));
+  const set = (patch: Partial<PrintChoices>) => setChoices((c) => ({ ...c, ...patch }));
+  const order = (patch: Partial<WorkingOrder>) => setChoices((c) => ({ ...c, workingOrder: { ...c.workingOrder, ...patch } }));
+  const toggleList = (l: LoomList, on: boolean) =>
+    setChoices((c) => ({ ...c, lists: loomLists.filter((x) => (x === l ? on : c.lists.includes(x))) }));
+  const scale = pictureScale(ends, picks);
+  const views: PngViewName[] = layered ? ['colour', 'structure', 'front', 'back'] : ['colour', 'structure'];
+
+  return (
+    <section aria-labelledby={headingId} className="flex flex-col gap-4 text-sm">
+      <h2 id={headingId} className="text-lg font-semibold">Print</h2>
+      <div className="grid max-w-3xl grid-cols-1 gap-4 sm:grid-cols-3">
+        <SelectField label="Paper" value={choices.paper} onChange={(e) => set({ paper: e.target.value as PrintChoices['paper'] })}>
+          <option value="a4">A4</option>
+          <option value="letter">Letter</option>
+        </SelectField>
+        <SelectField label="Orientation" value={choices.orientation} onChange={(e) => set({ orientation: e.target.value as PrintChoices['orientation'] })}>
+          <option value="portrait">Portrait</option>
+          <option value="landscape">Landscape</option>
+        </SelectField>
+        <SelectField label="Numbers on every" value={String(choices.numberEvery)} onChange={(e) => set({ numberEvery: Number(e.target.value) as PrintChoices['numberEvery'] })}>
+          <option value="4">4th end and pick</option>
+          <option value="8">8th end and pick</option>
+          <option value="10">10th end and pick</option>
+        </SelectField>
+      </div>
+
+      <fieldset className="flex flex-col gap-1">
+        <legend className="font-medium">Arrangement</legend>
+        <Check label="Threading above the drawdown" checked={choices.threadingAbove} onChange={(v) => set({ threadingAbove: v })} />
+        <Check label="Treadling on the right" checked={choices.treadlingRight} onChange={(v) => set({ treadlingRight: v })} />
+        <Check label="Shaft 1 at the bottom of the threading" checked={choices.shaftsFromBottom} onChange={(v) => set({ shaftsFromBottom: v })} />
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-1">
+        <legend className="font-medium">Loom-side lists</legend>
+        {loomLists.map((l) => (
+          <Check key={l} label={LIST_LABELS[l]} checked={choices.lists.includes(l)} onChange={(v) => toggleList(l, v)} />
+        ))}
+        <p className="text-xs text-muted">Sleying and tying on come from the saved plan; without one they are left out.</p>
+      </fieldset>
+
+      <div className="grid max-w-3xl grid-cols-1 gap-4 sm:grid-cols-3">
+        <SelectField label="Working from" value={choices.workingOrder.side} onChange={(e) => order({ side: e.target.value as WorkingOrder['side'] })}>
+          <option value="front">The front of the loom</option>
+          <option value="back">The back of the loom</option>
+        </SelectField>
+        <SelectField label="Direction" value={choices.workingOrder.direction} onChange={(e) => order({ direction: e.target.value as WorkingOrder['direction'] })}>
+          <option value="right-to-left">Right to left</option>
+          <option value="left-to-right">Left to right</option>
+        </SelectField>
+        <SelectField label="Shaft 1 is" value={choices.workingOrder.shaftNumbering} onChange={(e) => order({ shaftNumbering: e.target.value as WorkingOrder['shaftNumbering'] })}>
+          <option value="near">Nearest you</option>
+          <option value="far">Farthest from you</option>
+        </SelectField>
+      </div>
+
+      <p>
+        <a className={buttonClasses('primary')} href={printUrl(base, choices)} target="_blank" rel="noopener">
+          Print
+        </a>
+        <span className="ml-3 text-muted">Opens the printable draft (PDF) in a new tab.</span>
+      </p>
+
+      <div className="flex flex-col gap-1">
+        <h3 className="font-medium">Export</h3>
+        <ul className="flex flex-wrap gap-x-4 gap-y-1">
+          {scale !== null &&
+            views.map((v) => (
+              <li key={v}>
+                <a href={pngUrl(base, v, scale, choices)} download>
+                  {VIEW_LABELS[v]} (PNG, {ends * scale} × {picks * scale} pixels)
+                </a>
+              </li>
+            ))}
+          {files && (
+            <>
+              <li><a href={`${base}/export.wif`} download>Weaving Information File (WIF)</a></li>
+              <li><a href={`${base}/export.json`} download>Shedwright draft (JSON)</a></li>
+            </>
+          )}
+        </ul>
+        {scale === null && <p className="text-muted">This draft is too big for a picture; print it instead.</p>}
+      </div>
+    </section>
+  );
+}
+
+function Check({ label, checked, onChange }: { label: string; checked: boolean; onChange: (v: boolean) => void }) {
+  return (
+    <label className="flex items-center gap-2">
+      <input type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} />
+      {label}
+    </label>
+  );
+}

@@ -1,0 +1,47 @@
+import { exportQuery, type PngViewName } from '../../../shared/api/exports';
+import type { LoomList, WorkingOrder } from '../../../shared/api/plans';
+import type { Arrangement } from '../editor/canvas/layout';
+
+/** The print's arrangement words: which side the threading, treadling and shaft 1 are on. */
+export interface PrintArrangement {
+  threadingAbove: boolean;
+  treadlingRight: boolean;
+  shaftsFromBottom: boolean;
+}
+
+/**
+ * The editor names each setting by the side it moves a grid to (threading below, treadling left,
+ * shafts from the top); the print names the opposite side. The same layout either way.
+ */
+export function printArrangement(editor: Arrangement): PrintArrangement {
+  return { threadingAbove: !editor.threadingBelow, treadlingRight: !editor.treadlingLeft, shaftsFromBottom: !editor.shaftsFromTop };
+}
+
+export interface PrintChoices extends PrintArrangement {
+  paper: 'a4' | 'letter';
+  orientation: 'portrait' | 'landscape';
+  numberEvery: 4 | 8 | 10;
+  lists: LoomList[];
+  workingOrder: WorkingOrder;
+}
+
+/** Where the printed draft is: `base` is `/api/drafts/7` or `/api/shared/<token>`. */
+export function printUrl(base: string, c: PrintChoices): string {
+  return `${base}/print.pdf${exportQuery({
+    paper: c.paper,
+    orientation: c.orientation,
+    threadingAbove: c.threadingAbove,
+    treadlingRight: c.treadlingRight,
+    shaftsFromBottom: c.shaftsFromBottom,
+    numberEvery: c.numberEvery,
+    lists: c.lists,
+    from: c.workingOrder.side,
+    direction: c.workingOrder.direction,
+    shaftNumbering: c.workingOrder.shaftNumbering,
+  })}`;
+}
+
+/** A picture of the cloth laid out as the print is. */
+export function pngUrl(base: string, view: PngViewName, scale: number, a: Pick<PrintArrangement, 'threadingAbove' | 'treadlingRight'>): string {
+  return `${base}/drawdown.png${exportQuery({ view, scale, threadingAbove: a.threadingAbove, treadlingRight: a.treadlingRight })}`;
+}

@@ -1,0 +1,186 @@
+/*
+ * Drafts service load test: `npx tsx tests/bench/drafts-load.ts` with the test database up
+ * (`node scripts/db.mjs test`, then export the SHEDWRIGHT_DB_* lines it prints).
+ *
+ * Starts the real app (createApp, in a child process: drafts-load-server.ts) on a free loopback port
+ * over MariaDB, gives a fresh weaver 1000
+ * drafts, then runs autocannon with 50 connections for 20 s each on:
+ *   - list: GET /api/drafts (the first page of the library);
+ *   - save: PUT /api/drafts/:id with a 400-end × 400-pick draft. Every save must carry the version
+ *     it is based on, so each in-flight save takes a draft of its own from a pool and returns it with
+ *     the new version when the answer comes (a 409 here would be a bug in the test, and is counted).
+ * Prints requests/s, p50/p95/p99 latency and error counts. Targets: p95 ≤ 50 ms (list),
+ * ≤ 100 ms (save), zero errors. Options: --duration=20 --connections=50.
+ */
+import { spawn } from 'node:child_process';
+import { once } from 'node:events';
+import autocannon from 'autocannon';
+import { createContext } from '../../server/context';
+import { migrate } from '../../server/db/migrate';
+import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
+import { startFakeSmtp } from '../../server/mail/fake-smtp';
+import { derivedColumns } from '../../server/services/draft-derived';
+import { createDraft } from '../../server/services/drafts';
+import { signUp } from '../../server/services/auth';
+import { createDraft as buildDraft, type Draft } from '../../shared/weave';
+import { testConfig, uniqueEmail } from '../helpers/test-db';
+
+const arg = (name: string, fallback: number) => Number(process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1] ?? fallback);
+const DURATION_S = arg('duration', 20);
+const CONNECTIONS = arg('connections', 50);
+const LIBRARY_SIZE = 1000;
+const PASSWORD = 'bench-password-loom';
+
+/** Seeded so every run saves the same cloth. */
+function random(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = Math.imul(a ^ (a >>> 15), a | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/** An 8-shaft, 8-treadle draft, 400 ends × 400 picks, four colours. */
+function bigDraft(seed: number): Draft {
+  const next = random(seed);
+  const pick = (n: number) => 1 + Math.floor(next() * n);
+  return buildDraft({
+    name: `Load test ${seed}`,
+    shafts: 8,
+    treadles: 8,
+    threading: Array.from({ length: 400 }, () => [pick(8)]),
+    tieup: Array.from({ length: 8 }, (_, t) => [1 + t, 1 + ((t + 1) % 8), 1 + ((t + 3) % 8)].sort((x, y) => x - y)),
+    treadling: Array.from({ length: 400 }, () => [pick(8)]),
+    palette: ['#2d3a4a', '#e8dcc0', '#9c4a2f', '#5f7f5a'],
+    warpColors: Array.from({ length: 400 }, () => pick(4) - 1),
+    weftColors: Array.from({ length: 400 }, () => pick(4) - 1),
+  });
+}
+
+function percentile(sorted: number[], p: number): number {
+  if (sorted.length === 0) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+interface Figures {
+  name: string;
+  requests: number;
+  perSecond: number;
+  p50: number;
+  p95: number;
+  p99: number;
+  errors: number;
+  timeouts: number;
+  non2xx: number;
+}
+
+async function run(name: string, options: autocannon.Options): Promise<Figures> {
+  const times: number[] = [];
+  const instance = autocannon({ connections: CONNECTIONS, duration: DURATION_S, ...options });
+  instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => { times.push(responseTime); });
+  const result = await instance;
+  times.sort((a, b) => a - b);
+  return {
+    name,
+    requests: result.requests.total,
+    perSecond: result.requests.average,
+    p50: percentile(times, 50),
+    p95: percentile(times, 95),
+    p99: percentile(times, 99),
+    errors: result.errors,
+    timeouts: result.timeouts,
+    non2xx: result.non2xx,
+  };
+}
+
+/** Signs in over HTTP as a browser would; returns the session cookie and its CSRF token. */
+async function signIn(base: string, email: string): Promise<{ cookie: string; csrf: string }> {
+  const first = await fetch(`${base}/api/csrf`);
+  const cookieOf = (res: Response) => res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  const { token } = await first.json() as { token: string };
+  const res = await fetch(`${base}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'x-csrf-token': token, cookie: cookieOf(first) },
+    body: JSON.stringify({ email, password: PASSWORD }),
+  });
+  if (!res.ok) throw new Error(`sign-in failed: ${res.status}`);
+  const { csrfToken } = await res.json() as { csrfToken: string };
+  return { cookie: cookieOf(res), csrf: csrfToken };
+}
+
+const smtp = await startFakeSmtp(0);
+const ctx = createContext(testConfig(), smtp);
+await migrate(ctx.sequelize);
+const child = spawn(process.execPath, ['--import', 'tsx', new URL('./drafts-load-server.ts', import.meta.url).pathname], {
+  stdio: ['ignore', 'pipe', 'inherit'],
+});
+const [line] = await Promise.race([
+  once(child.stdout!, 'data') as Promise<Buffer[]>,
+  once(child, 'exit').then(() => { throw new Error('the app process exited before listening'); }),
+]);
+const base = `http://127.0.0.1:${/listening (\d+)/.exec(String(line))![1]}`;
+
+try {
+  const email = uniqueEmail('bench');
+  const user = await signUp(ctx.models, { email, password: PASSWORD, name: 'Load tester' });
+  const small = pointTwillScarf();
+  const derived = derivedColumns(small);
+  console.log(`Seeding ${LIBRARY_SIZE} drafts…`);
+  for (let i = 0; i < LIBRARY_SIZE; i += 200) {
+    const rows = await ctx.models.Draft.bulkCreate(Array.from({ length: 200 }, (_, k) => ({
+      ownerId: user.id, studioId: null, name: `Library draft ${i + k + 1}`, document: small, tags: ['bench'], version: 1, ...derived,
+    })));
+    await ctx.models.DraftVersion.bulkCreate(rows.map((r) => ({ draftId: r.id, version: 1, authorId: user.id, message: 'First version', document: small })));
+  }
+  // One more draft than connections, so a connection never waits for a free one.
+  const saveDrafts = [];
+  for (let i = 0; i < CONNECTIONS + 1; i++) {
+    saveDrafts.push(await createDraft(ctx.models, { ownerId: user.id, studioId: null, document: bigDraft(i), tags: [] }));
+  }
+  const { cookie, csrf } = await signIn(base, email);
+  const headers = { cookie, 'x-csrf-token': csrf, 'content-type': 'application/json' };
+
+  const list = await run('list (GET /api/drafts)', { url: `${base}/api/drafts`, headers });
+
+  const documents = saveDrafts.map((_, i) => JSON.stringify(bigDraft(1000 + i)));
+  const free = saveDrafts.map((d, i) => ({ id: d.id, version: 1, doc: documents[i] }));
+  const saveRequest: autocannon.Request = {
+    method: 'PUT',
+    setupRequest: (req, context) => {
+      const slot = free.shift();
+      if (!slot) throw new Error('more saves in flight than drafts in the pool');
+      context.slot = slot;
+      return { ...req, path: `/api/drafts/${slot.id}`, body: `{"baseVersion":${slot.version},"message":"load test","document":${slot.doc}}` };
+    },
+    onResponse: (status, body, context) => {
+      const slot = context.slot as (typeof free)[number];
+      if (status === 200) slot.version = (JSON.parse(body) as { version: number }).version;
+      free.push(slot);
+    },
+  };
+  const save = await run('save (PUT /api/drafts/:id, 400 × 400)', { url: base, headers, requests: [saveRequest] });
+
+  console.log(`\n${CONNECTIONS} connections, ${DURATION_S} s each, ${LIBRARY_SIZE} drafts in the library`);
+  console.table([list, save].map((f) => ({
+    run: f.name,
+    'req/s': Math.round(f.perSecond),
+    requests: f.requests,
+    'p50 ms': f.p50,
+    'p95 ms': f.p95,
+    'p99 ms': f.p99,
+    errors: f.errors,
+    timeouts: f.timeouts,
+    'non-2xx': f.non2xx,
+  })));
+  const verdict = (f: Figures, target: number) => `${f.name}: p95 ${f.p95} ms (target ≤ ${target} ms) ${f.p95 <= target ? 'met' : 'MISSED'}, `
+    + `${f.errors + f.timeouts + f.non2xx === 0 ? 'no errors' : 'ERRORS'}`;
+  console.log(verdict(list, 50));
+  console.log(verdict(save, 100));
+} finally {
+  child.kill('SIGTERM');
+  await once(child, 'exit');
+  await ctx.close();
+  await smtp.close();
+}

@@ -1,0 +1,197 @@
+import { monitorEventLoopDelay } from 'node:perf_hooks';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { PDFParse } from 'pdf-parse';
+import type { Response } from 'supertest';
+import { defaultPlan } from '../../shared/plan';
+import { pickCount, type Draft } from '../../shared/weave';
+import { doubleWeaveTableMat, pointTwillScarf } from '../../server/db/seeders/demo-drafts';
+import { renderDrawdownPng } from '../../server/print/drawdown-png';
+import { createDraft } from '../../server/services/drafts';
+import { bigPointTwill, checkerboard } from '../helpers/print-fixtures';
+import { startTestServer, type TestClient, type TestServer } from '../helpers/server';
+
+let server: TestServer;
+beforeAll(async () => {
+  server = await startTestServer();
+});
+afterAll(async () => {
+  await server.close();
+});
+
+/** supertest buffers binary bodies only when asked to. */
+async function fetchBinary(client: TestClient, path: string): Promise<Response> {
+  return client.agent.get(path).buffer(true).parse((res, done) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => done(null, Buffer.concat(chunks)));
+  });
+}
+
+async function readPdf(pdf: Buffer): Promise<{ total: number; pages: string[]; text: string; title: string }> {
+  const parser = new PDFParse({ data: new Uint8Array(pdf) });
+  try {
+    const t = await parser.getText();
+    const info = await parser.getInfo();
+    return { total: t.total, pages: t.pages.map((p) => p.text), text: t.text, title: String(info.info?.Title ?? '') };
+  } finally {
+    await parser.destroy();
+  }
+}
+
+async function scene(document: Draft = pointTwillScarf()) {
+  const { client: viewer, studioId, ownerId } = await server.signInWithRole('viewer');
+  const owner = await server.ctx.models.User.findByPk(ownerId);
+  const ownerClient = server.client();
+  await ownerClient.signIn(owner!.email);
+  const draft = await createDraft(server.ctx.models, { ownerId, studioId, document, tags: [] });
+  return { viewer, owner: ownerClient, draftId: draft.id };
+}
+
+describe('GET /api/drafts/:id/print.pdf', () => {
+  it('prints the draft for a viewer, named after the draft in safe ASCII, with the yarn table and the lists asked for', async () => {
+    const s = await scene({ ...pointTwillScarf(), name: 'Écharpe «point» twill' });
+    const res = await fetchBinary(s.viewer, `/api/drafts/${s.draftId}/print.pdf?paper=letter&orientation=landscape&numberEvery=8&lists=threading&from=back`);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    // Browsers show a PDF sent inline; the plain name keeps only safe ASCII, the starred one the exact name (RFC 6266 / 5987).
+    expect(res.headers['content-disposition']).toMatch(/^inline; filename="_charpe _point_ twill\.pdf"; filename\*=UTF-8''/);
+    const pdf = res.body as Buffer;
+    // Letter landscape: 11 × 8.5 in (ANSI/ASME Y14.1).
+    expect(pdf.toString('latin1')).toContain('/MediaBox [0 0 792 612]');
+    const { total, pages, text, title } = await readPdf(pdf);
+    expect(title).toBe('Écharpe «point» twill');
+    const draft = pointTwillScarf();
+    expect(pages[0]).toContain(`${draft.threading.length} ends × ${pickCount(draft)} picks`);
+    // In landscape the draft takes two sheets; the yarn table follows them.
+    expect(text).toMatch(/Fine wool, deep teal\s+60 ends\s+0 picks/);
+    expect(text).toMatch(/Fine wool, oat\s+0 ends\s+60 picks/);
+    // The draft page(s), the plan page, and only the threading list, from the back of the loom.
+    expect(text).toContain('No plan has been saved');
+    expect(text).toContain('Working from the back of the loom');
+    expect(text).not.toContain('Treadling\n');
+    expect(pages[total - 1]).toContain('Threading');
+  });
+
+  it('uses the saved plan: its figures on the plan page and every loom-side list by default', async () => {
+    const s = await scene();
+    const plan = { unit: 'cm', finishedWidth: 30, finishedLength: 150, pieces: 1, warpYarn: { text: '8/2 cotton' }, weftYarn: { text: '8/2 cotton' } };
+    const saved = await s.owner.send('put', `/api/drafts/${s.draftId}/plan`, plan);
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    const res = await fetchBinary(s.viewer, `/api/drafts/${s.draftId}/print.pdf`);
+    expect(res.status).toBe(200);
+    const { text } = await readPdf(res.body as Buffer);
+    expect(text).toContain('Reed and dents');
+    for (const heading of ['Threading', 'Sleying', 'Tying on', 'Treadling']) expect(text).toContain(heading);
+  });
+
+  it.each([
+    ['paper=a3', 'paper'],
+    ['orientation=sideways', 'orientation'],
+    ['numberEvery=5', 'numberEvery'],
+    ['lists=threading,warping', 'lists'],
+    ['threadingAbove=maybe', 'threadingAbove'],
+    ['from=side', 'from'],
+    ['colour=red', '_'],
+  ])('answers a bad query (%s) with 400 naming the field', async (query, field) => {
+    const s = await scene();
+    const res = await s.viewer.get(`/api/drafts/${s.draftId}/print.pdf?${query}`);
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('validation');
+    expect(Object.keys(res.body.error.fields)).toContain(field);
+  });
+
+  it('keeps answering other requests while a large draft prints', async () => {
+    // 1200 ends × 1200 picks on 8 shafts: a few hundred sheets.
+    const big = bigPointTwill(1200);
+    const s = await scene(big);
+    const delay = monitorEventLoopDelay({ resolution: 5 });
+    delay.enable();
+    const started = performance.now();
+    const printing = fetchBinary(s.viewer, `/api/drafts/${s.draftId}/print.pdf?lists=`);
+    // Ask for the session repeatedly while the print runs; each answer should come back promptly.
+    const waits: number[] = [];
+    let done = false;
+    void printing.finally(() => (done = true));
+    while (!done) {
+      const t = performance.now();
+      await s.viewer.get('/api/session');
+      waits.push(performance.now() - t);
+    }
+    const res = await printing;
+    delay.disable();
+    const total = performance.now() - started;
+    expect(res.status).toBe(200);
+    const { total: pages, pages: text } = await readPdf(res.body as Buffer);
+    expect(pages).toBeGreaterThan(100);
+    expect(text[0]).toContain('the draft sheets show every end and pick');
+    // The print yields every 25 ms of work (PRINT_SLICE_MS). On a quiet machine the longest block
+    // is under 0.1 s; on a shared, busy one every slice stretches, so the check is relative: a print
+    // that did not yield would hold the loop for its whole run.
+    const worstBlockMs = delay.max / 1e6;
+    console.log(`print of ${pages} pages: ${total.toFixed(0)} ms; ${waits.length} other requests, slowest ${Math.max(...waits).toFixed(0)} ms; longest event-loop block ${worstBlockMs.toFixed(0)} ms`);
+    expect(waits.length).toBeGreaterThan(3);
+    expect(worstBlockMs).toBeLessThan(total / 4);
+  });
+});
+
+describe('GET /api/drafts/:id/drawdown.png', () => {
+  it('sends the same picture the print module makes, as an attachment named after the draft', async () => {
+    const s = await scene();
+    const res = await fetchBinary(s.viewer, `/api/drafts/${s.draftId}/drawdown.png?view=structure&scale=3&threadingAbove=false`);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('image/png');
+    expect(res.headers['content-disposition']).toMatch(/^attachment; filename="Point twill scarf structure\.png"/);
+    const png = res.body as Buffer;
+    const draft = pointTwillScarf();
+    // IHDR width and height (PNG spec §11.2.2).
+    expect(png.readUInt32BE(16)).toBe(draft.threading.length * 3);
+    expect(png.readUInt32BE(20)).toBe(pickCount(draft) * 3);
+    expect(png.equals(renderDrawdownPng(draft, { view: 'structure', scale: 3, threadingAbove: false }))).toBe(true);
+  });
+
+  it('refuses a face of a one-layer draft (422), a picture too big (400) and a bad view (400)', async () => {
+    // 80 × 60 cells at 64 pixels a side would be 19.7 megapixels, over the 16 allowed.
+    const s = await scene(checkerboard(80, 60));
+    const face = await s.viewer.get(`/api/drafts/${s.draftId}/drawdown.png?view=back`);
+    expect(face.status).toBe(422);
+    expect(face.body.error.fields.view).toBeTypeOf('string');
+    const huge = await s.viewer.get(`/api/drafts/${s.draftId}/drawdown.png?scale=64`);
+    expect(huge.status).toBe(400);
+    expect(huge.body.error.fields.scale).toBe('at most 57 for this draft');
+    const bad = await s.viewer.get(`/api/drafts/${s.draftId}/drawdown.png?view=floats`);
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields.view).toBeTypeOf('string');
+  });
+
+  it('draws the back face of a double weave', async () => {
+    const s = await scene(doubleWeaveTableMat());
+    const res = await fetchBinary(s.viewer, `/api/drafts/${s.draftId}/drawdown.png?view=back&scale=2`);
+    expect(res.status).toBe(200);
+    expect((res.body as Buffer).equals(renderDrawdownPng(doubleWeaveTableMat(), { view: 'back', scale: 2 }))).toBe(true);
+  });
+});
+
+describe('prints and pictures through a public link', () => {
+  it('serves both while the link lives, without the saved plan, and 404 once it is withdrawn', async () => {
+    const s = await scene();
+    const plan = { ...defaultPlan('cm'), notes: 'Studio-only note about the yarn order' };
+    const saved = await s.owner.send('put', `/api/drafts/${s.draftId}/plan`, plan);
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    const made = await s.owner.post(`/api/drafts/${s.draftId}/share`);
+    const token = made.body.token as string;
+    const stranger = server.client();
+    const pdf = await fetchBinary(stranger, `/api/shared/${token}/print.pdf?lists=weaving`);
+    expect(pdf.status).toBe(200);
+    const { text } = await readPdf(pdf.body as Buffer);
+    expect(text).toContain('Point twill scarf');
+    expect(text).toContain('No plan has been saved');
+    expect(text).not.toContain('Studio-only note');
+    const png = await fetchBinary(stranger, `/api/shared/${token}/drawdown.png?scale=1`);
+    expect(png.status).toBe(200);
+    expect((png.body as Buffer).equals(renderDrawdownPng(pointTwillScarf(), { view: 'colour', scale: 1 }))).toBe(true);
+
+    expect((await s.owner.delete(`/api/drafts/${s.draftId}/share`)).status).toBe(200);
+    expect((await stranger.get(`/api/shared/${token}/print.pdf`)).status).toBe(404);
+    expect((await stranger.get(`/api/shared/${token}/drawdown.png`)).status).toBe(404);
+  });
+});
