@@ -1,23 +1,11 @@
 // The editor as a weaver uses it: open the demo double-weave mat, change one threading cell from the
 // keyboard, watch the drawdown and both faces change on the canvas, undo, redo, and find the saved
 // state after a reload. Pixels are read from the real canvases in headless Chromium.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD } from '../../server/db/demo-accounts';
-import { openBrowser, screenshot, startAppServer, type AppServer, type Browser } from '../helpers/e2e';
+import { screenshot, signIn, useAppAndBrowser } from '../helpers/e2e';
 
-let server: AppServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startAppServer();
-  browser = await openBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const app = useAppAndBrowser();
 
 /** A fingerprint of every canvas under each test id: equal pictures give equal fingerprints. */
 async function fingerprints(page: Page, ids: string[]): Promise<Record<string, string>> {
@@ -62,28 +50,28 @@ async function settled(page: Page): Promise<Record<string, string>> {
   return last;
 }
 
+/** Shows the front and back faces beside the drawdown (the view buttons toggle). */
+async function showBothFaces(page: Page) {
+  for (const name of ['Front', 'Back']) {
+    const button = page.getByRole('group', { name: 'Views to show' }).getByRole('button', { name, exact: true });
+    if ((await button.getAttribute('aria-pressed')) !== 'true') await button.click();
+  }
+  await page.getByTestId('view-front').locator('canvas').first().waitFor();
+}
+
 async function waitSaved(page: Page) {
   await page.getByTestId('save-status').getByText('Saved').waitFor({ timeout: 20_000 });
 }
 
 describe('editing the demo double weave', () => {
   it('a threading change repaints the drawdown and both faces; undo restores; the save survives a reload', async () => {
-    const { page } = browser;
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel('E-mail').fill('lead@shedwright.test');
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/drafts$/);
-    await page.getByRole('link', { name: /double weave table mat/i }).click();
+    const { page } = app.browser;
+    await signIn(page, app.server, 'lead@shedwright.test');
+    await page.getByRole('link', { name: /double weave table mat — harbour/i }).click();
     await page.getByTestId('draft-canvas').waitFor();
     const draftUrl = page.url();
 
-    // Show both faces beside the drawdown.
-    for (const name of ['Front', 'Back']) {
-      const button = page.getByRole('group', { name: 'Views to show' }).getByRole('button', { name, exact: true });
-      if ((await button.getAttribute('aria-pressed')) !== 'true') await button.click();
-    }
-    await page.getByTestId('view-front').locator('canvas').first().waitFor();
+    await showBothFaces(page);
 
     // The cursor starts on the threading's first end. End 2 is in the two-colour layer (layer 1 is a
     // single colour, so its face would look the same whatever its interlacement): move there and mark.
@@ -107,16 +95,12 @@ describe('editing the demo double weave', () => {
 
     await page.goto(draftUrl);
     await page.getByTestId('draft-canvas').waitFor();
-    for (const name of ['Front', 'Back']) {
-      const button = page.getByRole('group', { name: 'Views to show' }).getByRole('button', { name, exact: true });
-      if ((await button.getAttribute('aria-pressed')) !== 'true') await button.click();
-    }
-    await page.getByTestId('view-front').locator('canvas').first().waitFor();
+    await showBothFaces(page);
     await page.getByTestId('draft-canvas').focus();
     await page.keyboard.press('ArrowRight');
     const reloaded = await settled(page);
     expect(reloaded).toEqual(changed);
     await screenshot(page, 'editor-double-weave-reloaded');
-    expect(browser.errors.filter((e) => !/thumbnail|404/.test(e))).toEqual([]);
+    expect(app.browser.errors.filter((e) => !/thumbnail|404/.test(e))).toEqual([]);
   });
 });

@@ -1,30 +1,14 @@
 // A student makes a studio draft their own: signs in, opens the lead's scarf, makes a new colourway
 // with one colour changed, lands on their copy, and sees where it came from (and the scarf sees it too).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../server/db/demo-accounts';
-import { openBrowser, screenshot, startAppServer, type AppServer, type Browser } from '../helpers/e2e';
+import { describe, expect, it } from 'vitest';
+import { screenshot, signIn, useAppAndBrowser } from '../helpers/e2e';
 
-let server: AppServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startAppServer();
-  browser = await openBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const app = useAppAndBrowser();
 
 describe('new colourway as a student', () => {
   it('forks the demo scarf into the student\'s own drafts and shows the lineage both ways', async () => {
-    const { page } = browser;
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel('E-mail').fill('student1@shedwright.test');
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/drafts/);
+    const { page } = app.browser;
+    await signIn(page, app.server, 'student1@shedwright.test');
 
     await page.getByRole('link', { name: 'Point twill scarf' }).first().click();
     await page.waitForURL(/\/drafts\/\d+$/);
@@ -56,6 +40,6 @@ describe('new colourway as a student', () => {
     await forkedFrom.getByRole('link', { name: 'Point twill scarf' }).click();
     await page.waitForURL(scarfUrl);
     await page.getByRole('list', { name: 'Colourways made from this draft' }).getByRole('link', { name: 'Scarf in rust' }).waitFor();
-    expect(browser.errors).toEqual([]);
+    expect(app.browser.errors).toEqual([]);
   });
 });

@@ -1,35 +1,20 @@
 // The loom-side guide as a student meets it: open the double-weave mat at the loom, thread from
 // the back of the loom for a few groups, reload, and find the same place.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { demoAccounts } from '../../server/db/demo-accounts';
-import { openBrowser, screenshot, startAppServer, type AppServer, type Browser } from '../helpers/e2e';
+import { screenshot, signIn, useAppAndBrowser } from '../helpers/e2e';
 
 /** The demo draft the test threads (its link text in the library). */
-const DRAFT_LINK = /double weave table mat/i;
+const DRAFT_LINK = /double weave table mat — harbour/i;
 const student = demoAccounts.find((a) => a.role === 'viewer')!;
 
-let server: AppServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startAppServer();
-  browser = await openBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const app = useAppAndBrowser();
 
 describe('At the loom', () => {
   it('threads from the back a few groups, and finds the same group after a reload', async () => {
-    const { page } = browser;
+    const { page } = app.browser;
     await page.setViewportSize({ width: 1024, height: 1366 });
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel('E-mail').fill(student.email);
-    await page.getByLabel('Password').fill(student.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/drafts$/);
+    await signIn(page, app.server, student.email, student.password);
 
     await page.getByRole('link', { name: DRAFT_LINK }).first().click();
     await page.waitForURL(/\/drafts\/\d+$/);
@@ -59,17 +44,17 @@ describe('At the loom', () => {
     await page.getByText(/^Threading: group 4 of \d+$/).waitFor();
     expect(await heading.textContent()).toBe(before);
     expect(await page.getByRole('button', { name: 'Back of the loom' }).getAttribute('aria-pressed')).toBe('true');
-    expect(browser.errors).toEqual([]);
+    expect(app.browser.errors).toEqual([]);
 
     // At a loom with no connection: the app itself comes from the service worker's cache, and the
     // guide from the copy kept on the device; a step taken offline is kept and sent later.
     await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
-    await browser.context.setOffline(true);
+    await app.browser.context.setOffline(true);
     await page.reload();
     await page.getByText(/^Threading: group 4 of \d+$/).waitFor();
     await page.getByRole('button', { name: /Next group/ }).click();
     await page.getByText(/^Threading: group 5 of \d+$/).waitFor();
-    await browser.context.setOffline(false);
+    await app.browser.context.setOffline(false);
     await page.getByText('Place saved.').waitFor({ timeout: 20_000 });
     await page.reload();
     await page.getByText(/^Threading: group 5 of \d+$/).waitFor();

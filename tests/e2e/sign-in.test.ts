@@ -1,28 +1,17 @@
 // The foundation as a person meets it: the built app served by the real server, each demo role
 // signs in through the form and sees the drafts library with what that role may see.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { demoAccounts } from '../../server/db/demo-accounts';
-import { openBrowser, screenshot, startAppServer, type AppServer, type Browser } from '../helpers/e2e';
+import { screenshot, useAppAndBrowser } from '../helpers/e2e';
 
-let server: AppServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startAppServer();
-  browser = await openBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const app = useAppAndBrowser();
 
 describe('signing in as each demo role', () => {
   for (const account of demoAccounts) {
     it(`${account.role} ${account.email} signs in and sees the library`, async () => {
-      const { page } = browser;
-      await browser.context.clearCookies();
-      await page.goto(`${server.url}/drafts`);
+      const { page } = app.browser;
+      await app.browser.context.clearCookies();
+      await page.goto(`${app.server.url}/drafts`);
       // Signed out, the guard sends the visitor to the sign-in page.
       await page.waitForURL(/\/sign-in/);
       await page.getByLabel('E-mail').fill(account.email);
@@ -38,7 +27,9 @@ describe('signing in as each demo role', () => {
         await page.getByText('No drafts yet').waitFor();
       } else {
         await page.getByRole('link', { name: 'Point twill scarf' }).waitFor();
-        await page.getByRole('link', { name: /double weave table mat/i }).waitFor();
+        await page.getByRole('link', { name: /double weave table mat — harbour/i }).waitFor();
+        // The second colourway is a fork of the first, made in the studio.
+        await page.getByRole('link', { name: /double weave table mat — meadow/i }).waitFor();
       }
       await screenshot(page, `library-${account.role}-${account.email.split('@')[0]}`);
       await page.getByRole('button', { name: 'Sign out' }).click();
@@ -47,13 +38,13 @@ describe('signing in as each demo role', () => {
   }
 
   it('a wrong password is refused with a plain message and no console errors beyond the 401', async () => {
-    const { page } = browser;
-    await page.goto(`${server.url}/sign-in`);
+    const { page } = app.browser;
+    await page.goto(`${app.server.url}/sign-in`);
     await page.getByLabel('E-mail').fill('lead@shedwright.test');
     await page.getByLabel('Password').fill('not-the-password');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.getByText('That e-mail and password do not match an account.').waitFor();
     expect(page.url()).toMatch(/\/sign-in/);
-    expect(browser.errors.filter((e) => !/401|Unauthorized/.test(e))).toEqual([]);
+    expect(app.browser.errors.filter((e) => !/401|Unauthorized/.test(e))).toEqual([]);
   });
 });

@@ -6,6 +6,8 @@ import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
+import { DEMO_PASSWORD } from '../../server/db/demo-accounts';
 
 const root = new URL('../..', import.meta.url).pathname;
 export const artifactsDir = join(root, 'tests/e2e/artifacts');
@@ -113,4 +115,30 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   const path = join(artifactsDir, `${name}.png`);
   await page.screenshot({ path, fullPage: true });
   return path;
+}
+
+/**
+ * One served app and one browser for a whole test file, started before its tests and stopped after.
+ * Read `app.server` and `app.browser` inside the tests.
+ */
+export function useAppAndBrowser(): { server: AppServer; browser: Browser } {
+  const app = {} as { server: AppServer; browser: Browser };
+  beforeAll(async () => {
+    app.server = await startAppServer();
+    app.browser = await openBrowser();
+  });
+  afterAll(async () => {
+    await app.browser?.close();
+    await app.server?.stop();
+  });
+  return app;
+}
+
+/** Signs in through the form as a person would and waits for the drafts library. */
+export async function signIn(page: Page, server: AppServer, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(/\/drafts$/);
 }

@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { draftDetailResponseSchema, draftListResponseSchema, type DraftSummary } from '../../shared/api/drafts';
 import { parseDraft } from '../../shared/weave';
-import { colourAndWeaveSampler, pointTwillScarf, straightTwillTrial } from '../../server/db/seeders/demo-drafts';
+import { colourAndWeaveSampler, doubleWeaveTableMat, pointTwillScarf, straightTwillTrial } from '../../server/db/seeders/demo-drafts';
 import { createDraft, draftStats } from '../../server/services/drafts';
 import { startTestServer, type TestServer } from '../helpers/server';
 
@@ -16,7 +16,9 @@ describe('demo drafts', () => {
     expect(draftStats(pointTwillScarf())).toEqual({ ends: 60, picks: 60, shafts: 4, colors: 2 });
     expect(draftStats(colourAndWeaveSampler())).toEqual({ ends: 48, picks: 48, shafts: 4, colors: 2 });
     expect(draftStats(straightTwillTrial())).toEqual({ ends: 24, picks: 24, shafts: 4, colors: 2 });
-    for (const draft of [pointTwillScarf(), colourAndWeaveSampler(), straightTwillTrial()]) {
+    // 11 profile blocks × 40 ends and 14 × 40 picks; two shafts per layer per block, two blocks.
+    expect(draftStats(doubleWeaveTableMat('harbour'))).toEqual({ ends: 440, picks: 560, shafts: 8, colors: 3 });
+    for (const draft of [pointTwillScarf(), colourAndWeaveSampler(), straightTwillTrial(), doubleWeaveTableMat('meadow')]) {
       expect(parseDraft(JSON.parse(JSON.stringify(draft)))).toEqual(draft);
     }
   });

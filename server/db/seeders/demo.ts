@@ -2,7 +2,8 @@ import type { Models } from '../../models';
 import { createDraft } from '../../services/drafts';
 import { hashPassword } from '../../services/passwords';
 import { DEMO_STUDIO_NAME, demoAccounts } from '../demo-accounts';
-import { colourAndWeaveSampler, doubleWeaveTableMat, pointTwillScarf, straightTwillTrial } from './demo-drafts';
+import { forkDraft } from '../../services/draft-lifecycle';
+import { colourAndWeaveSampler, doubleWeaveTableMat, pointTwillScarf, straightTwillTrial, TABLE_MAT_COLOURWAYS } from './demo-drafts';
 
 /** True when no account exists yet, the one case in which the demo is added. */
 export async function isEmpty(models: Models): Promise<boolean> {
@@ -33,8 +34,11 @@ export async function seedDemo(models: Models): Promise<void> {
   await createDraft(models, {
     ownerId: assistant, studioId: studio.id, document: colourAndWeaveSampler(), tags: ['plain weave', 'colour and weave', 'sampler'],
   });
-  await createDraft(models, {
+  const mat = await createDraft(models, {
     ownerId: lead, studioId: studio.id, document: doubleWeaveTableMat('harbour'), tags: ['double weave', 'table mat', 'blocks'],
   });
+  // The second colourway is a fork of the first, as a weaver would make it, so the lineage shows.
+  const meadow = TABLE_MAT_COLOURWAYS.meadow;
+  await forkDraft(models, assistant, mat.id, { name: meadow.name, palette: [...meadow.palette], studioId: studio.id });
   await createDraft(models, { ownerId: student, studioId: null, document: straightTwillTrial(), tags: ['twill'] });
 }

@@ -11,7 +11,7 @@ import type { DraftDetail } from '../../types/api';
 
 /**
  * What the Drafts service adds to a draft's page: history, new colourway, lineage, the public link
- * (editors and owners), exports and comments. Shown once the page's own query has the draft.
+ * (editors and owners) and comments; exports sit with printing. Shown once the page's own query has the draft.
  */
 export function DraftExtras({ draftId }: { draftId: number }) {
   const draft = useDraft(draftId).data?.draft;
@@ -26,8 +26,6 @@ function Extras({ draft }: { draft: DraftDetail }) {
     <div className="mt-8 flex flex-col gap-8">
       <div className="flex flex-wrap items-center gap-4 text-sm">
         <DraftHistoryLink draftId={draft.id} />
-        <a href={`/api/drafts/${draft.id}/export.wif`} download>Export WIF</a>
-        <a href={`/api/drafts/${draft.id}/export.json`} download>Export JSON</a>
         {document.success && (
           <NewColourwayDialog draftId={draft.id} draftName={draft.name} version={draft.version} palette={document.data.palette}
             yarns={yarns.data?.yarns ?? []} />
