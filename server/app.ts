@@ -31,6 +31,13 @@ export function createApp(ctx: AppContext): Express {
     saveUninitialized: false,
     cookie: { httpOnly: true, sameSite: 'lax', secure, maxAge: config.sessionMaxAgeMs },
   }));
+  // The session store hands back an expired session until its periodic sweep deletes it: a browser
+  // drops the cookie by then, but a copied cookie sent again must not sign anyone in either.
+  api.use((req, _res, next) => {
+    const expires = req.session?.cookie.expires;
+    if (expires && expires.getTime() <= Date.now()) req.session.regenerate(next);
+    else next();
+  });
   api.use(ctx.passport.session());
   api.use(csrfSynchronisedProtection);
   api.use(apiRouter(ctx));
