@@ -31,6 +31,7 @@ export function CommentsPanel({ draftId, version, currentUserId }: { draftId: nu
   return (
     <section aria-labelledby="comments-heading" className="flex flex-col gap-3 text-sm">
       <h2 id="comments-heading" className="text-lg font-semibold">Comments</h2>
+      {remove.isError && <ErrorNotice title="Could not delete the comment" error={remove.error} />}
       {comments.isPending ? <Spinner label="Loading comments…" /> : comments.isError ? (
         <ErrorNotice title="Could not load comments" error={comments.error} onRetry={() => void comments.refetch()} />
       ) : comments.data.comments.length === 0 ? (

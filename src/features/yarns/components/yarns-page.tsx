@@ -48,6 +48,7 @@ function YarnRow({ yarn }: { yarn: Yarn }) {
     return (
       <tr className="border-b border-line">
         <td colSpan={6} className={cell}>
+          {update.isError && Object.keys(fieldErrorsOf(update.error)).length === 0 && <ErrorNotice title="Could not save the yarn" error={update.error} />}
           <YarnForm initial={yarn} submitLabel="Save" busy={update.isPending} error={update.error} onCancel={() => setEditing(false)}
             onSave={(body) => update.mutate({ id: yarn.id, ...body }, { onSuccess: () => setEditing(false) })} />
         </td>
@@ -55,6 +56,7 @@ function YarnRow({ yarn }: { yarn: Yarn }) {
     );
   }
   return (
+    <>
     <tr className="border-b border-line last:border-b-0">
       <th scope="row" className={`${cell} font-medium`}>{yarn.name}</th>
       <td className={cell}>{yarn.fibre}</td>
@@ -73,6 +75,12 @@ function YarnRow({ yarn }: { yarn: Yarn }) {
         </Button>
       </td>
     </tr>
+    {remove.isError && (
+      <tr className="border-b border-line">
+        <td colSpan={6} className={cell}><ErrorNotice title={`Could not remove ${yarn.name}`} error={remove.error} /></td>
+      </tr>
+    )}
+    </>
   );
 }
 
