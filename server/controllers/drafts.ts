@@ -1,9 +1,9 @@
 import type { CreateDraftBody, DraftListQuery, ForkBody, SaveDraftBody, UpdateDraftBody } from '../../shared/api';
 import { toWif } from '../../shared/weave';
-import { notFound } from '../middleware/errors';
 import type { Ctx } from '../routes/route';
 import { versionDocument } from '../services/draft-documents';
 import { attachmentDisposition, draftFromWifFile } from '../services/draft-files';
+import { draftThumbnail } from '../services/draft-thumbnails';
 import { createFromBody, createFromDocument, deleteDraft, forkDraft, lineage, updateDraft } from '../services/draft-lifecycle';
 import { saveDraft, VersionConflict } from '../services/draft-versions';
 import { draftDetail, listDrafts } from '../services/drafts';
@@ -41,10 +41,9 @@ export async function save({ app, req, res, params, body }: Ctx<SaveDraftBody, u
 }
 
 export async function thumbnail({ app, res, params }: Ctx<unknown, unknown, { id: number }>) {
-  const row = await app.models.Draft.findByPk(params.id, { attributes: ['thumbnail'] });
-  if (!row?.thumbnail) throw notFound('This draft has no cloth to show yet');
+  const png = await draftThumbnail(app.models, params.id);
   // Addresses carry ?v=<version>, so a cached copy is never stale.
-  res.set('Cache-Control', 'private, max-age=31536000, immutable').type('image/png').send(row.thumbnail);
+  res.set('Cache-Control', 'private, max-age=31536000, immutable').type('image/png').send(png);
 }
 
 export async function fork({ app, req, res, params, body }: Ctx<ForkBody, unknown, { id: number }>) {

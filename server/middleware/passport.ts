@@ -4,7 +4,9 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type { Models, UserRow } from '../models';
 import { checkCredentials } from '../services/auth';
 
-const toUser = (row: UserRow): Express.User => ({ id: row.id, email: row.email, name: row.name, isAdmin: row.isAdmin });
+type UserFields = Pick<UserRow, 'id' | 'email' | 'name' | 'isAdmin'>;
+// Boolean(): a plain row read without a model instance carries the column's 0 or 1.
+const toUser = (row: UserFields): Express.User => ({ id: row.id, email: row.email, name: row.name, isAdmin: Boolean(row.isAdmin) });
 
 /**
  * A passport instance per app (not the global one), so apps on different databases can coexist in tests.
@@ -21,7 +23,8 @@ export function createPassport(models: Models): passport.PassportStatic {
     }));
   instance.serializeUser((user, done) => done(null, user.id));
   instance.deserializeUser((id: number, done) => {
-    models.User.findByPk(id)
+    // Read on every request: only the fields a request needs, as a plain row.
+    models.User.findByPk(id, { attributes: ['id', 'email', 'name', 'isAdmin'], raw: true })
       .then((row) => done(null, row ? toUser(row) : false))
       .catch(done);
   });

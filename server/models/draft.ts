@@ -21,7 +21,7 @@ export interface DraftAttributes {
   /** The draft this one was forked from, and from which of its versions. */
   parentDraftId: number | null;
   parentVersion: number | null;
-  /** PNG of the start of the cloth, rendered when the document is saved. */
+  /** PNG of the start of the cloth; a save clears it and the first request for it renders it (services/draft-thumbnails). */
   thumbnail: Buffer | null;
   /** Number of the newest DraftVersion. */
   version: number;

@@ -108,7 +108,10 @@ export function draftStats(draft: Draft): Pick<DraftAttributes, 'ends' | 'picks'
   };
 }
 
-/** Every column computed from the document, written whenever the document changes. */
+/**
+ * Every column computed from the document, written whenever the document changes. The thumbnail is
+ * cleared, to be rendered when it is first asked for (services/draft-thumbnails).
+ */
 export function derivedColumns(draft: Draft): Pick<DraftAttributes, 'ends' | 'picks' | 'shafts' | 'colors' | 'structure' | 'thumbnail'> {
-  return { ...draftStats(draft), structure: structureTags(draft), thumbnail: thumbnailPng(draft) };
+  return { ...draftStats(draft), structure: structureTags(draft), thumbnail: null };
 }

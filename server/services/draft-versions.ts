@@ -15,25 +15,32 @@ export class VersionConflict extends HttpError {
 }
 
 /**
- * Writes `document` as the next version, provided the draft is still at `baseVersion`.
- * NOTE: the draft row is locked (SELECT … FOR UPDATE) for the whole transaction, so of two saves from
- * the same base exactly one sees its base as current; the other waits, then gets the conflict.
- * Parsing and rendering happen before the lock so it is held only for the writes.
+ * Writes `document` as the next version, provided the draft is still at `baseVersion` (at whatever
+ * version it is for `null`).
+ * NOTE: the update names the base version in its WHERE, and InnoDB holds the row's lock from that
+ * update to the commit, so of two saves from the same base exactly one changes the row; the other
+ * waits, then changes nothing and gets the conflict. Parsing and the derived columns are computed
+ * before the transaction so the lock is held only for the writes.
  */
 async function writeVersion(
   models: Models, draftId: number, authorId: number, document: Draft, message: string, baseVersion: number | null,
 ): Promise<{ version: number }> {
   const derived = derivedColumns(document);
   return models.Draft.sequelize!.transaction(async (transaction) => {
-    const row = await models.Draft.findByPk(draftId, { attributes: ['id', 'version'], transaction, lock: transaction.LOCK.UPDATE });
-    if (!row) throw notFound('No such draft');
-    if (baseVersion !== null && row.version !== baseVersion) {
-      const current = await models.Draft.findByPk(draftId, { attributes: ['document'], transaction });
-      throw new VersionConflict({ version: row.version, document: current!.document });
+    let base = baseVersion;
+    if (base === null) {
+      const row = await models.Draft.findByPk(draftId, { attributes: ['version'], transaction, lock: transaction.LOCK.UPDATE });
+      if (!row) throw notFound('No such draft');
+      base = row.version;
     }
-    const version = row.version + 1;
+    const version = base + 1;
+    const [changed] = await models.Draft.update({ document, version, ...derived }, { where: { id: draftId, version: base }, transaction });
+    if (changed === 0) {
+      const current = await models.Draft.findByPk(draftId, { attributes: ['version', 'document'], transaction });
+      if (!current) throw notFound('No such draft');
+      throw new VersionConflict({ version: current.version, document: current.document });
+    }
     await models.DraftVersion.create({ draftId, version, authorId, message, document }, { transaction });
-    await models.Draft.update({ document, version, ...derived }, { where: { id: draftId }, transaction });
     return { version };
   });
 }

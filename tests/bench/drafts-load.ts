@@ -10,7 +10,8 @@
  *     it is based on, so each in-flight save takes a draft of its own from a pool and returns it with
  *     the new version when the answer comes (a 409 here would be a bug in the test, and is counted).
  * Prints requests/s, p50/p95/p99 latency and error counts. Targets: p95 ≤ 50 ms (list),
- * ≤ 100 ms (save), zero errors. Options: --duration=20 --connections=50.
+ * ≤ 100 ms (save), zero errors. Options: --duration=20 --connections=50 --cpu-prof=DIR; with
+ * SHEDWRIGHT_BENCH_WORKERS=2 the app runs as two node:cluster workers (see drafts-load-server.ts).
  */
 import { spawn } from 'node:child_process';
 import { once } from 'node:events';
@@ -22,42 +23,14 @@ import { startFakeSmtp } from '../../server/mail/fake-smtp';
 import { derivedColumns } from '../../server/services/draft-derived';
 import { createDraft } from '../../server/services/drafts';
 import { signUp } from '../../server/services/auth';
-import { createDraft as buildDraft, type Draft } from '../../shared/weave';
 import { testConfig, uniqueEmail } from '../helpers/test-db';
+import { bigDraft } from './drafts-load-data';
 
 const arg = (name: string, fallback: number) => Number(process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1] ?? fallback);
 const DURATION_S = arg('duration', 20);
 const CONNECTIONS = arg('connections', 50);
 const LIBRARY_SIZE = 1000;
 const PASSWORD = 'bench-password-loom';
-
-/** Seeded so every run saves the same cloth. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** An 8-shaft, 8-treadle draft, 400 ends × 400 picks, four colours. */
-function bigDraft(seed: number): Draft {
-  const next = random(seed);
-  const pick = (n: number) => 1 + Math.floor(next() * n);
-  return buildDraft({
-    name: `Load test ${seed}`,
-    shafts: 8,
-    treadles: 8,
-    threading: Array.from({ length: 400 }, () => [pick(8)]),
-    tieup: Array.from({ length: 8 }, (_, t) => [1 + t, 1 + ((t + 1) % 8), 1 + ((t + 3) % 8)].sort((x, y) => x - y)),
-    treadling: Array.from({ length: 400 }, () => [pick(8)]),
-    palette: ['#2d3a4a', '#e8dcc0', '#9c4a2f', '#5f7f5a'],
-    warpColors: Array.from({ length: 400 }, () => pick(4) - 1),
-    weftColors: Array.from({ length: 400 }, () => pick(4) - 1),
-  });
-}
 
 function percentile(sorted: number[], p: number): number {
   if (sorted.length === 0) return NaN;
@@ -113,7 +86,10 @@ async function signIn(base: string, email: string): Promise<{ cookie: string; cs
 const smtp = await startFakeSmtp(0);
 const ctx = createContext(testConfig(), smtp);
 await migrate(ctx.sequelize);
-const child = spawn(process.execPath, ['--import', 'tsx', new URL('./drafts-load-server.ts', import.meta.url).pathname], {
+// --cpu-prof=DIR writes a V8 profile of the app process there when it exits.
+const profileDir = process.argv.find((a) => a.startsWith('--cpu-prof='))?.split('=')[1];
+const profile = profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [];
+const child = spawn(process.execPath, [...profile, '--import', 'tsx', new URL('./drafts-load-server.ts', import.meta.url).pathname], {
   stdio: ['ignore', 'pipe', 'inherit'],
 });
 const [line] = await Promise.race([

@@ -191,6 +191,23 @@ describe('thumbnails and the library', () => {
     expect(await ids('shafts=8')).toEqual([]);
   });
 
+  it('renders the thumbnail again for the new version after a save, in the new colours', async () => {
+    const s = await studioScene();
+    const firstPixel = async (url: string) => {
+      const bytes = (await s.viewer.client.agent.get(url).buffer(true)).body as Buffer;
+      const idatAt = bytes.indexOf('IDAT');
+      const raw = inflateSync(bytes.subarray(idatAt + 4, idatAt + 4 + bytes.readUInt32BE(idatAt - 4)));
+      return `#${raw.subarray(1, 4).toString('hex')}`;
+    };
+    expect(['#1f5f6b', '#efe6d2']).toContain(await firstPixel(`/api/drafts/${s.draftId}/thumbnail.png?v=1`));
+    const recoloured = { ...pointTwillScarf(), palette: ['#aa0000', '#00aa00'] };
+    expect((await put(s.editor.client, s.draftId, { document: recoloured, baseVersion: 1 })).status).toBe(200);
+    const list = draftListResponseSchema.parse((await s.viewer.client.get(`/api/drafts?studio=${s.studioId}`)).body);
+    const url = list.items.find((d) => d.id === s.draftId)!.thumbnailUrl!;
+    expect(url).toBe(`/api/drafts/${s.draftId}/thumbnail.png?v=2`);
+    expect(['#aa0000', '#00aa00']).toContain(await firstPixel(url));
+  });
+
   it('offers the client exactly the structures the server tags', () => {
     expect([...STRUCTURES]).toEqual([...STRUCTURE_TAGS]);
   });

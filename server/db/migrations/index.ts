@@ -3,6 +3,7 @@ import type { RunnableMigration } from 'umzug';
 import * as initial from './0001-initial';
 import * as plansAndProgress from './0002-plans-and-progress';
 import * as draftsService from './0003-drafts-service';
+import * as listIndexes from './0004-list-indexes';
 
 /**
  * Every migration, oldest first. Listed by hand rather than globbed so the list is type-checked and
@@ -12,4 +13,5 @@ export const migrations: RunnableMigration<QueryInterface>[] = [
   { name: '0001-initial', ...initial },
   { name: '0002-plans-and-progress', ...plansAndProgress },
   { name: '0003-drafts-service', ...draftsService },
+  { name: '0004-list-indexes', ...listIndexes },
 ];
