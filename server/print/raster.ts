@@ -1,4 +1,4 @@
-import { computeDrawdown, hexToRgb, renderCloth, simulateLayers, type Draft, type Drawdown, type LayerSimulation } from '../../shared/weave';
+import { computeDrawdown, hexToRgb, isLayered, renderCloth, simulateLayers, type Draft, type Drawdown, type LayerSimulation } from '../../shared/weave';
 import type { Span } from '../../shared/print/page-split';
 
 /** One pixel per cell: column = end, row = pick (both 0-based), 3 bytes (RGB) per pixel. */
@@ -24,11 +24,6 @@ export const LAYER_TINTS: readonly string[] = ['#f1ece1', '#6f7f9e', '#d9a441', 
 /** The colour of layer `n` (1-based) in the layer map. */
 export function layerTint(n: number): string {
   return LAYER_TINTS[(n - 1) % LAYER_TINTS.length];
-}
-
-/** True when the draft puts its ends or picks in more than one layer. */
-export function isLayered(draft: Draft): boolean {
-  return draft.warpLayers.some((l) => l > 1) || draft.weftLayers.some((l) => l > 1);
 }
 
 /** What the cell images are made from, computed once per print. */

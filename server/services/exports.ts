@@ -2,12 +2,11 @@ import type { DrawdownPngQuery, PrintQuery } from '../../shared/api/exports';
 import type { LoomList } from '../../shared/api/plans';
 import type { PlanDocument } from '../../shared/plan';
 import type { LoomListKind, PrintMeta } from '../../shared/print/types';
-import { parseDraft, pickCount, type Draft } from '../../shared/weave';
+import { isLayered, parseDraft, pickCount, type Draft } from '../../shared/weave';
 import { HttpError, notFound } from '../middleware/errors';
 import type { Models } from '../models';
 import { renderDraftPdf } from '../print/draft-pdf';
 import { renderDrawdownPngAsync } from '../print/drawdown-png';
-import { isLayered } from '../print/raster';
 import { getPlan } from './plans';
 import { sharedDraft } from './sharing';
 

@@ -578,3 +578,8 @@ function sameRow(a: Uint8Array, i: number, j: number, n: number): boolean {
   for (let k = 0; k < n; k++) if (a[i + k] !== a[j + k]) return false;
   return true;
 }
+
+/** Whether any end or pick of the draft is in a layer other than 1 (double weave and beyond). */
+export function isLayered(draft: Draft): boolean {
+  return draft.warpLayers.some((l) => l !== 1) || draft.weftLayers.some((l) => l !== 1);
+}

@@ -1,20 +1,10 @@
 // The cloth the drafts load test and its profile save, shared so both measure the same documents.
 import { createDraft, type Draft } from '../../shared/weave';
-
-/** Seeded so every run saves the same cloth. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seededRandom } from './seeded-random';
 
 /** An 8-shaft, 8-treadle draft, 400 ends × 400 picks, four colours. */
 export function bigDraft(seed: number): Draft {
-  const next = random(seed);
+  const next = seededRandom(seed);
   const pick = (n: number) => 1 + Math.floor(next() * n);
   return createDraft({
     name: `Load test ${seed}`,

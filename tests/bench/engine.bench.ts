@@ -7,17 +7,7 @@ import { computeDrawdown } from '../../shared/weave/drawdown';
 import { createDraft } from '../../shared/weave/draft';
 import type { Draft } from '../../shared/weave/types';
 import { mathjsDrawdown } from '../shared/weave/reference';
-
-/** Small seeded generator so every run times the same drafts. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seededRandom } from './seeded-random';
 
 function randomSubset(next: () => number, n: number): number[] {
   return Array.from({ length: n }, (_, i) => i + 1).filter(() => next() < 0.5);
@@ -29,7 +19,7 @@ function randomSubset(next: () => number, n: number): number[] {
  * tied at random and one or two pressed per pick.
  */
 function benchDraft(ends: number, picks: number, control: Draft['control'], seed: number): Draft {
-  const next = random(seed);
+  const next = seededRandom(seed);
   const shafts = 32;
   const threading = Array.from({ length: ends }, () => [1 + Math.floor(next() * shafts)]);
   if (control === 'liftplan') {

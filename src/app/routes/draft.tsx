@@ -16,9 +16,17 @@ export function DraftRoute() {
         <Link to={`/drafts/${id}/plan`}>Plan</Link>
         <Link to={`/drafts/${id}/loom`}>At the loom</Link>
       </nav>
-      <DraftOverview key={id} draftId={id} editor={(draft) => <DraftEditorRegion draft={draft} />} />
+      <DraftOverview
+        key={id}
+        draftId={id}
+        editor={(draft) => (
+          <>
+            <DraftEditorRegion draft={draft} />
+            <DraftPrintSection draftId={draft.id} document={draft.document} />
+          </>
+        )}
+      />
       <DraftExtras key={`extras-${id}`} draftId={id} />
-      <DraftPrintSection key={`print-${id}`} draftId={id} />
     </>
   );
 }

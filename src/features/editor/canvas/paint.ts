@@ -1,4 +1,4 @@
-import type { Cloth, Draft, Drawdown, FaceImage, Float } from '../../../../shared/weave';
+import type { Cloth, Drawdown, FaceImage, Float } from '../../../../shared/weave';
 import { rowOfShaft } from './layout';
 import { pixel } from './bitmap';
 
@@ -80,11 +80,6 @@ export function tile(out: Uint32Array, src: Uint32Array, width: number, height: 
     const from = (y % height) * width;
     for (let t = 0; t < across; t++) out.set(src.subarray(from, from + width), y * outWidth + t * width);
   }
-}
-
-/** Whether any end or pick of the draft is in a layer other than 1 (double weave and beyond). */
-export function isLayered(draft: Draft): boolean {
-  return draft.warpLayers.some((l) => l !== 1) || draft.weftLayers.some((l) => l !== 1);
 }
 
 /** A face of layered cloth (front, or back already mirrored by the engine) in palette colours. */

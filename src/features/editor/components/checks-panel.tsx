@@ -1,6 +1,5 @@
 import { useMemo } from 'react';
-import { checkThreading, type Float } from '../../../../shared/weave';
-import { isLayered } from '../canvas/paint';
+import { checkThreading, isLayered, type Float } from '../../../../shared/weave';
 import { useStore } from '../store/create-store';
 import { useEditorContext } from './editor-context';
 import { useSettledDraft } from './use-settled-draft';

@@ -1,10 +1,10 @@
 import type Konva from 'konva';
 import { memo, useEffect, useMemo, useRef } from 'react';
 import { Image as KonvaImage, Layer, Stage } from 'react-konva';
-import type { Draft } from '../../../../shared/weave';
+import { isLayered, type Draft } from '../../../../shared/weave';
 import { GridBitmap } from '../canvas/bitmap';
 import type { Derived } from '../canvas/derived';
-import { isLayered, paintCloth, paintFace, paintFloats, paintLayerMap, paintStructure, tile } from '../canvas/paint';
+import { paintCloth, paintFace, paintFloats, paintLayerMap, paintStructure, tile } from '../canvas/paint';
 import { useStore } from '../store/create-store';
 import { CLOTH_VIEWS, type ClothView } from '../store/editor';
 import { useEditorContext } from './editor-context';
