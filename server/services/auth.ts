@@ -1,14 +1,12 @@
-import { createHash, randomBytes } from 'node:crypto';
 import { Op, UniqueConstraintError } from 'sequelize';
 import type { ResetBody, SignUpBody } from '../../shared/api/auth';
 import type { Mailer } from '../mail/mailer';
 import { conflict, HttpError } from '../middleware/errors';
 import type { Models, UserRow } from '../models';
 import { dummyPasswordHash, hashPassword, verifyPassword } from './passwords';
+import { newToken, tokenHash } from './tokens';
 
 export const RESET_TOKEN_TTL_MS = 60 * 60 * 1000;
-
-const sha256 = (text: string) => createHash('sha256').update(text).digest('hex');
 
 /** Creates an account; 409 when the e-mail is taken. */
 export async function signUp(models: Models, body: SignUpBody): Promise<UserRow> {
@@ -37,10 +35,10 @@ export async function requestPasswordReset(
 ): Promise<void> {
   const user = await models.User.findOne({ where: { email } });
   if (!user) return;
-  const token = randomBytes(32).toString('base64url');
+  const token = newToken();
   await models.PasswordReset.create({
     userId: user.id,
-    tokenHash: sha256(token),
+    tokenHash: tokenHash(token),
     expiresAt: new Date(now.getTime() + RESET_TOKEN_TTL_MS),
   });
   const link = `${publicUrl}/reset?token=${encodeURIComponent(token)}`;
@@ -59,7 +57,7 @@ export async function resetPassword(models: Models, body: ResetBody, now = new D
   const passwordHash = await hashPassword(body.password);
   const user = await models.User.sequelize!.transaction(async (transaction) => {
     // Claiming the token with a conditional update makes single use hold even for two requests at once.
-    const reset = await models.PasswordReset.findOne({ where: { tokenHash: sha256(body.token) }, transaction });
+    const reset = await models.PasswordReset.findOne({ where: { tokenHash: tokenHash(body.token) }, transaction });
     if (!reset) return null;
     const [claimed] = await models.PasswordReset.update(
       { usedAt: now },

@@ -3,10 +3,11 @@ import { DraftError, parseDraft } from '../../../shared/weave';
 import { ErrorNotice } from '../../components/ui/error-notice';
 import { DraftEditor } from '../../features/editor';
 import { useSaveDraft } from '../../features/library/api/save-draft';
+import { DraftPrintSection } from '../../features/print/components/draft-print-section';
 import type { DraftDetail } from '../../types/api';
 
 /**
- * The editor for the draft on this page. Viewers get it read-only; editors and owners save each
+ * The editor and the Print section for the draft on this page, from one parse of its document. Viewers get it read-only; editors and owners save each
  * settled edit as a new version on top of the one they opened.
  */
 export function DraftEditorRegion({ draft }: { draft: DraftDetail }) {
@@ -24,15 +25,18 @@ export function DraftEditorRegion({ draft }: { draft: DraftDetail }) {
   }
   const readOnly = draft.role === 'viewer';
   return (
-    <section aria-label="Draft editor" id="draft-editor">
-      <DraftEditor
-        key={draft.id}
-        draft={parsed.document}
-        version={draft.version}
-        draftId={String(draft.id)}
-        readOnly={readOnly}
-        onSave={readOnly ? undefined : save}
-      />
-    </section>
+    <>
+      <section aria-label="Draft editor" id="draft-editor">
+        <DraftEditor
+          key={draft.id}
+          draft={parsed.document}
+          version={draft.version}
+          draftId={String(draft.id)}
+          readOnly={readOnly}
+          onSave={readOnly ? undefined : save}
+        />
+      </section>
+      <DraftPrintSection draftId={draft.id} draft={parsed.document} />
+    </>
   );
 }

@@ -1,6 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
 import { DraftOverview } from '../../features/library/components/draft-overview';
-import { DraftPrintSection } from '../../features/print/components/draft-print-section';
 import { parseId } from '../parse-id';
 import { DraftEditorRegion } from './draft-editor-region';
 import { DraftExtras } from './draft-extras';
@@ -19,12 +18,7 @@ export function DraftRoute() {
       <DraftOverview
         key={id}
         draftId={id}
-        editor={(draft) => (
-          <>
-            <DraftEditorRegion draft={draft} />
-            <DraftPrintSection draftId={draft.id} document={draft.document} />
-          </>
-        )}
+        editor={(draft) => <DraftEditorRegion draft={draft} />}
       />
       <DraftExtras key={`extras-${id}`} draftId={id} />
     </>
