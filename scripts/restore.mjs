@@ -18,7 +18,7 @@ try {
   // Checked before the database is touched (or started), so a damaged backup changes nothing.
   verifyBackup(resolve(source));
   db = await openAppDatabase(root);
-  if (!db.startedHere) console.log('Note: the database is running; stop the app first so no one writes during the restore.');
+  if (!db.startedHere) console.log('Note: the database is running; stop the app first so no one writes during the restore (and restart it after: it keeps copies of sessions and library pages).');
   const manifest = await restore({ conn: db.conn, attachmentsDir: db.attachmentsDir, source: resolve(source), overwrite });
   console.log(`Restored ${manifest.counts.drafts} drafts, ${manifest.counts.versions} versions and `
     + `${manifest.counts.attachments} attachments from the backup of ${manifest.createdAt}.`);

@@ -1,5 +1,6 @@
 import connectSessionSequelize from 'connect-session-sequelize';
 import session from 'express-session';
+import { LRUCache } from 'lru-cache';
 import type { PassportStatic } from 'passport';
 import type { Sequelize } from 'sequelize';
 import type { CapturedMail } from '../shared/api/dev';
@@ -38,6 +39,43 @@ function throttleTouch(store: SessionStore): SessionStore {
   return store;
 }
 
+/**
+ * Every request reads its session before anything else; a copy of each session this process wrote or
+ * read is kept in memory and written through, so that read is no database query. Sessions change only
+ * through this store (sign-in, sign-out, regenerate), so with one app server (config.processCaches)
+ * the copy cannot go stale. It is kept as JSON because express-session changes the object it is handed.
+ * Expired sessions are judged by their cookie's expiry in createApp, as for sessions read from the table.
+ */
+function cacheSessions(store: SessionStore): SessionStore {
+  const copies = new LRUCache<string, string>({ max: 20_000 });
+  const get = store.get.bind(store);
+  const set = store.set.bind(store);
+  const destroy = store.destroy.bind(store);
+  store.get = (sid, callback) => {
+    const copy = copies.get(sid);
+    if (copy !== undefined) {
+      callback(null, JSON.parse(copy) as session.SessionData);
+      return;
+    }
+    get(sid, (err, data) => {
+      if (!err && data) copies.set(sid, JSON.stringify(data));
+      callback(err, data);
+    });
+  };
+  store.set = (sid, data, callback) => {
+    copies.delete(sid);
+    set(sid, data, (err) => {
+      if (!err) copies.set(sid, JSON.stringify(data));
+      callback?.(err);
+    });
+  };
+  store.destroy = (sid, callback) => {
+    copies.delete(sid);
+    destroy(sid, callback);
+  };
+  return store;
+}
+
 /** Everything createApp needs from outside: settings, database, session store and mail. */
 export interface AppContext {
   config: Config;
@@ -57,12 +95,13 @@ export interface AppContext {
 /** Opens the database and mail connections; `mailbox` is the fake SMTP server to send to and read from. */
 export function createContext(config: Config, mailbox: { port: number; mails: () => CapturedMail[] }): AppContext {
   const sequelize = createSequelize(config.db);
-  const models = defineModels(sequelize);
-  const sessionStore = throttleTouch(new SequelizeStore({
+  const models = defineModels(sequelize, { processCaches: config.processCaches });
+  const store = throttleTouch(new SequelizeStore({
     db: sequelize,
     table: 'Session',
     checkExpirationInterval: 15 * 60 * 1000,
   }));
+  const sessionStore = config.processCaches ? cacheSessions(store) : store;
   const mailer = createMailer(mailbox.port);
   return {
     config,

@@ -32,6 +32,12 @@ export interface Config {
   attachmentsDir: string;
   /** How long a session lasts after it was last saved; an older session cookie signs nobody in. */
   sessionMaxAgeMs: number;
+  /**
+   * Keep sessions, access rows and library pages in this process between requests (see
+   * server/models/access-cache.ts). Right for one app server; several servers on one database must
+   * turn it off, as one server would not see another's writes.
+   */
+  processCaches: boolean;
   rateLimit: RateLimitConfig;
 }
 
@@ -66,6 +72,7 @@ export function loadConfig(env: Env = process.env): Config {
     bodyLimit: env.SHEDWRIGHT_BODY_LIMIT || '2mb',
     attachmentsDir: env.SHEDWRIGHT_ATTACHMENTS_DIR || '.data/attachments',
     sessionMaxAgeMs: int(env, 'SHEDWRIGHT_SESSION_MAX_AGE_MS', 30 * 24 * 60 * 60 * 1000),
+    processCaches: env.SHEDWRIGHT_PROCESS_CACHES !== '0',
     rateLimit: {
       windowMs: int(env, 'SHEDWRIGHT_RATE_WINDOW_MS', 15 * 60 * 1000),
       signIn: int(env, 'SHEDWRIGHT_SIGNIN_LIMIT', 10),

@@ -10,8 +10,8 @@ const toUser = (row: UserFields): Express.User => ({ id: row.id, email: row.emai
 
 /**
  * A passport instance per app (not the global one), so apps on different databases can coexist in tests.
- * Only the user id goes into the session; the account is reloaded on each request so a deleted account
- * or a changed role takes effect at once.
+ * Only the user id goes into the session; each request looks the account up (in the access cache, which
+ * any change to users empties) so a deleted account or a changed role takes effect at once.
  */
 export function createPassport(models: Models): passport.PassportStatic {
   const instance = new passport.Passport() as passport.PassportStatic;
@@ -23,9 +23,8 @@ export function createPassport(models: Models): passport.PassportStatic {
     }));
   instance.serializeUser((user, done) => done(null, user.id));
   instance.deserializeUser((id: number, done) => {
-    // Read on every request: only the fields a request needs, as a plain row.
-    models.User.findByPk(id, { attributes: ['id', 'email', 'name', 'isAdmin'], raw: true })
-      .then((row) => done(null, row ? toUser(row) : false))
+    models.access.account(id)
+      .then((account) => done(null, account ?? false))
       .catch(done);
   });
   return instance;

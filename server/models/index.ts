@@ -14,12 +14,14 @@ import { defineComment } from './comment';
 import { defineInvitation } from './invitation';
 import { defineShareLink } from './share-link';
 import { defineYarn } from './yarn';
+import { createAccessCache } from './access-cache';
 
 /**
  * Defines every model on one Sequelize instance and wires the associations in this one place.
  * Models are defined per instance (not as shared classes) so two app instances can coexist in tests.
+ * `processCaches` turns on the access cache (off by default: only the long-running app server wants it).
  */
-export function defineModels(sequelize: Sequelize) {
+export function defineModels(sequelize: Sequelize, { processCaches = false } = {}) {
   const models = {
     User: defineUser(sequelize),
     Studio: defineStudio(sequelize),
@@ -59,7 +61,7 @@ export function defineModels(sequelize: Sequelize) {
 
   models.DraftPlan.belongsTo(User, { foreignKey: 'updatedById', as: 'updatedBy' });
   models.WeavingResult.belongsTo(User, { foreignKey: 'userId', as: 'weaver' });
-  return models;
+  return { ...models, access: createAccessCache(models, processCaches) };
 }
 
 export type Models = ReturnType<typeof defineModels>;

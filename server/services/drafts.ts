@@ -1,4 +1,4 @@
-import { col, fn, literal, Op, where, type Order, type WhereOptions } from 'sequelize';
+import { Op, QueryTypes, type WhereOptions } from 'sequelize';
 import type { StudioRole } from '../../shared/api/auth';
 import type { DraftDetail, DraftListQuery, DraftListResponse, DraftSummary } from '../../shared/api/drafts';
 import type { Draft } from '../../shared/weave/types';
@@ -43,14 +43,9 @@ export async function createDraft(
   });
 }
 
-async function memberStudioIds(models: Models, userId: number): Promise<number[]> {
-  const rows = await models.Membership.findAll({ where: { userId }, attributes: ['studioId'] });
-  return rows.map((r) => r.studioId);
-}
-
 /** The condition for drafts a user can see: their own, and those of their studios. */
 export async function visibleDraftsWhere(models: Models, userId: number): Promise<WhereOptions> {
-  const studioIds = await memberStudioIds(models, userId);
+  const studioIds = [...(await models.access.studioRoles(userId)).keys()];
   return studioIds.length > 0
     ? { [Op.or]: [{ ownerId: userId }, { studioId: { [Op.in]: studioIds } }] }
     : { ownerId: userId };
@@ -87,39 +82,57 @@ const LIST_COLUMNS = ['id', 'name', 'studioId', 'ends', 'picks', 'shafts', 'colo
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** The drafts a user owns or sees through a studio, filtered, sorted and paged. */
-export async function listDrafts(models: Models, userId: number, query: DraftListQuery): Promise<DraftListResponse> {
-  const filters: WhereOptions[] = [await visibleDraftsWhere(models, userId)];
-  if (query.q) filters.push({ name: { [Op.like]: `%${escapeLike(query.q)}%` } });
-  if (query.shafts) filters.push({ shafts: query.shafts });
-  if (query.studio) filters.push({ studioId: query.studio });
-  if (query.tag) filters.push(where(fn('JSON_CONTAINS', col('Draft.tags'), JSON.stringify(query.tag)), 1));
-  if (query.structure) filters.push(where(fn('JSON_CONTAINS', col('Draft.structure'), JSON.stringify(query.structure)), 1));
+const ORDER_KEYS = { updated: '`updatedAt`', name: '`name`', size: '`ends` * `picks`' } as const;
+type ListRow = Omit<SummarySource, 'tags' | 'structure'> & { tags: string | string[]; structure: string | string[] | null };
+const jsonList = (value: string | string[] | null): string[] => (typeof value === 'string' ? JSON.parse(value) as string[] : value ?? []);
 
+/**
+ * The drafts a user owns or sees through a studio, filtered, sorted and paged. Pages are kept in the
+ * library cache until the next write to drafts, users, studios or memberships.
+ */
+export function listDrafts(models: Models, userId: number, query: DraftListQuery): Promise<DraftListResponse> {
+  return models.access.libraryPage(userId, JSON.stringify(query), () => readLibraryPage(models, userId, query));
+}
+
+/**
+ * NOTE: written as SQL rather than built by Sequelize: the library is the busiest read there is, and
+ * building the query and its rows cost more than MariaDB's work. Every value goes in as a replacement.
+ */
+async function readLibraryPage(models: Models, userId: number, query: DraftListQuery): Promise<DraftListResponse> {
+  const studioIds = [...(await models.access.studioRoles(userId)).keys()];
+  const filters = [studioIds.length > 0 ? `(\`ownerId\` = ? OR \`studioId\` IN (${studioIds.map(() => '?').join(', ')}))` : '`ownerId` = ?'];
+  const values: unknown[] = [userId, ...studioIds];
+  const filter = (sql: string, value: unknown) => {
+    filters.push(sql);
+    values.push(value);
+  };
+  if (query.q) filter('`name` LIKE ?', `%${escapeLike(query.q)}%`);
+  if (query.shafts) filter('`shafts` = ?', query.shafts);
+  if (query.studio) filter('`studioId` = ?', query.studio);
+  if (query.tag) filter('JSON_CONTAINS(`tags`, ?) = 1', JSON.stringify(query.tag));
+  if (query.structure) filter('JSON_CONTAINS(`structure`, ?) = 1', JSON.stringify(query.structure));
+  const where = filters.join(' AND ');
   const dir = query.dir === 'asc' ? 'ASC' : 'DESC';
-  const key = { updated: [['updatedAt', dir]], name: [['name', dir]], size: [[literal('`Draft`.`ends` * `Draft`.`picks`'), dir]] }[query.sort];
-  const order = [...key, ['id', dir]] as Order;
 
-  const matching = { [Op.and]: filters };
-  // Counted apart from the page: the count needs no names, and both run at once. The page is read
-  // as plain rows with the two names as subqueries: building model instances and joined includes
-  // cost more than the query itself.
-  const [rows, count] = await Promise.all([
-    models.Draft.findAll({
-      where: matching,
-      attributes: [
-        ...LIST_COLUMNS,
-        [literal('(SELECT `name` FROM `users` WHERE `users`.`id` = `Draft`.`ownerId`)'), 'ownerName'],
-        [literal('(SELECT `name` FROM `studios` WHERE `studios`.`id` = `Draft`.`studioId`)'), 'studioName'],
-      ],
-      order,
-      limit: query.pageSize,
-      offset: (query.page - 1) * query.pageSize,
-      raw: true,
-    }) as unknown as Promise<SummarySource[]>,
-    models.Draft.count({ where: matching }),
+  const sequelize = models.Draft.sequelize!;
+  // Counted apart from the page: the count needs no names, and both run at once.
+  const [rows, [{ total }]] = await Promise.all([
+    sequelize.query<ListRow>(
+      `SELECT ${LIST_COLUMNS.map((c) => `\`${c}\``).join(', ')},
+        (SELECT \`name\` FROM \`users\` WHERE \`users\`.\`id\` = \`drafts\`.\`ownerId\`) AS \`ownerName\`,
+        (SELECT \`name\` FROM \`studios\` WHERE \`studios\`.\`id\` = \`drafts\`.\`studioId\`) AS \`studioName\`
+       FROM \`drafts\` WHERE ${where}
+       ORDER BY ${ORDER_KEYS[query.sort]} ${dir}, \`id\` ${dir} LIMIT ? OFFSET ?`,
+      { replacements: [...values, query.pageSize, (query.page - 1) * query.pageSize], type: QueryTypes.SELECT },
+    ),
+    sequelize.query<{ total: number | bigint }>(`SELECT COUNT(*) AS \`total\` FROM \`drafts\` WHERE ${where}`, { replacements: values, type: QueryTypes.SELECT }),
   ]);
-  return { items: rows.map(summary), total: count, page: query.page, pageSize: query.pageSize };
+  return {
+    items: rows.map((row) => summary({ ...row, tags: jsonList(row.tags), structure: jsonList(row.structure) })),
+    total: Number(total),
+    page: query.page,
+    pageSize: query.pageSize,
+  };
 }
 
 /**
@@ -127,8 +140,7 @@ export async function listDrafts(models: Models, userId: number, query: DraftLis
  * null when they cannot see it (which the routes answer with 404).
  */
 export async function draftRole(models: Models, userId: number, draftId: number): Promise<StudioRole | null> {
-  // Runs before every draft route: plain rows, as building model instances costs more than the query.
-  const row = await models.Draft.findByPk(draftId, { attributes: ['ownerId', 'studioId'], raw: true });
+  const row = await models.access.draftOwnership(draftId);
   if (!row) return null;
   if (row.ownerId === userId) return 'owner';
   if (row.studioId === null) return null;

@@ -38,8 +38,7 @@ export async function createStudio(models: Models, userId: number, name: string)
 
 /** The user's role in a studio, or null for a non-member. */
 export async function studioRole(models: Models, userId: number, studioId: number): Promise<StudioRole | null> {
-  const m = await models.Membership.findOne({ where: { userId, studioId }, attributes: ['role'], raw: true });
-  return m?.role ?? null;
+  return (await models.access.studioRoles(userId)).get(studioId) ?? null;
 }
 
 async function members(models: Models, studioId: number): Promise<StudioMember[]> {

@@ -10,12 +10,14 @@
  *     it is based on, so each in-flight save takes a draft of its own from a pool and returns it with
  *     the new version when the answer comes (a 409 here would be a bug in the test, and is counted).
  * Prints requests/s, p50/p95/p99 latency and error counts. Targets: p95 ≤ 50 ms (list),
- * ≤ 100 ms (save), zero errors. Options: --duration=20 --connections=50 --cpu-prof=DIR; with
- * SHEDWRIGHT_BENCH_WORKERS=2 the app runs as two node:cluster workers (see drafts-load-server.ts).
+ * ≤ 100 ms (save), zero errors; also the CPU time per request of the app and of MariaDB.
+ * Options: --duration=20 --connections=50 --only=list|save --cpu-prof=DIR.
  */
 import { spawn } from 'node:child_process';
 import { once } from 'node:events';
+import { readFileSync } from 'node:fs';
 import autocannon from 'autocannon';
+import { QueryTypes } from 'sequelize';
 import { createContext } from '../../server/context';
 import { migrate } from '../../server/db/migrate';
 import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
@@ -29,6 +31,7 @@ import { bigDraft } from './drafts-load-data';
 const arg = (name: string, fallback: number) => Number(process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1] ?? fallback);
 const DURATION_S = arg('duration', 20);
 const CONNECTIONS = arg('connections', 50);
+const ONLY = process.argv.find((a) => a.startsWith('--only='))?.split('=')[1];
 const LIBRARY_SIZE = 1000;
 const PASSWORD = 'bench-password-loom';
 
@@ -37,8 +40,18 @@ function percentile(sorted: number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
 
+/** CPU time (user + system) a process has used so far, in ms, from /proc (Linux). */
+function cpuMs(pid: number): number {
+  // Fields 14 and 15 of /proc/PID/stat, counted after the command name in parentheses; clock ticks of 10 ms.
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return (Number(fields[11]) + Number(fields[12])) * 10;
+}
+
 interface Figures {
   name: string;
+  /** CPU ms per request of the app process and of MariaDB during the run. */
+  appCpu: number;
+  dbCpu: number;
   requests: number;
   perSecond: number;
   p50: number;
@@ -51,12 +64,16 @@ interface Figures {
 
 async function run(name: string, options: autocannon.Options): Promise<Figures> {
   const times: number[] = [];
+  const cpuBefore = [cpuMs(child.pid!), cpuMs(dbPid)];
   const instance = autocannon({ connections: CONNECTIONS, duration: DURATION_S, ...options });
   instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => { times.push(responseTime); });
   const result = await instance;
   times.sort((a, b) => a - b);
+  const perRequest = (before: number, pid: number) => (cpuMs(pid) - before) / result.requests.total;
   return {
     name,
+    appCpu: perRequest(cpuBefore[0], child.pid!),
+    dbCpu: perRequest(cpuBefore[1], dbPid),
     requests: result.requests.total,
     perSecond: result.requests.average,
     p50: percentile(times, 50),
@@ -86,6 +103,9 @@ async function signIn(base: string, email: string): Promise<{ cookie: string; cs
 const smtp = await startFakeSmtp(0);
 const ctx = createContext(testConfig(), smtp);
 await migrate(ctx.sequelize);
+// MariaDB's own CPU time is read from /proc too, by the pid it reports.
+const [{ pidFile }] = await ctx.sequelize.query<{ pidFile: string }>('SELECT @@pid_file AS pidFile', { type: QueryTypes.SELECT });
+const dbPid = Number(readFileSync(pidFile, 'utf8').trim());
 // --cpu-prof=DIR writes a V8 profile of the app process there when it exits.
 const profileDir = process.argv.find((a) => a.startsWith('--cpu-prof='))?.split('=')[1];
 const profile = profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [];
@@ -118,7 +138,8 @@ try {
   const { cookie, csrf } = await signIn(base, email);
   const headers = { cookie, 'x-csrf-token': csrf, 'content-type': 'application/json' };
 
-  const list = await run('list (GET /api/drafts)', { url: `${base}/api/drafts`, headers });
+  const runs: Figures[] = [];
+  if (ONLY !== 'save') runs.push(await run('list (GET /api/drafts)', { url: `${base}/api/drafts`, headers }));
 
   const documents = saveDrafts.map((_, i) => JSON.stringify(bigDraft(1000 + i)));
   const free = saveDrafts.map((d, i) => ({ id: d.id, version: 1, doc: documents[i] }));
@@ -136,10 +157,10 @@ try {
       free.push(slot);
     },
   };
-  const save = await run('save (PUT /api/drafts/:id, 400 × 400)', { url: base, headers, requests: [saveRequest] });
+  if (ONLY !== 'list') runs.push(await run('save (PUT /api/drafts/:id, 400 × 400)', { url: base, headers, requests: [saveRequest] }));
 
   console.log(`\n${CONNECTIONS} connections, ${DURATION_S} s each, ${LIBRARY_SIZE} drafts in the library`);
-  console.table([list, save].map((f) => ({
+  console.table(runs.map((f) => ({
     run: f.name,
     'req/s': Math.round(f.perSecond),
     requests: f.requests,
@@ -149,11 +170,12 @@ try {
     errors: f.errors,
     timeouts: f.timeouts,
     'non-2xx': f.non2xx,
+    'app CPU ms/req': f.appCpu.toFixed(2),
+    'MariaDB CPU ms/req': f.dbCpu.toFixed(2),
   })));
   const verdict = (f: Figures, target: number) => `${f.name}: p95 ${f.p95} ms (target ≤ ${target} ms) ${f.p95 <= target ? 'met' : 'MISSED'}, `
     + `${f.errors + f.timeouts + f.non2xx === 0 ? 'no errors' : 'ERRORS'}`;
-  console.log(verdict(list, 50));
-  console.log(verdict(save, 100));
+  for (const f of runs) console.log(verdict(f, f.name.startsWith('list') ? 50 : 100));
 } finally {
   child.kill('SIGTERM');
   await once(child, 'exit');

@@ -1,0 +1,140 @@
+import { LRUCache } from 'lru-cache';
+import type { Model, ModelStatic, Transaction } from 'sequelize';
+import type { StudioRole } from '../../shared/api/auth';
+import type { DraftModel } from './draft';
+import type { MembershipModel } from './membership';
+import type { StudioModel } from './studio';
+import type { UserModel } from './user';
+
+/** The account fields a request needs, as read for the signed-in user. */
+export interface AccountFields {
+  id: number;
+  email: string;
+  name: string;
+  isAdmin: boolean;
+}
+
+/** Whose a draft is: enough to work out anyone's role on it. */
+export interface DraftOwnership {
+  ownerId: number;
+  studioId: number | null;
+}
+
+/**
+ * What requests read over and over — the signed-in account, the user's studio roles, each draft's
+ * owner and studio, and library pages — kept in this process between requests: reading them from
+ * MariaDB cost more than most requests' own work.
+ *
+ * Correctness rests on one rule: a write that could change an answer empties the cache holding it
+ * when the write happens and again when its transaction commits, and a read that started before an
+ * emptying does not store what it read. So a removed member or a deleted account loses access at the
+ * next request, and a library page never misses a save. The writes are seen through model hooks, so
+ * they must go through the models, or say what they wrote (draftSaved). The caches are per process,
+ * right for one app server; several servers on one database turn them off (config.processCaches).
+ */
+export interface AccessCache {
+  account(userId: number): Promise<AccountFields | null>;
+  /** studioId → role for every studio the user belongs to. */
+  studioRoles(userId: number): Promise<ReadonlyMap<number, StudioRole>>;
+  draftOwnership(draftId: number): Promise<DraftOwnership | null>;
+  /** A library page (or anything else read from drafts, users and studios) for one user and query. */
+  libraryPage<V extends object>(userId: number, queryKey: string, load: () => Promise<V>): Promise<V>;
+  /** Says a draft's document was saved in plain SQL, which runs no model hooks: library pages are out of date. */
+  draftSaved(transaction: Transaction): void;
+  /** Empties every cache; the hooks call it, tests may too. */
+  invalidate(): void;
+}
+
+interface HookOptions {
+  transaction?: Transaction | null;
+  fields?: readonly PropertyKey[];
+  attributes?: Record<string, unknown>;
+}
+
+/** An LRU map whose entries are dropped by any write; see AccessCache for the rule. */
+function writeInvalidatedCache(max: number, enabled: boolean) {
+  // Boxed so that "no such row" (null) is cached too.
+  const entries = new LRUCache<string, { value: unknown }>({ max });
+  let generation = 0;
+  const invalidate = () => {
+    generation += 1;
+    entries.clear();
+  };
+  return {
+    async read<V>(key: string, load: () => Promise<V>): Promise<V> {
+      const hit = entries.get(key);
+      if (hit) return hit.value as V;
+      const started = generation;
+      const value = await load();
+      if (enabled && started === generation) entries.set(key, { value });
+      return value;
+    },
+    invalidate,
+    afterWrite(options: HookOptions | undefined) {
+      invalidate();
+      options?.transaction?.afterCommit(invalidate);
+    },
+  };
+}
+
+const OWNERSHIP_FIELDS: readonly PropertyKey[] = ['ownerId', 'studioId'];
+/** Draft columns a library page does not show. */
+const UNLISTED_FIELDS: readonly PropertyKey[] = ['thumbnail'];
+
+type Watcher = (options: HookOptions) => void;
+
+/** Calls `onWrite` after every kind of write to `model`, with the write's options. */
+function watchWrites(model: ModelStatic<Model>, onWrite: Watcher) {
+  model.addHook('afterCreate', (_row: Model, options: HookOptions) => onWrite(options));
+  model.addHook('afterBulkCreate', (_rows: Model[], options: HookOptions) => onWrite(options));
+  model.addHook('afterUpdate', (_row: Model, options: HookOptions) => onWrite(options));
+  model.addHook('afterBulkUpdate', (options: HookOptions) => onWrite(options));
+  model.addHook('afterDestroy', (_row: Model, options: HookOptions) => onWrite(options));
+  model.addHook('afterBulkDestroy', (options: HookOptions) => onWrite(options));
+  model.addHook('afterUpsert', (_result: unknown, options: HookOptions) => onWrite(options));
+}
+
+/** The fields an update changes; undefined for creates and deletes. */
+const updatedFields = (options: HookOptions): readonly PropertyKey[] | undefined =>
+  options.fields ?? (options.attributes ? Object.keys(options.attributes) : undefined);
+
+/** The access cache over these models; when not `enabled` every read goes to the database. */
+export function createAccessCache(
+  models: { User: UserModel; Studio: StudioModel; Membership: MembershipModel; Draft: DraftModel }, enabled: boolean,
+): AccessCache {
+  const access = writeInvalidatedCache(50_000, enabled);
+  const library = writeInvalidatedCache(2_000, enabled);
+  const everything: Watcher = (options) => {
+    access.afterWrite(options);
+    library.afterWrite(options);
+  };
+  for (const model of [models.User, models.Studio, models.Membership]) watchWrites(model as unknown as ModelStatic<Model>, everything);
+  // A save changes a draft's document, not whose it is; storing its thumbnail changes no list either.
+  watchWrites(models.Draft as unknown as ModelStatic<Model>, (options) => {
+    const fields = updatedFields(options);
+    if (!fields || fields.some((f) => OWNERSHIP_FIELDS.includes(f))) everything(options);
+    else if (fields.some((f) => !UNLISTED_FIELDS.includes(f))) library.afterWrite(options);
+  });
+
+  return {
+    account: (userId) => access.read(`account:${userId}`, async () => {
+      const row = await models.User.findByPk(userId, { attributes: ['id', 'email', 'name', 'isAdmin'], raw: true });
+      // Boolean(): a plain row carries the column's 0 or 1.
+      return row ? { id: row.id, email: row.email, name: row.name, isAdmin: Boolean(row.isAdmin) } : null;
+    }),
+    studioRoles: (userId) => access.read(`roles:${userId}`, async () => {
+      const rows = await models.Membership.findAll({ where: { userId }, attributes: ['studioId', 'role'], raw: true });
+      return new Map(rows.map((r) => [r.studioId, r.role]));
+    }),
+    draftOwnership: (draftId) => access.read(`draft:${draftId}`, async () => {
+      const row = await models.Draft.findByPk(draftId, { attributes: ['ownerId', 'studioId'], raw: true });
+      return row ? { ownerId: row.ownerId, studioId: row.studioId } : null;
+    }),
+    libraryPage: (userId, queryKey, load) => library.read(`${userId}:${queryKey}`, load),
+    draftSaved: (transaction) => library.afterWrite({ transaction }),
+    invalidate() {
+      access.invalidate();
+      library.invalidate();
+    },
+  };
+}
