@@ -13,6 +13,29 @@ import { join } from 'node:path';
 import { chromium } from 'playwright-core';
 import { build, createServer, preview } from 'vite';
 
+const TRACE_CATEGORIES = [
+  'toplevel',
+  'devtools.timeline',
+  'disabled-by-default-devtools.timeline',
+  'blink.user_timing',
+  'v8',
+  'v8.execute',
+  'disabled-by-default-v8.gc',
+  'blink_gc',
+  'cc',
+];
+
+/** Trace event names by what the time went on; names not listed count as "other". */
+const KINDS: [string, RegExp][] = [
+  ['gc', /GC|Scavenge|MarkCompact|Sweep|CppGC/],
+  ['style/layout', /^(UpdateLayoutTree|RecalculateStyles|Layout|HitTest|ScheduleStyleRecalculation|InvalidateLayout)$/],
+  ['paint', /^(Paint|PaintImage|PrePaint|Layerize|UpdateLayer|UpdateLayerTree|CompositeLayers|Decode Image|ImageDecodeTask|Canvas|RasterTask)/],
+  // Handing the frame to the compositor: canvases are copied out here.
+  ['commit', /^(Commit|LayerTreeHost::DoUpdateLayers|ProxyMain::BeginMainFrame::commit)$/],
+  ['script', /^(FunctionCall|EvaluateScript|TimerFire|FireAnimationFrame|EventDispatch|RunMicrotasks|V8\.Execute|v8\.run|v8\.callFunction|FireIdleCallback)$/],
+];
+const kindOf = (name: string) => KINDS.find(([, re]) => re.test(name))?.[0] ?? 'other';
+
 const root = new URL('../..', import.meta.url).pathname;
 const arg = (name: string, fallback: string) => {
   const i = process.argv.indexOf(`--${name}`);
@@ -81,6 +104,10 @@ try {
     );
   }
 
+  // The opened draft's cloth views are worked out in a worker: let that finish so the toggles
+  // below measure repainting, not sharing two cores with it.
+  await page.waitForFunction(() => performance.getEntriesByName('cloth-view-painted').length > 0, undefined, { timeout: 60_000 });
+
   // Check the drawdown really has pixels: the top-left cell of the drawdown is not blank.
   const canvasInfo = await page.evaluate(() => {
     const canvases = [...document.querySelectorAll('[data-testid="draft-canvas"] canvas')] as HTMLCanvasElement[];
@@ -144,6 +171,13 @@ try {
     };
     requestAnimationFrame(tick);
   });
+  // Chromium's own trace of the drag, to say what each slow frame was spent on (see explainGap).
+  const cdp = await context.newCDPSession(page);
+  await cdp.send('Tracing.start', { transferMode: 'ReturnAsStream', traceConfig: { includedCategories: TRACE_CATEGORIES } });
+  const dragStart = await page.evaluate(() => {
+    performance.mark('drag-trace-start');
+    return performance.getEntriesByName('drag-trace-start')[0].startTime;
+  });
   await page.mouse.move(box.x + cell / 2, y);
   await page.mouse.down();
   for (let i = 1; i < 100; i++) {
@@ -161,6 +195,26 @@ try {
         }),
       ),
   );
+  // The edit has paused: the cloth views and checks are worked out now. Keep tracing until the
+  // views show the drag's result, to find the longest task the page's main thread ran meanwhile.
+  const dragEnd = await page.evaluate(() => performance.now());
+  const viewsShown = await page.evaluate(
+    (after) =>
+      new Promise<number>((resolve) => {
+        const look = () => {
+          const painted = performance.getEntriesByName('cloth-view-painted').find((m) => m.startTime > after);
+          if (painted) resolve(painted.startTime);
+          else setTimeout(look, 20);
+        };
+        look();
+      }),
+    dragEnd,
+  );
+  await page.waitForTimeout(300);
+  const trace = await readTrace(cdp);
+  const afterEdit = longestTask(trace, dragStart, dragEnd, viewsShown + 300);
+  // The worker script was fetched: the views were worked out there, not on the page.
+  const inWorker = await page.evaluate(() => performance.getEntriesByType('resource').some((e) => e.name.includes('cloth.worker')));
   const dragWork = await page.evaluate(() => ({
     longTasks: (window as unknown as { longTasks: number[] }).longTasks,
     repaints: performance.getEntriesByName('repaint').map((m) => m.duration),
@@ -168,6 +222,14 @@ try {
   const gaps = frames.slice(1).map((t, i) => t - frames[i]);
   const worstGap = Math.max(...gaps);
   const slow = gaps.map((g, i) => [g, frames[i] - frames[0]]).filter(([g]) => g > 1000 / 30);
+  // The slowest few frames, each with what the browser spent it on.
+  const explained = gaps
+    .map((g, i) => ({ g, i }))
+    .filter(({ g }) => g > 1000 / 30)
+    .sort((a, b) => b.g - a.g)
+    .slice(0, 6)
+    .sort((a, b) => a.i - b.i)
+    .map(({ g, i }) => `    ${g.toFixed(0)} ms @${(frames[i] - frames[0]).toFixed(0)}: ${explainGap(trace, dragStart, frames[i], frames[i + 1])}`);
   const drawnRow = await page.evaluate(() => document.querySelector('[data-testid="editor-message"]')?.textContent ?? '');
 
   console.log(`Editor bench: ${size} ends × picks on ${shafts} shafts, Chromium headless (software rendering), ${dev ? 'Vite dev server (development React)' : 'production build via vite preview'}`);
@@ -177,7 +239,9 @@ try {
   console.log(`  toggle, key press → painted (includes waiting for the frame): median ${fmt(median(inputToPaint))}`);
   console.log(`  drag across 100 cells: ${frames.length} frames, longest gap ${fmt(worstGap)} → lowest ${(1000 / worstGap).toFixed(0)} fps (target ≥ 30 fps)`);
   console.log(`  frames slower than 30 fps: ${slow.length} of ${gaps.length} [gap ms @ ms into the drag: ${slow.map(([g, t]) => `${g.toFixed(0)}@${t.toFixed(0)}`).join(', ')}]`);
+  if (explained.length) console.log(`  what the slowest frames were spent on (ms; main = the page's main thread, self time; display = drawing the page):\n${explained.join('\n')}`);
   console.log(`  during the drag: ${dragWork.repaints.length} repaints, median ${fmt(median(dragWork.repaints))}, max ${fmt(Math.max(...dragWork.repaints))}; main-thread tasks over 50 ms: ${dragWork.longTasks.length ? dragWork.longTasks.map(fmt).join(', ') : 'none'}`);
+  console.log(`  after the drag: cloth views (worked out ${inWorker ? 'in a worker' : 'on the page'}) shown ${fmt(viewsShown - dragEnd)} after pointer up (edits settle 200 ms first); longest main-thread task meanwhile ${fmt(afterEdit.longest)}, tasks over 50 ms: ${afterEdit.over50.length ? afterEdit.over50.map(fmt).join(', ') : 'none'}`);
   console.log(`  last message: ${drawnRow}`);
   if (errors.length) console.log(`  page errors: ${errors.join(' | ')}`);
 } finally {
@@ -185,4 +249,121 @@ try {
   await server.close();
   rmSync(profile, { recursive: true, force: true });
   rmSync(outDir, { recursive: true, force: true });
+}
+
+interface TraceEvent {
+  name: string;
+  cat: string;
+  ph: string;
+  ts: number;
+  dur?: number;
+  /** Time the thread actually ran (CPU time), where Chromium records it. */
+  tdur?: number;
+  pid: number;
+  tid: number;
+  args?: { name?: string; data?: { type?: string; functionName?: string } };
+}
+
+/** Task lengths on the page's main thread between two page times (ms): the longest, and all over 50 ms. */
+function longestTask(events: TraceEvent[], pageStart: number, from: number, to: number): { longest: number; over50: number[] } {
+  const mark = events.find((e) => e.name === 'drag-trace-start' && e.cat.includes('user_timing'));
+  if (!mark) return { longest: NaN, over50: [] };
+  const offset = mark.ts / 1000 - pageStart;
+  const tasks = events
+    .filter((e) => e.pid === mark.pid && e.tid === mark.tid && e.ph === 'X' && e.name === 'ThreadControllerImpl::RunTask')
+    .filter((e) => e.ts / 1000 - offset >= from && e.ts / 1000 - offset <= to)
+    .map((e) => e.dur! / 1000);
+  return { longest: Math.max(0, ...tasks), over50: tasks.filter((d) => d > 50) };
+}
+
+/** Ends the trace started on `cdp` and reads its events from the stream Chromium hands back. */
+async function readTrace(cdp: import('playwright-core').CDPSession): Promise<TraceEvent[]> {
+  const done = new Promise<string>((resolve) => cdp.once('Tracing.tracingComplete', (e) => resolve(e.stream!)));
+  await cdp.send('Tracing.end');
+  const handle = await done;
+  let text = '';
+  for (;;) {
+    const chunk = await cdp.send('IO.read', { handle, size: 1 << 20 });
+    text += chunk.base64Encoded ? Buffer.from(chunk.data, 'base64').toString() : chunk.data;
+    if (chunk.eof) break;
+  }
+  await cdp.send('IO.close', { handle });
+  const parsed = JSON.parse(text) as TraceEvent[] | { traceEvents: TraceEvent[] };
+  return Array.isArray(parsed) ? parsed : parsed.traceEvents;
+}
+
+
+/**
+ * What the browser did between two animation frames (page times `from`–`to`, ms): main-thread self
+ * time per kind of work (with the busiest name for "other"), the scripts that ran (event handlers,
+ * frame callbacks, timers), the time the main thread sat idle, and how busy the page's compositor
+ * and raster threads and the display compositor (which draws the page, in software here) were.
+ */
+function explainGap(events: TraceEvent[], pageStart: number, from: number, to: number): string {
+  const mark = events.find((e) => e.name === 'drag-trace-start' && e.cat.includes('user_timing'));
+  if (!mark) return 'no trace';
+  const offset = mark.ts / 1000 - pageStart;
+  const t0 = (from + offset) * 1000;
+  const t1 = (to + offset) * 1000;
+  const threads = new Map<string, string>();
+  for (const e of events) if (e.ph === 'M' && e.name === 'thread_name' && e.args?.name) threads.set(`${e.pid}:${e.tid}`, e.args.name);
+  const inWindow = events.filter((e) => e.ph === 'X' && e.dur !== undefined && e.ts < t1 && e.ts + e.dur! > t0).sort((a, b) => a.ts - b.ts || b.dur! - a.dur!);
+  const clip = (e: TraceEvent) => Math.max(0, Math.min(t1, e.ts + e.dur!) - Math.max(t0, e.ts)) / 1000;
+  const add = (m: Map<string, number>, k: string, v: number) => m.set(k, (m.get(k) ?? 0) + v);
+
+  // Self time on the main thread: each event's clipped time less its children's.
+  const self = new Map<string, number>();
+  const otherNames = new Map<string, number>();
+  const scripts = new Map<string, number>();
+  let busy = 0;
+  let waited = 0;
+  const stack: TraceEvent[] = [];
+  for (const e of inWindow.filter((ev) => ev.pid === mark.pid && ev.tid === mark.tid)) {
+    while (stack.length && stack.at(-1)!.ts + stack.at(-1)!.dur! <= e.ts) stack.pop();
+    const parent = stack.at(-1);
+    const own = clip(e);
+    if (parent) {
+      add(self, kindOf(parent.name), -own);
+      if (kindOf(parent.name) === 'other') add(otherNames, parent.name, -own);
+    } else {
+      busy += own;
+      // Wall time the task did not run: the thread waited for a CPU (a busy machine, not the page's work).
+      if (e.tdur !== undefined && e.dur! > 0) waited += own * Math.max(0, 1 - e.tdur / e.dur!);
+    }
+    add(self, kindOf(e.name), own);
+    if (kindOf(e.name) === 'other') add(otherNames, e.name, own);
+    if (kindOf(e.name) === 'script' && !stack.some((s) => kindOf(s.name) === 'script')) add(scripts, e.args?.data?.type ?? e.args?.data?.functionName ?? e.name, own);
+    stack.push(e);
+  }
+
+  // Busy time of other threads: the union of their events' spans (events nest).
+  const threadBusy = (pattern: RegExp) => {
+    let total = 0;
+    const ends = new Map<string, number>();
+    for (const e of inWindow) {
+      const key = `${e.pid}:${e.tid}`;
+      if (!pattern.test(threads.get(key) ?? '')) continue;
+      const start = Math.max(t0, e.ts, ends.get(key) ?? -Infinity);
+      const end = Math.min(t1, e.ts + e.dur!);
+      if (end > start) {
+        total += (end - start) / 1000;
+        ends.set(key, end);
+      }
+    }
+    return total;
+  };
+  const ms = (n: number) => n.toFixed(0);
+  const busiestOther = [...otherNames].sort((a, b) => b[1] - a[1])[0];
+  const parts = [...self]
+    .filter(([, v]) => v >= 1)
+    .sort((a, b) => b[1] - a[1])
+    .map(([k, v]) => (k === 'other' && busiestOther ? `other ${ms(v)} (most ${busiestOther[0]} ${ms(busiestOther[1])})` : `${k} ${ms(v)}`));
+  const top = [...scripts].sort((a, b) => b[1] - a[1]).slice(0, 3).map(([k, v]) => `${k} ${ms(v)}`);
+  return [
+    `main: ${parts.join(', ') || 'quiet'}, idle ${ms(Math.max(0, to - from - busy))}, of its busy time waiting for a CPU ${ms(waited)}`,
+    top.length ? `scripts: ${top.join(', ')}` : '',
+    `compositor ${ms(threadBusy(/^Compositor$/))}, raster ${ms(threadBusy(/TileWorker|Raster/))}, display ${ms(threadBusy(/^VizCompositorThread$/))}`,
+  ]
+    .filter(Boolean)
+    .join('; ');
 }

@@ -1,6 +1,6 @@
-import { act, fireEvent, render, screen } from '@testing-library/react';
+import { act, fireEvent, render, screen, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
-import type { Draft } from '../../../shared/weave';
+import { findFloats, type Draft } from '../../../shared/weave';
 import { DraftEditor } from '../../../src/features/editor';
 import { twill } from './fixtures';
 
@@ -71,6 +71,29 @@ describe('DraftEditor', () => {
     expect(screen.getByRole('button', { name: /Pick 8 floats over 8 threads/ })).toBeTruthy();
     fireEvent.click(item);
     expect(screen.getByTestId('editor-message').textContent).toBe('Pick 4.');
+  });
+
+  it('shows the cloth views once worked out (on the page here: happy-dom has no workers), and again after an edit settles', async () => {
+    render(<DraftEditor draft={twill({ tieup: [[1, 2], [2, 3], [3, 4], []] })} version={1} />);
+    expect(typeof Worker).toBe('undefined');
+    expect(screen.getAllByText('Working out the view…')).toHaveLength(2);
+    await screen.findByTestId('view-structure');
+    expect(screen.getByTestId('view-floats').textContent).toContain('2 floats over the limit');
+    expect(screen.queryByText('Working out the view…')).toBeNull();
+    // Opening a view asks again: its picture comes without an edit.
+    fireEvent.click(within(screen.getByRole('group', { name: 'Views to show' })).getByRole('button', { name: 'Colour' }));
+    await screen.findByTestId('view-colour');
+    // Shaft 4 tied to treadle 4 (tie-up grid, fourth treadle, top row): the caption follows the
+    // engine's count of floats over the limit for that draft once the edit settles.
+    const edited = twill({ tieup: [[1, 2], [2, 3], [3, 4], [4]] });
+    const expected = findFloats(edited, { limit: 5 }).overLimit.length;
+    expect(expected).toBe(0);
+    const press = keyboard(screen.getByTestId('draft-canvas'));
+    press(']');
+    for (let i = 0; i < 3; i++) press('ArrowRight');
+    press(' ');
+    expect(screen.getByTestId('editor-message').textContent).toBe('Tie-up, treadle 4, shaft 4: marked.');
+    await screen.findByText('no floats over the limit', undefined, { timeout: 3000 });
   });
 
   it('read only: arrows move but nothing changes', () => {

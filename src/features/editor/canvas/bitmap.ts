@@ -10,6 +10,14 @@ export function pixel(hex: string): number {
 
 type Canvas2D = HTMLCanvasElement;
 
+/** A box of cells (inclusive corners). */
+export interface CellBox {
+  x0: number;
+  y0: number;
+  x1: number;
+  y1: number;
+}
+
 /**
  * One grid painted as one bitmap, a pixel per cell; Konva draws it scaled up without smoothing.
  * Each paint writes into a scratch buffer and copies to the canvas only the box of pixels that
@@ -23,6 +31,8 @@ export class GridBitmap {
   private scratch = new Uint32Array(0);
   width = 0;
   height = 0;
+  /** The cells the last paint or patch changed (all of them after a resize), so a view can redraw just those. */
+  changed: CellBox | null = null;
 
   constructor() {
     this.canvas = document.createElement('canvas');
@@ -36,7 +46,7 @@ export class GridBitmap {
   paint(width: number, height: number, fill: (out: Uint32Array) => void): boolean {
     const w = Math.max(1, width);
     const h = Math.max(1, height);
-    const resized = w !== this.width || h !== this.height || !this.image;
+    const resized = w !== this.width || h !== this.height || !this.image || this.scratch.length !== w * h;
     if (resized) {
       this.width = w;
       this.height = h;
@@ -68,6 +78,7 @@ export class GridBitmap {
       }
     }
     if (x1 < 0 && !resized) return false;
+    this.changed = resized ? { x0: 0, y0: 0, x1: w - 1, y1: h - 1 } : { x0, y0, x1, y1 };
     if (this.ctx && this.image) {
       if (resized) this.ctx.putImageData(this.image, 0, 0);
       else this.ctx.putImageData(this.image, 0, 0, x0, y0, x1 - x0 + 1, y1 - y0 + 1);
@@ -96,8 +107,25 @@ export class GridBitmap {
       if (y > y1) y1 = y;
     });
     if (x1 < 0) return false;
+    this.changed = { x0, y0, x1, y1 };
     if (this.ctx && this.image) this.ctx.putImageData(this.image, 0, 0, x0, y0, x1 - x0 + 1, y1 - y0 + 1);
     return true;
+  }
+
+  /**
+   * Shows a finished picture (pixel words, row-major, as `ImageData` wants them) in one upload,
+   * taking the buffer over instead of copying it: for pictures worked out elsewhere (a worker).
+   */
+  show(width: number, height: number, pixels: Uint32Array<ArrayBuffer>): void {
+    this.width = width;
+    this.height = height;
+    this.canvas.width = width;
+    this.canvas.height = height;
+    this.words = pixels;
+    this.scratch = new Uint32Array(0);
+    this.changed = { x0: 0, y0: 0, x1: width - 1, y1: height - 1 };
+    this.image = this.ctx && width > 0 && height > 0 ? new ImageData(new Uint8ClampedArray(pixels.buffer, pixels.byteOffset, pixels.byteLength), width, height) : null;
+    if (this.ctx && this.image) this.ctx.putImageData(this.image, 0, 0);
   }
 
   /** The pixel word at (x, y), for tests and checks. */

@@ -1,46 +1,18 @@
 import type Konva from 'konva';
-import { memo, useEffect, useMemo, useRef } from 'react';
+import { memo, useLayoutEffect, useMemo, useRef } from 'react';
 import { Image as KonvaImage, Layer, Stage } from 'react-konva';
-import { isLayered, type Draft } from '../../../../shared/weave';
 import { GridBitmap } from '../canvas/bitmap';
-import type { Derived } from '../canvas/derived';
-import { paintCloth, paintFace, paintFloats, paintLayerMap, paintStructure, tile } from '../canvas/paint';
+import type { ViewPicture } from '../canvas/cloth-work';
 import { useStore } from '../store/create-store';
 import { CLOTH_VIEWS, type ClothView } from '../store/editor';
 import { useEditorContext } from './editor-context';
-import { useSettledDraft } from './use-settled-draft';
 
 const VIEW_WIDTH = 300;
-/** Cells a tiled view may hold; past this, fewer repeats are shown (the view is 300 px wide anyway). */
-const MAX_TILED_CELLS = 1_500_000;
-
-/** One repeat of a view as pixels (a cell each), or null when the draft has no layers to show. */
-function paintView(view: ClothView, draft: Draft, derived: Derived, floatLimit: number): { width: number; height: number; fill: (out: Uint32Array) => void } | null {
-  const dd = derived.drawdown(draft);
-  const size = { width: dd.ends, height: dd.picks };
-  switch (view) {
-    case 'structure':
-      return { ...size, fill: (out) => paintStructure(out, dd) };
-    case 'colour':
-      return { ...size, fill: (out) => paintCloth(out, derived.cloth(draft)) };
-    case 'floats':
-      return { ...size, fill: (out) => paintFloats(out, dd, derived.floats(draft, floatLimit).overLimit) };
-    case 'front':
-    case 'back':
-    case 'layers': {
-      if (!isLayered(draft)) return null;
-      const sim = derived.layers(draft);
-      if (view === 'layers') return { ...size, fill: (out) => paintLayerMap(out, sim.top, dd.ends) };
-      const face = view === 'front' ? sim.front : sim.back;
-      return { width: face.width, height: face.height, fill: (out) => paintFace(out, face, draft.palette) };
-    }
-  }
-}
 
 /** The cloth views the weaver opened, side by side or one at a time, each tiled and scaled to fit. */
 export function ClothViews() {
-  const { editor, derived } = useEditorContext();
-  const draft = useSettledDraft();
+  const { editor, cloth } = useEditorContext();
+  const result = useStore(cloth, (s) => s.result);
   const panels = useStore(editor.view, (v) => v.panels);
   const oneAtATime = useStore(editor.view, (v) => v.oneAtATime);
   const floatLimit = useStore(editor.view, (v) => v.floatLimit);
@@ -98,7 +70,18 @@ export function ClothViews() {
         </label>
       </div>
       <div className="flex flex-wrap gap-3">
-        {draft ? shown.map((id) => <ViewPanel key={id} id={id} draft={draft} derived={derived} floatLimit={floatLimit} tiles={tiles} />) : <p className="text-xs text-muted">Working out the views…</p>}
+        {shown.map((id) => {
+          const picture = result?.pictures[id];
+          return picture === undefined ? (
+            // The room a square draft's view takes, so the grids above do not jump when it comes.
+            <figure key={id} className="flex w-[300px] flex-col gap-1">
+              <figcaption className="text-xs font-medium">{CLOTH_VIEWS.find((v) => v.id === id)?.label}</figcaption>
+              <p className="grid h-[300px] place-items-center rounded border border-line text-xs text-muted">Working out the view…</p>
+            </figure>
+          ) : (
+            <ViewPanel key={id} id={id} picture={picture} tiles={tiles} overLimit={result?.floatsOverLimit ?? 0} />
+          );
+        })}
       </div>
     </section>
   );
@@ -106,31 +89,25 @@ export function ClothViews() {
 
 interface ViewPanelProps {
   id: ClothView;
-  draft: Draft;
-  derived: Derived;
-  floatLimit: number;
+  /** Null when the draft has no layers for this view. */
+  picture: ViewPicture | null;
   tiles: number;
+  /** Floats over the limit, for the floats view's caption. */
+  overLimit: number;
 }
 
-/** One cloth view: a single bitmap on a small stage, repainted when what it draws changes. */
-const ViewPanel = memo(function ViewPanel({ id, draft, derived, floatLimit, tiles }: ViewPanelProps) {
+/** One cloth view: a picture worked out off the main thread, shown as one bitmap on a small stage. */
+const ViewPanel = memo(function ViewPanel({ id, picture, tiles, overLimit }: ViewPanelProps) {
   const bitmap = useMemo(() => new GridBitmap(), []);
   const label = CLOTH_VIEWS.find((v) => v.id === id)?.label ?? id;
-  const picture = useMemo(() => {
-    const view = paintView(id, draft, derived, floatLimit);
-    if (!view || view.width === 0 || view.height === 0) return null;
-    const n = Math.max(1, Math.min(tiles, Math.floor(Math.sqrt(MAX_TILED_CELLS / (view.width * view.height)))));
-    const one = new Uint32Array(view.width * view.height);
-    view.fill(one);
-    bitmap.paint(view.width * n, view.height * n, (out) => tile(out, one, view.width, view.height, n, n));
-    return { width: view.width * n, height: view.height * n, repeats: n };
-  }, [id, draft, derived, floatLimit, tiles, bitmap]);
   const layerRef = useRef<Konva.Layer>(null);
-  // The bitmap is repainted in place, so Konva is told to draw it again.
-  useEffect(() => {
+  // Before the browser paints: the new picture goes in and Konva is told to draw it again.
+  useLayoutEffect(() => {
+    if (!picture) return;
+    bitmap.show(picture.width, picture.height, picture.pixels);
     layerRef.current?.batchDraw();
-  }, [picture]);
-  const overLimit = id === 'floats' ? derived.floats(draft, floatLimit).overLimit.length : 0;
+    performance.mark('cloth-view-painted');
+  }, [picture, bitmap]);
 
   if (!picture) {
     return (

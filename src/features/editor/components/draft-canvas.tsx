@@ -2,6 +2,7 @@ import type Konva from 'konva';
 import { memo, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent, type WheelEvent } from 'react';
 import { Group, Image as KonvaImage, Layer, Rect, Shape, Stage } from 'react-konva';
 import type { Draft } from '../../../../shared/weave';
+import { changedRects, type StageRect } from '../canvas/damage';
 import { DraftPainter } from '../canvas/draft-painter';
 import { cellAt, cellPosition, computeLayout, regionOf, type Layout, type Region } from '../canvas/layout';
 import { useStore } from '../store/create-store';
@@ -51,6 +52,11 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
     void sizes;
     return computeLayout(doc.get().draft, arrangement, cell, size.width, size.height);
   }, [doc, sizes, arrangement, cell, size.width, size.height]);
+  // What the static layer's nodes were last drawn with, for redrawing part of it between renders.
+  const drawn = useRef({ layout, scrollX, scrollY });
+  useLayoutEffect(() => {
+    drawn.current = { layout, scrollX, scrollY };
+  }, [layout, scrollX, scrollY]);
 
   // Keep scroll within the new bounds after zoom or size changes.
   useEffect(() => {
@@ -83,8 +89,18 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
       const changed = painter.paint(doc.get().draft, { shaftsFromTop: v.arrangement.shaftsFromTop, drawdownView: v.drawdownView });
       // A bitmap that grew (ends or picks added) needs its crop worked out again.
       if (painter.sizes() !== sizesBefore) setBitmapSizes(painter.sizes());
-      if (changed.size > 0) {
-        staticLayer.current?.draw();
+      const layer = staticLayer.current;
+      if (changed.size > 0 && layer) {
+        const { layout: shown, scrollX: sx, scrollY: sy } = drawn.current;
+        const boxes = [...changed].flatMap((id) => {
+          const box = painter.bitmap(id).changed;
+          return box ? [{ id, box }] : [];
+        });
+        const rects = changedRects(shown, boxes, sx, sy, layer.getCanvas().getPixelRatio());
+        // A few cells (a drag, a toggle): redraw their boxes only. Larger changes: the whole layer.
+        const area = rects.reduce((sum, r) => sum + r.width * r.height, 0);
+        if (area < (shown.width * shown.height) / 4) redrawRects(layer, rects);
+        else layer.draw();
         // 'repaint': the work of one frame's repaint; 'edit-to-paint': from the key or pointer press.
         performance.measure('repaint', { start, end: performance.now() });
         performance.mark('grids-painted');
@@ -107,9 +123,13 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
   }, [doc, view, painter]);
 
   useLayoutEffect(() => {
-    staticLayer.current?.draw();
+    const layer = staticLayer.current;
+    if (!layer) return;
+    const off = clearBeforeWholeDraws(layer);
+    layer.draw();
     performance.mark('drawdown-painted');
     if (performance.getEntriesByName('draft-arrived', 'mark').length > 0) performance.measure('open-to-drawdown', 'draft-arrived', 'drawdown-painted');
+    return off;
   }, []);
 
   // Keep the keyboard cursor in view.
@@ -228,6 +248,44 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
   );
 }
 
+/** Layers being drawn again in part: they clear their own boxes, not the whole canvas. */
+const drawingPart = new WeakSet<Konva.Layer>();
+
+/**
+ * For a layer made with `clearBeforeDraw={false}`: clears it before every whole draw, so that
+ * {@link redrawRects} can draw it in part. (Switching `clearBeforeDraw` around a part draw instead
+ * would make Konva schedule a whole draw for the changed setting: two draws a frame.)
+ */
+function clearBeforeWholeDraws(layer: Konva.Layer): () => void {
+  const clear = () => {
+    if (!drawingPart.has(layer)) layer.getContext().clear();
+  };
+  layer.on('beforeDraw', clear);
+  return () => layer.off('beforeDraw', clear);
+}
+
+/**
+ * Draws a layer again inside the given boxes only: each is cleared and the layer's nodes drawn
+ * under a clip, so the canvas changes (and the browser composites again) just those pixels.
+ */
+function redrawRects(layer: Konva.Layer, rects: readonly StageRect[]): void {
+  const g = layer.getContext()._context;
+  drawingPart.add(layer);
+  try {
+    for (const r of rects) {
+      g.save();
+      g.beginPath();
+      g.rect(r.x, r.y, r.width, r.height);
+      g.clip();
+      g.clearRect(r.x, r.y, r.width, r.height);
+      layer.drawScene();
+      g.restore();
+    }
+  } finally {
+    drawingPart.delete(layer);
+  }
+}
+
 interface StaticProps {
   layerRef: React.RefObject<Konva.Layer | null>;
   layout: Layout;
@@ -246,7 +304,7 @@ interface StaticProps {
 const StaticLayer = memo(function StaticLayer({ layerRef, layout, painter, scrollX, scrollY, rulerStep }: StaticProps) {
   const { cell } = layout;
   return (
-    <Layer ref={layerRef} listening={false} imageSmoothingEnabled={false}>
+    <Layer ref={layerRef} listening={false} imageSmoothingEnabled={false} clearBeforeDraw={false}>
       {layout.regions.map((r) => {
         const b = painter.bitmap(r.id);
         const sx = r.scrollsX ? scrollX : 0;

@@ -1,4 +1,4 @@
-import { useContext, useEffect, useState, type KeyboardEvent } from 'react';
+import { useContext, useEffect, useMemo, useState, type KeyboardEvent } from 'react';
 import type { Draft } from '../../../../shared/weave';
 import { createDerived } from '../canvas/derived';
 import { createAutosave, findLocalCopy, type SaveFn } from '../store/autosave';
@@ -14,6 +14,7 @@ import { PalettePanel } from './palette-panel';
 import { ProfilePanel } from './profile-panel';
 import { SaveStatus } from './save-status';
 import { Toolbar } from './toolbar';
+import { useClothResults } from './use-cloth-results';
 
 export interface DraftEditorProps {
   draft: Draft;
@@ -39,14 +40,14 @@ const storage = () => {
  * design, with undo and autosave. Mount it with a fresh `key` per draft.
  */
 export function DraftEditor({ draft, version, draftId, readOnly = false, onSave }: DraftEditorProps) {
-  const [{ context, restored }] = useState(() => {
+  const [{ editor, derived, restored }] = useState(() => {
     if (typeof performance !== 'undefined') performance.mark('draft-arrived');
     // Edits kept on this device from an earlier visit come back first; the autosave sends them.
     const local = !readOnly && onSave ? findLocalCopy(storage(), draftId ?? draft.name) : null;
-    const value: EditorContextValue = { editor: createEditor(local ? local.document : draft), derived: createDerived() };
-    return { context: value, restored: local };
+    return { editor: createEditor(local ? local.document : draft), derived: createDerived(), restored: local };
   });
-  const { editor } = context;
+  const cloth = useClothResults(editor);
+  const context = useMemo<EditorContextValue>(() => ({ editor, derived, cloth }), [editor, derived, cloth]);
   const [autosave] = useState(() =>
     onSave && !readOnly
       ? createAutosave({

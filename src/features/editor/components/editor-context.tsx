@@ -1,11 +1,14 @@
 import { createContext, useContext } from 'react';
 import type { Derived } from '../canvas/derived';
+import type { ClothResults } from '../store/cloth-results';
 import type { Editor } from '../store/editor';
 
 export interface EditorContextValue {
   editor: Editor;
   /** Drawdown, cloth and floats, computed once per change and shared by the canvas and the views. */
   derived: Derived;
+  /** Cloth views and Checks, worked out off the main thread once edits settle. */
+  cloth: ClothResults;
 }
 
 export const EditorContext = createContext<EditorContextValue | null>(null);

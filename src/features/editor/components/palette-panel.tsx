@@ -1,9 +1,26 @@
 import { useState } from 'react';
+import { hexToRgb } from '../../../../shared/weave';
 import { addPaletteColor, removePaletteColor, setPaletteColor, setYarnName } from '../store/edits';
 import { useStore } from '../store/create-store';
 import { useEditorContext } from './editor-context';
 
 const HEX = /^#[0-9a-fA-F]{6}$/;
+
+/**
+ * Black or white, whichever stands out more on the swatch colour `hex`. (A blend mode would do
+ * this in CSS, but it makes the browser composite the whole page through an extra pass on every
+ * frame, which costs a drag its frame rate.)
+ */
+export function tickColorOn(hex: string): '#000000' | '#ffffff' {
+  // Source: WCAG 2.1, "relative luminance" and "contrast ratio" definitions (from memory): sRGB
+  // channels linearised, weighted 0.2126 / 0.7152 / 0.0722; black and white contrast equally at L ≈ 0.179.
+  const [r, g, b] = hexToRgb(hex).map((c) => {
+    const s = c / 255;
+    return s <= 0.04045 ? s / 12.92 : ((s + 0.055) / 1.055) ** 2.4;
+  });
+  const luminance = 0.2126 * r + 0.7152 * g + 0.0722 * b;
+  return luminance > Math.sqrt(1.05 * 0.05) - 0.05 ? '#000000' : '#ffffff';
+}
 
 /** The palette: pick the colour to paint, change it by hex or colour picker, name its yarn. */
 export function PalettePanel({ readOnly = false }: { readOnly?: boolean }) {
@@ -70,7 +87,11 @@ function PaletteRow({ index, hex, yarn, active, canRemove, readOnly }: RowProps)
         className="h-6 w-6 shrink-0 rounded border-2 border-line aria-pressed:border-accent aria-pressed:ring-2 aria-pressed:ring-accent"
         style={{ backgroundColor: hex }}
       >
-        {active && <span aria-hidden="true" className="text-[10px] mix-blend-difference text-white">✓</span>}
+        {active && (
+          <span aria-hidden="true" className="text-[10px]" style={{ color: tickColorOn(hex) }}>
+            ✓
+          </span>
+        )}
       </button>
       <input
         type="color"

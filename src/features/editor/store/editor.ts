@@ -251,13 +251,17 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {})
         const sel = view.get().selection;
         if (sel) setView({ selection: { ...sel, to: cell }, cursor: cell });
       } else {
+        // The cursor catches up at pointer up: moving it on every cell would redraw the cursor
+        // layer each frame of the drag, and the cells being drawn already show where the pointer is.
         for (const c of between(drag.last, cell)) drawCell(c, drag.on, drag.add);
-        setView({ cursor: cell });
       }
       drag.last = cell;
     },
     pointerUp() {
-      if (drag && !drag.select) doc.endGesture();
+      if (drag && !drag.select) {
+        doc.endGesture();
+        setView({ cursor: drag.last });
+      }
       drag = null;
     },
     moveCursor(dCol, dRow, extend = false) {
