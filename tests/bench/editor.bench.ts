@@ -4,10 +4,10 @@
  * (or Vite's dev server with --dev), and drives Debian's Chromium through playwright-core. Targets (from the editor issue):
  *   - open: drawdown shown ≤ 300 ms after the draft arrives ('open-to-drawdown' measure);
  *   - toggling one threading cell repaints in ≤ 16 ms median ('repaint' measure per toggle);
- *   - drag-drawing across 100 cells never below 30 fps (longest frame gap ≤ 33.3 ms).
+ *   - drag-drawing across 100 cells never below 30 fps (no gap between animation frames longer than two display frames).
  * Prints the figures; it is not a pass/fail test.
  */
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium } from 'playwright-core';
@@ -50,6 +50,18 @@ const median = (xs: number[]) => {
   return s.length === 0 ? NaN : s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
 };
 const fmt = (n: number) => `${n.toFixed(1)} ms`;
+
+// Animation frames come at the display's 60 Hz; the page's clock is coarsened to 0.1 ms, so a frame
+// that took two display frames (exactly 30 fps) can read 33.4 ms. Gaps are counted in display frames.
+const VSYNC_MS = 1000 / 60;
+const belowThirty = (gap: number) => Math.round(gap / VSYNC_MS) > 2;
+
+/** CPU time the hypervisor gave to other guests while this machine wanted it ("steal" in /proc/stat), in ms. */
+function stolenMs(): number {
+  const cpu = readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/);
+  // cpu user nice system idle iowait irq softirq steal …, in clock ticks of 10 ms.
+  return Number(cpu[8]) * 10;
+}
 
 const dev = process.argv.includes('--dev');
 const outDir = mkdtempSync(join(tmpdir(), 'shedwright-bench-dist-'));
@@ -174,6 +186,7 @@ try {
   // Chromium's own trace of the drag, to say what each slow frame was spent on (see explainGap).
   const cdp = await context.newCDPSession(page);
   await cdp.send('Tracing.start', { transferMode: 'ReturnAsStream', traceConfig: { includedCategories: TRACE_CATEGORIES } });
+  const stealBefore = stolenMs();
   const dragStart = await page.evaluate(() => {
     performance.mark('drag-trace-start');
     return performance.getEntriesByName('drag-trace-start')[0].startTime;
@@ -185,6 +198,7 @@ try {
     await page.waitForTimeout(8);
   }
   await page.mouse.up();
+  const stolen = stolenMs() - stealBefore;
   const frames = await page.evaluate(
     () =>
       new Promise<number[]>((resolve) =>
@@ -221,11 +235,11 @@ try {
   }));
   const gaps = frames.slice(1).map((t, i) => t - frames[i]);
   const worstGap = Math.max(...gaps);
-  const slow = gaps.map((g, i) => [g, frames[i] - frames[0]]).filter(([g]) => g > 1000 / 30);
+  const slow = gaps.map((g, i) => [g, frames[i] - frames[0]]).filter(([g]) => belowThirty(g));
   // The slowest few frames, each with what the browser spent it on.
   const explained = gaps
     .map((g, i) => ({ g, i }))
-    .filter(({ g }) => g > 1000 / 30)
+    .filter(({ g }) => belowThirty(g))
     .sort((a, b) => b.g - a.g)
     .slice(0, 6)
     .sort((a, b) => a.i - b.i)
@@ -237,8 +251,9 @@ try {
   console.log(`  open → drawdown painted: ${opens.map(fmt).join(', ')} (target ≤ 300 ms)`);
   console.log(`  toggle one threading cell, repaint work: median ${fmt(median(repaints))}, max ${fmt(Math.max(...repaints))} over ${repaints.length} (target median ≤ 16 ms)`);
   console.log(`  toggle, key press → painted (includes waiting for the frame): median ${fmt(median(inputToPaint))}`);
-  console.log(`  drag across 100 cells: ${frames.length} frames, longest gap ${fmt(worstGap)} → lowest ${(1000 / worstGap).toFixed(0)} fps (target ≥ 30 fps)`);
-  console.log(`  frames slower than 30 fps: ${slow.length} of ${gaps.length} [gap ms @ ms into the drag: ${slow.map(([g, t]) => `${g.toFixed(0)}@${t.toFixed(0)}`).join(', ')}]`);
+  console.log(`  drag across 100 cells: ${frames.length} frames, longest gap ${fmt(worstGap)} (${Math.round(worstGap / VSYNC_MS)} display frames) → lowest ${(1000 / (Math.round(worstGap / VSYNC_MS) * VSYNC_MS)).toFixed(0)} fps (target ≥ 30 fps)`);
+  console.log(`  CPU time the host took from this machine during the drag (steal, /proc/stat): ${stolen} ms`);
+  console.log(`  frames slower than 30 fps (more than 2 display frames): ${slow.length} of ${gaps.length} [gap ms @ ms into the drag: ${slow.map(([g, t]) => `${g.toFixed(0)}@${t.toFixed(0)}`).join(', ')}]`);
   if (explained.length) console.log(`  what the slowest frames were spent on (ms; main = the page's main thread, self time; display = drawing the page):\n${explained.join('\n')}`);
   console.log(`  during the drag: ${dragWork.repaints.length} repaints, median ${fmt(median(dragWork.repaints))}, max ${fmt(Math.max(...dragWork.repaints))}; main-thread tasks over 50 ms: ${dragWork.longTasks.length ? dragWork.longTasks.map(fmt).join(', ') : 'none'}`);
   console.log(`  after the drag: cloth views (worked out ${inWorker ? 'in a worker' : 'on the page'}) shown ${fmt(viewsShown - dragEnd)} after pointer up (edits settle 200 ms first); longest main-thread task meanwhile ${fmt(afterEdit.longest)}, tasks over 50 ms: ${afterEdit.over50.length ? afterEdit.over50.map(fmt).join(', ') : 'none'}`);
