@@ -27,6 +27,7 @@ import { createDraft } from '../../server/services/drafts';
 import { signUp } from '../../server/services/auth';
 import { testConfig, uniqueEmail } from '../helpers/test-db';
 import { bigDraft } from './drafts-load-data';
+import { cpuMs, stolenMs } from './proc-stat';
 
 const arg = (name: string, fallback: number) => Number(process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1] ?? fallback);
 const DURATION_S = arg('duration', 20);
@@ -40,18 +41,14 @@ function percentile(sorted: number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
 
-/** CPU time (user + system) a process has used so far, in ms, from /proc (Linux). */
-function cpuMs(pid: number): number {
-  // Fields 14 and 15 of /proc/PID/stat, counted after the command name in parentheses; clock ticks of 10 ms.
-  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
-  return (Number(fields[11]) + Number(fields[12])) * 10;
-}
 
 interface Figures {
   name: string;
   /** CPU ms per request of the app process and of MariaDB during the run. */
   appCpu: number;
   dbCpu: number;
+  /** CPU ms the host took from this machine during the run (see stolenMs). */
+  stolen: number;
   requests: number;
   perSecond: number;
   p50: number;
@@ -64,7 +61,7 @@ interface Figures {
 
 async function run(name: string, options: autocannon.Options): Promise<Figures> {
   const times: number[] = [];
-  const cpuBefore = [cpuMs(child.pid!), cpuMs(dbPid)];
+  const cpuBefore = [cpuMs(child.pid!), cpuMs(dbPid), stolenMs()];
   const instance = autocannon({ connections: CONNECTIONS, duration: DURATION_S, ...options });
   instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => { times.push(responseTime); });
   const result = await instance;
@@ -74,6 +71,7 @@ async function run(name: string, options: autocannon.Options): Promise<Figures> 
     name,
     appCpu: perRequest(cpuBefore[0], child.pid!),
     dbCpu: perRequest(cpuBefore[1], dbPid),
+    stolen: stolenMs() - cpuBefore[2],
     requests: result.requests.total,
     perSecond: result.requests.average,
     p50: percentile(times, 50),
@@ -172,6 +170,7 @@ try {
     'non-2xx': f.non2xx,
     'app CPU ms/req': f.appCpu.toFixed(2),
     'MariaDB CPU ms/req': f.dbCpu.toFixed(2),
+    'host steal ms': f.stolen,
   })));
   const verdict = (f: Figures, target: number) => `${f.name}: p95 ${f.p95} ms (target ≤ ${target} ms) ${f.p95 <= target ? 'met' : 'MISSED'}, `
     + `${f.errors + f.timeouts + f.non2xx === 0 ? 'no errors' : 'ERRORS'}`;

@@ -7,11 +7,12 @@
  *   - drag-drawing across 100 cells never below 30 fps (no gap between animation frames longer than two display frames).
  * Prints the figures; it is not a pass/fail test.
  */
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium } from 'playwright-core';
 import { build, createServer, preview } from 'vite';
+import { stolenMs } from './proc-stat';
 
 const TRACE_CATEGORIES = [
   'toplevel',
@@ -56,12 +57,6 @@ const fmt = (n: number) => `${n.toFixed(1)} ms`;
 const VSYNC_MS = 1000 / 60;
 const belowThirty = (gap: number) => Math.round(gap / VSYNC_MS) > 2;
 
-/** CPU time the hypervisor gave to other guests while this machine wanted it ("steal" in /proc/stat), in ms. */
-function stolenMs(): number {
-  const cpu = readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/);
-  // cpu user nice system idle iowait irq softirq steal …, in clock ticks of 10 ms.
-  return Number(cpu[8]) * 10;
-}
 
 const dev = process.argv.includes('--dev');
 const outDir = mkdtempSync(join(tmpdir(), 'shedwright-bench-dist-'));
