@@ -103,7 +103,8 @@ export function createAccessCache(
   models: { User: UserModel; Studio: StudioModel; Membership: MembershipModel; Draft: DraftModel }, enabled: boolean,
 ): AccessCache {
   const access = writeInvalidatedCache(50_000, enabled);
-  const library = writeInvalidatedCache(2_000, enabled);
+  // A page of up to 100 drafts is some tens of kB: 500 of them stay within a few tens of MB.
+  const library = writeInvalidatedCache(500, enabled);
   const everything: Watcher = (options) => {
     access.afterWrite(options);
     library.afterWrite(options);

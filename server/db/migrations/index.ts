@@ -4,6 +4,7 @@ import * as initial from './0001-initial';
 import * as plansAndProgress from './0002-plans-and-progress';
 import * as draftsService from './0003-drafts-service';
 import * as listIndexes from './0004-list-indexes';
+import * as structureBackfill from './0005-structure-backfill';
 
 /**
  * Every migration, oldest first. Listed by hand rather than globbed so the list is type-checked and
@@ -14,4 +15,5 @@ export const migrations: RunnableMigration<QueryInterface>[] = [
   { name: '0002-plans-and-progress', ...plansAndProgress },
   { name: '0003-drafts-service', ...draftsService },
   { name: '0004-list-indexes', ...listIndexes },
+  { name: '0005-structure-backfill', ...structureBackfill },
 ];
