@@ -142,6 +142,40 @@ export const draftDocumentSchema = z.strictObject(
 
 export type DraftDocument = z.infer<typeof draftDocumentSchema>;
 
+// Safe integers only: where zod might accept more, the fallback to draftDocumentSchema still does.
+const wholeIn = (v: unknown, min: number, max: number) => Number.isSafeInteger(v) && (v as number) >= min && (v as number) <= max;
+/** A list (by index, so a hole fails as zod would fail it) of at most `maxLength` items that all pass `ok`. */
+function listOf(v: unknown, ok: (item: unknown) => boolean, maxLength = Infinity): boolean {
+  if (!Array.isArray(v) || v.length > maxLength) return false;
+  for (let i = 0; i < v.length; i++) if (!ok(v[i])) return false;
+  return true;
+}
+const isShaftList = (v: unknown) => listOf(v, (x) => wholeIn(x, 1, MAX_SHAFTS));
+const isTreadleList = (v: unknown) => listOf(v, (x) => wholeIn(x, 1, MAX_TREADLES));
+
+/**
+ * The same schema with the long number lists checked in one plain loop each instead of one zod schema
+ * per entry, which cost most of a large draft's parse. It accepts exactly what draftDocumentSchema
+ * accepts (a property test holds them to that); it is tried first, and only a draft it refuses goes
+ * through draftDocumentSchema, whose issues name each problem.
+ */
+const quickDocumentSchema = draftDocumentSchema.extend({
+  threading: z.custom<number[][]>((v) => listOf(v, isShaftList, MAX_THREADS)),
+  tieup: z.custom<number[][]>((v) => listOf(v, isShaftList, MAX_TREADLES)).optional(),
+  treadling: z.custom<number[][]>((v) => listOf(v, isTreadleList, MAX_THREADS)).optional(),
+  liftplan: z.custom<number[][]>((v) => listOf(v, isShaftList, MAX_THREADS)).optional(),
+  warpColors: z.custom<number[]>((v) => listOf(v, (x) => wholeIn(x, 0, Infinity), MAX_THREADS)).optional(),
+  weftColors: z.custom<number[]>((v) => listOf(v, (x) => wholeIn(x, 0, Infinity), MAX_THREADS)).optional(),
+  warpLayers: z.custom<number[]>((v) => listOf(v, (x) => wholeIn(x, 1, MAX_LAYERS), MAX_THREADS)).optional(),
+  weftLayers: z.custom<number[]>((v) => listOf(v, (x) => wholeIn(x, 1, MAX_LAYERS), MAX_THREADS)).optional(),
+});
+
+/** draftDocumentSchema's verdict and data, the quick way when the document is sound. */
+export function checkDocumentShape(json: unknown) {
+  const quick = quickDocumentSchema.safeParse(json);
+  return quick.success ? quick : draftDocumentSchema.safeParse(json);
+}
+
 // What one position in each list is called, so messages read "threading end 37", not "threading[36]".
 const POSITION_WORD: Record<string, string> = {
   threading: 'end',
@@ -329,7 +363,7 @@ function zodMessage(issue: z.core.$ZodIssue, json: unknown): string {
  */
 export function parseDraft(json: unknown): Draft {
   const problems = new Problems();
-  const shape = draftDocumentSchema.safeParse(json);
+  const shape = checkDocumentShape(json);
   if (!shape.success) {
     for (const issue of shape.error.issues) problems.add(issue.path, zodMessage(issue, json));
   }

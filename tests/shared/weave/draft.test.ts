@@ -4,7 +4,9 @@ import {
   DEFAULT_PALETTE,
   DEFAULT_SETT,
   DraftError,
+  checkDocumentShape,
   createDraft,
+  draftDocumentSchema,
   draftSchema,
   emptyDraft,
   parseDraft,
@@ -170,6 +172,42 @@ describe('parseDraft', () => {
 
   it('normalises palette colours to lower case', () => {
     expect(parseDraft({ schemaVersion: 1, shafts: 1, threading: [], palette: ['#ABCDEF'] }).palette).toEqual(['#abcdef']);
+  });
+});
+
+describe('checkDocumentShape (the quick check of the number lists)', () => {
+  // Mostly sound entries, now and then one value at or past a limit (shafts 1–32, layers 1–16, colours
+  // from 0), a fraction, an unsafe whole number, text, null, a list or an object: so that a list is often
+  // wrong in just one place.
+  const limit = fc.constantFrom(0, -1, 16, 17, 32, 33);
+  const odd = fc.constantFrom(0.5, 1.5, 2 ** 53, 2 ** 60, 1e308, '1', null, true, {}, [1]);
+  const entry = fc.oneof({ arbitrary: fc.integer({ min: 1, max: 8 }), weight: 12 }, { arbitrary: limit, weight: 2 }, { arbitrary: odd, weight: 1 });
+  const notAList = fc.constantFrom('x', null, 3, {});
+  const list = fc.oneof({ arbitrary: fc.array(entry, { maxLength: 6 }), weight: 12 }, { arbitrary: notAList, weight: 1 });
+  const listOfLists = fc.oneof({ arbitrary: fc.array(list, { maxLength: 6 }), weight: 12 }, { arbitrary: notAList, weight: 1 });
+  const field = fc.constantFrom('threading', 'tieup', 'treadling', 'liftplan', 'warpColors', 'weftColors', 'warpLayers', 'weftLayers', 'extra');
+
+  it('accepts exactly what draftDocumentSchema accepts, with the same data', () => {
+    fc.assert(fc.property(draftArb(), fc.array(fc.tuple(field, list, listOfLists), { maxLength: 3 }), (draft, changes) => {
+      const json: Record<string, unknown> = JSON.parse(JSON.stringify(draft));
+      for (const [name, flat, nested] of changes) {
+        json[name] = ['threading', 'tieup', 'treadling', 'liftplan'].includes(name) ? nested : flat;
+      }
+      const quick = checkDocumentShape(json);
+      const full = draftDocumentSchema.safeParse(json);
+      expect(quick.success).toBe(full.success);
+      if (full.success) expect(quick.data).toEqual(full.data);
+      else expect(quick.error?.issues).toEqual(full.error.issues);
+    }), { numRuns: 1500, seed: 11 });
+  });
+
+  it('refuses lists longer than the limits and holes in a list', () => {
+    const sparse: number[][] = [[1]];
+    sparse[2] = [1];
+    for (const threading of [Array.from({ length: 20_001 }, () => [1]), sparse]) {
+      expect(checkDocumentShape({ schemaVersion: 1, shafts: 2, threading }).success).toBe(false);
+      expect(draftDocumentSchema.safeParse({ schemaVersion: 1, shafts: 2, threading }).success).toBe(false);
+    }
   });
 });
 
