@@ -6,10 +6,10 @@ import { attachmentDisposition, draftFromWifFile } from '../services/draft-files
 import { draftThumbnail } from '../services/draft-thumbnails';
 import { createFromBody, createFromDocument, deleteDraft, forkDraft, lineage, updateDraft } from '../services/draft-lifecycle';
 import { saveDraft, VersionConflict } from '../services/draft-versions';
-import { draftDetail, listDrafts } from '../services/drafts';
+import { draftDetail, listDraftsJson } from '../services/drafts';
 
 export async function list({ app, req, res, query }: Ctx<unknown, DraftListQuery, unknown>) {
-  res.json(await listDrafts(app.models, req.user!.id, query));
+  res.type('json').send(await listDraftsJson(app.models, req.user!.id, query));
 }
 
 export async function detail({ app, res, params, role }: Ctx<unknown, unknown, { id: number }>) {

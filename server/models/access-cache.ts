@@ -38,7 +38,7 @@ export interface AccessCache {
   studioRoles(userId: number): Promise<ReadonlyMap<number, StudioRole>>;
   draftOwnership(draftId: number): Promise<DraftOwnership | null>;
   /** A library page (or anything else read from drafts, users and studios) for one user and query. */
-  libraryPage<V extends object>(userId: number, queryKey: string, load: () => Promise<V>): Promise<V>;
+  libraryPage<V>(userId: number, queryKey: string, load: () => Promise<V>): Promise<V>;
   /** Says a draft's document was saved in plain SQL, which runs no model hooks: library pages are out of date. */
   draftSaved(transaction: Transaction): void;
   /** Empties every cache; the hooks call it, tests may too. */

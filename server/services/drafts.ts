@@ -87,11 +87,12 @@ type ListRow = Omit<SummarySource, 'tags' | 'structure'> & { tags: string | stri
 const jsonList = (value: string | string[] | null): string[] => (typeof value === 'string' ? JSON.parse(value) as string[] : value ?? []);
 
 /**
- * The drafts a user owns or sees through a studio, filtered, sorted and paged. Pages are kept in the
- * library cache until the next write to drafts, users, studios or memberships.
+ * The drafts a user owns or sees through a studio, filtered, sorted and paged, as the JSON text of a
+ * DraftListResponse. Pages are kept in the library cache until the next write to drafts, users,
+ * studios or memberships; they are sent far more often than read, so they are kept serialised.
  */
-export function listDrafts(models: Models, userId: number, query: DraftListQuery): Promise<DraftListResponse> {
-  return models.access.libraryPage(userId, JSON.stringify(query), () => readLibraryPage(models, userId, query));
+export function listDraftsJson(models: Models, userId: number, query: DraftListQuery): Promise<string> {
+  return models.access.libraryPage(userId, JSON.stringify(query), async () => JSON.stringify(await readLibraryPage(models, userId, query)));
 }
 
 /**
