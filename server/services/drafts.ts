@@ -43,9 +43,11 @@ export async function createDraft(
   });
 }
 
+const memberStudioIds = async (models: Models, userId: number) => [...(await models.access.studioRoles(userId)).keys()];
+
 /** The condition for drafts a user can see: their own, and those of their studios. */
 export async function visibleDraftsWhere(models: Models, userId: number): Promise<WhereOptions> {
-  const studioIds = [...(await models.access.studioRoles(userId)).keys()];
+  const studioIds = await memberStudioIds(models, userId);
   return studioIds.length > 0
     ? { [Op.or]: [{ ownerId: userId }, { studioId: { [Op.in]: studioIds } }] }
     : { ownerId: userId };
@@ -100,7 +102,8 @@ export function listDraftsJson(models: Models, userId: number, query: DraftListQ
  * building the query and its rows cost more than MariaDB's work. Every value goes in as a replacement.
  */
 async function readLibraryPage(models: Models, userId: number, query: DraftListQuery): Promise<DraftListResponse> {
-  const studioIds = [...(await models.access.studioRoles(userId)).keys()];
+  // What visibleDraftsWhere says, in SQL.
+  const studioIds = await memberStudioIds(models, userId);
   const filters = [studioIds.length > 0 ? `(\`ownerId\` = ? OR \`studioId\` IN (${studioIds.map(() => '?').join(', ')}))` : '`ownerId` = ?'];
   const values: unknown[] = [userId, ...studioIds];
   const filter = (sql: string, value: unknown) => {

@@ -61,6 +61,9 @@ describe('drafts visibility', () => {
     expect(await ids('q=%25')).toEqual([]);
     expect(await ids('tag=sampler')).toEqual([s.ownDraft.id]);
     expect(await ids('tag=twill')).toEqual([s.studioDraft.id]);
+    // Structures found by the server, not the weaver's tags (the sampler is plain weave underneath).
+    expect(await ids('structure=twill')).toEqual([s.studioDraft.id]);
+    expect(await ids('structure=plain%20weave')).toEqual([s.ownDraft.id]);
     expect(await ids('shafts=8')).toEqual([]);
     expect(await ids(`studio=${s.studioId}`)).toEqual([s.studioDraft.id]);
     const page2 = draftListResponseSchema.parse((await s.viewer.get('/api/drafts?pageSize=1&page=2&sort=name&dir=asc')).body);
