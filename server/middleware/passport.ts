@@ -2,11 +2,9 @@ import type { Request, Response } from 'express';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { Models, UserRow } from '../models';
+import { accountOf } from '../models/access-cache';
 import { checkCredentials } from '../services/auth';
 
-type UserFields = Pick<UserRow, 'id' | 'email' | 'name' | 'isAdmin'>;
-// Boolean(): a plain row read without a model instance carries the column's 0 or 1.
-const toUser = (row: UserFields): Express.User => ({ id: row.id, email: row.email, name: row.name, isAdmin: Boolean(row.isAdmin) });
 
 /**
  * A passport instance per app (not the global one), so apps on different databases can coexist in tests.
@@ -18,7 +16,7 @@ export function createPassport(models: Models): passport.PassportStatic {
   instance.use(new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true },
     (email, password, done) => {
       checkCredentials(models, email, password)
-        .then((row) => done(null, row ? toUser(row) : false))
+        .then((row) => done(null, row ? accountOf(row) : false))
         .catch(done);
     }));
   instance.serializeUser((user, done) => done(null, user.id));
@@ -42,7 +40,7 @@ export function authenticateLocal(pp: passport.PassportStatic, req: Request, res
 
 /** Signs the user in; passport regenerates the session id, which defeats session fixation. */
 export function logIn(req: Request, user: Express.User | UserRow): Promise<void> {
-  const plain = 'passwordHash' in user ? toUser(user) : user;
+  const plain = 'passwordHash' in user ? accountOf(user) : user;
   return new Promise((resolve, reject) => req.login(plain, (err) => (err ? reject(err) : resolve())));
 }
 

@@ -14,6 +14,10 @@ export interface AccountFields {
   isAdmin: boolean;
 }
 
+/** The account fields of a user row; Boolean() because a plain row carries the column's 0 or 1. */
+export const accountOf = (row: Pick<AccountFields, 'id' | 'email' | 'name'> & { isAdmin: unknown }): AccountFields =>
+  ({ id: row.id, email: row.email, name: row.name, isAdmin: Boolean(row.isAdmin) });
+
 /** Whose a draft is: enough to work out anyone's role on it. */
 export interface DraftOwnership {
   ownerId: number;
@@ -120,8 +124,7 @@ export function createAccessCache(
   return {
     account: (userId) => access.read(`account:${userId}`, async () => {
       const row = await models.User.findByPk(userId, { attributes: ['id', 'email', 'name', 'isAdmin'], raw: true });
-      // Boolean(): a plain row carries the column's 0 or 1.
-      return row ? { id: row.id, email: row.email, name: row.name, isAdmin: Boolean(row.isAdmin) } : null;
+      return row ? accountOf(row) : null;
     }),
     studioRoles: (userId) => access.read(`roles:${userId}`, async () => {
       const rows = await models.Membership.findAll({ where: { userId }, attributes: ['studioId', 'role'], raw: true });
