@@ -43,8 +43,11 @@ export interface AccessCache {
   draftOwnership(draftId: number): Promise<DraftOwnership | null>;
   /** A library page (or anything else read from drafts, users and studios) for one user and query. */
   libraryPage<V>(userId: number, queryKey: string, load: () => Promise<V>): Promise<V>;
-  /** Says a draft's document was saved in plain SQL, which runs no model hooks: library pages are out of date. */
-  draftSaved(transaction: Transaction): void;
+  /**
+   * Says a draft's document was saved in plain SQL, which runs no model hooks: library pages are out
+   * of date. Called once the save has committed; a page read before then is dropped, not kept.
+   */
+  draftSaved(): void;
   /** Empties every cache; the hooks call it, tests may too. */
   invalidate(): void;
 }
@@ -135,7 +138,7 @@ export function createAccessCache(
       return row ? { ownerId: row.ownerId, studioId: row.studioId } : null;
     }),
     libraryPage: (userId, queryKey, load) => library.read(`${userId}:${queryKey}`, load),
-    draftSaved: (transaction) => library.afterWrite({ transaction }),
+    draftSaved: () => library.invalidate(),
     invalidate() {
       access.invalidate();
       library.invalidate();

@@ -98,13 +98,19 @@ export function thumbnailPng(draft: Draft): Buffer | null {
   return encodePngRgb(width, picks * s, rgb);
 }
 
+function distinctCount(a: readonly number[], b: readonly number[]): number {
+  const seen = new Set(a);
+  for (const v of b) seen.add(v);
+  return seen.size;
+}
+
 /** The small columns kept beside the document so the library can filter and sort without parsing it. */
 export function draftStats(draft: Draft): Pick<DraftAttributes, 'ends' | 'picks' | 'shafts' | 'colors'> {
   return {
     ends: draft.threading.length,
     picks: pickCount(draft),
     shafts: draft.shafts,
-    colors: new Set([...draft.warpColors, ...draft.weftColors]).size,
+    colors: distinctCount(draft.warpColors, draft.weftColors),
   };
 }
 

@@ -1,4 +1,3 @@
-import { QueryTypes } from 'sequelize';
 import type { CompareResponse, SaveDraftBody, VersionDetailResponse, VersionSummary } from '../../shared/api';
 import { compareDrafts, comparisonImage, type Draft } from '../../shared/weave';
 import { encodePngRgb } from '../print/png';
@@ -15,60 +14,55 @@ export class VersionConflict extends HttpError {
   }
 }
 
+/** How often a restore, which is based on whatever version is current, tries again when a save slips in first. */
+const RESTORE_ATTEMPTS = 3;
+
 /**
- * Writes `document` as the next version, provided the draft is still at `baseVersion` (at whatever
- * version it is for `null`).
- * NOTE: the update names the base version in its WHERE, and InnoDB holds the row's lock from that
- * update to the commit, so of two saves from the same base exactly one changes the row; the other
- * waits, then changes nothing and gets the conflict. Parsing and the derived columns are computed
- * before the transaction so the lock is held only for the writes.
- * The two writes are plain SQL: saving is the busiest write there is, and Sequelize's instance
- * building and change tracking on a large JSON document cost more than MariaDB's work.
+ * Writes `document` as the next version, provided the draft is still at `baseVersion`, in one call
+ * of the save_draft_version procedure (migration 0006 says why and how). Parsing and the derived
+ * columns are computed before it, so the row's lock is held only for the writes.
+ * Returns the new version, or null when the draft was no longer at `baseVersion`.
  */
 async function writeVersion(
-  models: Models, draftId: number, authorId: number, document: Draft, message: string, baseVersion: number | null,
-): Promise<{ version: number }> {
+  models: Models, draftId: number, authorId: number, document: Draft, message: string, baseVersion: number,
+): Promise<number | null> {
   const { ends, picks, shafts, colors, structure } = derivedColumns(document);
-  const text = JSON.stringify(document);
-  const sequelize = models.Draft.sequelize!;
-  return sequelize.transaction(async (transaction) => {
-    let base = baseVersion;
-    if (base === null) {
-      const row = await models.Draft.findByPk(draftId, { attributes: ['version'], transaction, lock: transaction.LOCK.UPDATE });
-      if (!row) throw notFound('No such draft');
-      base = row.version;
-    }
-    const version = base + 1;
-    const now = new Date();
-    const [, changed] = await sequelize.query(
-      'UPDATE `drafts` SET `document` = ?, `version` = ?, `ends` = ?, `picks` = ?, `shafts` = ?, `colors` = ?, '
-        + '`structure` = ?, `thumbnail` = NULL, `updatedAt` = ? WHERE `id` = ? AND `version` = ?',
-      { replacements: [text, version, ends, picks, shafts, colors, JSON.stringify(structure), now, draftId, base], type: QueryTypes.UPDATE, transaction },
-    );
-    if (changed === 0) {
-      const current = await models.Draft.findByPk(draftId, { attributes: ['version', 'document'], transaction });
-      if (!current) throw notFound('No such draft');
-      throw new VersionConflict({ version: current.version, document: current.document });
-    }
-    models.access.draftSaved(transaction);
-    await sequelize.query(
-      'INSERT INTO `draft_versions` (`draftId`, `version`, `authorId`, `message`, `document`, `createdAt`) VALUES (?, ?, ?, ?, ?, ?)',
-      { replacements: [draftId, version, authorId, message, text, now], type: QueryTypes.INSERT, transaction },
-    );
-    return { version };
-  });
+  // For a CALL, Sequelize answers with the rows of the procedure's first result set.
+  const rows = await models.Draft.sequelize!.query(
+    'CALL save_draft_version(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)',
+    { replacements: [draftId, baseVersion, JSON.stringify(document), ends, picks, shafts, colors, JSON.stringify(structure), authorId, message, new Date()] },
+  ) as unknown as [{ version: number }];
+  const { version } = rows[0];
+  // Plain SQL runs no model hooks; the procedure has committed by the time it answers.
+  models.access.draftSaved();
+  return version === 0 ? null : version;
+}
+
+/** The 409 for a save that lost to another (or 404 when the draft is gone meanwhile). */
+async function conflict(models: Models, draftId: number): Promise<VersionConflict> {
+  const current = await models.Draft.findByPk(draftId, { attributes: ['version', 'document'] });
+  if (!current) throw notFound('No such draft');
+  return new VersionConflict({ version: current.version, document: current.document });
 }
 
 /** PUT /api/drafts/:id: a new version on top of the one the client started from. */
 export async function saveDraft(models: Models, draftId: number, authorId: number, body: SaveDraftBody): Promise<{ version: number }> {
   const document = parseDocument(body.document);
-  return writeVersion(models, draftId, authorId, document, body.message ?? '', body.baseVersion);
+  const version = await writeVersion(models, draftId, authorId, document, body.message ?? '', body.baseVersion);
+  if (version === null) throw await conflict(models, draftId);
+  return { version };
 }
 
 /** A new version holding an older version's document; history is never rewritten. */
 export async function restoreVersion(models: Models, draftId: number, authorId: number, n: number): Promise<{ version: number }> {
   const { document } = await versionDocument(models, draftId, n);
-  return writeVersion(models, draftId, authorId, document, `Restored version ${n}`, null);
+  for (let attempt = 1; ; attempt++) {
+    const current = await models.Draft.findByPk(draftId, { attributes: ['version'] });
+    if (!current) throw notFound('No such draft');
+    const version = await writeVersion(models, draftId, authorId, document, `Restored version ${n}`, current.version);
+    if (version !== null) return { version };
+    if (attempt === RESTORE_ATTEMPTS) throw await conflict(models, draftId);
+  }
 }
 
 function versionSummary(row: DraftVersionRow & { author?: { name: string } }): VersionSummary {

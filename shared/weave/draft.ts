@@ -235,31 +235,31 @@ function plural(n: number, one: string, many = `${one}s`): string {
   return `${n} ${n === 1 ? one : many}`;
 }
 
-/** Valid integers in a list of lists, with their position, skipping what the shape check already reports. */
-function* entries(lists: unknown): Generator<[number, number, number]> {
+/**
+ * Numbers past `limit` (within `hardMax`: beyond it the shape check reports them), then numbers listed
+ * twice in one row. Plain loops, and a set only for rows of two or more: this runs on every save, over
+ * every end and pick.
+ */
+function checkNumbersWithin(problems: Problems, field: string, lists: unknown, limit: number, kind: string, of: string, hardMax: number): void {
   if (!Array.isArray(lists)) return;
   for (let i = 0; i < lists.length; i++) {
     const row: unknown = lists[i];
     if (!Array.isArray(row)) continue;
-    for (let j = 0; j < row.length; j++) if (isInt(row[j])) yield [i, j, row[j] as number];
-  }
-}
-
-function checkNumbersWithin(problems: Problems, field: string, lists: unknown, limit: number, kind: string, of: string, hardMax: number): void {
-  for (const [i, j, v] of entries(lists)) {
-    if (v >= 1 && v <= hardMax && v > limit) {
-      problems.add([field, i, j], `${kind} ${v} but the draft has ${plural(limit, of)}`);
+    for (let j = 0; j < row.length; j++) {
+      const v: unknown = row[j];
+      if (isInt(v) && v >= 1 && v <= hardMax && v > limit) problems.add([field, i, j], `${kind} ${v} but the draft has ${plural(limit, of)}`);
     }
   }
-  if (!Array.isArray(lists)) return;
-  lists.forEach((row: unknown, i) => {
-    if (!Array.isArray(row)) return;
+  for (let i = 0; i < lists.length; i++) {
+    const row: unknown = lists[i];
+    if (!Array.isArray(row) || row.length < 2) continue;
     const seen = new Set<unknown>();
-    row.forEach((v: unknown, j) => {
-      if (seen.has(v)) problems.add([field, i, j], `${kind} ${String(v)} is listed twice`);
-      seen.add(v);
-    });
-  });
+    for (let j = 0; j < row.length; j++) {
+      if (!(j in row)) continue; // a hole, which the shape check reports
+      if (seen.has(row[j])) problems.add([field, i, j], `${kind} ${String(row[j])} is listed twice`);
+      seen.add(row[j]);
+    }
+  }
 }
 
 function checkLength(problems: Problems, field: string, list: unknown, expected: number, thing: string): void {

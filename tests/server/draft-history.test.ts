@@ -7,6 +7,7 @@ import {
 } from '../../shared/api';
 import { createDraft as buildDraft, MAX_SHAFTS, MAX_THREADS, parseDraft, type Draft } from '../../shared/weave';
 import { colourAndWeaveSampler, pointTwillScarf, straightTwillTrial } from '../../server/db/seeders/demo-drafts';
+import { saveDraft } from '../../server/services/draft-versions';
 import { createDraft } from '../../server/services/drafts';
 import { STRUCTURE_TAGS } from '../../server/services/draft-derived';
 import { STRUCTURES } from '../../src/features/library/drafts-search';
@@ -103,6 +104,43 @@ describe('saving versions', () => {
     const v3 = versionDetailResponseSchema.parse((await s.viewer.client.get(`/api/drafts/${s.draftId}/versions/3`)).body);
     expect(parseDraft(v2.version.document)).toEqual(winnerDoc);
     expect(parseDraft(v3.version.document)).toEqual(loserDoc);
+  });
+
+  it('answers a base version the draft never reached with 409, leaving no gap in the history', async () => {
+    const s = await studioScene();
+    const res = await put(s.owner, s.draftId, { document: straightTwillTrial(), baseVersion: 7 });
+    expect(res.status).toBe(409);
+    expect(saveConflictSchema.parse(res.body).current.version).toBe(1);
+    expect((await put(s.owner, s.draftId, { document: straightTwillTrial(), baseVersion: 1 })).body).toEqual({ version: 2 });
+    const list = versionListResponseSchema.parse((await s.owner.get(`/api/drafts/${s.draftId}/versions`)).body);
+    expect(list.versions.map((v) => v.version)).toEqual([2, 1]);
+  });
+
+  it('writes nothing when the version row cannot be written, and the next save works', async () => {
+    const s = await studioScene();
+    // No such author: the version row breaks its foreign key after the draft row was updated.
+    await expect(saveDraft(server.ctx.models, s.draftId, 2 ** 31 - 1, { document: straightTwillTrial(), baseVersion: 1 }))
+      .rejects.toThrow(/foreign key/i);
+    const row = await server.ctx.models.Draft.findByPk(s.draftId);
+    expect(row!.version).toBe(1);
+    expect(parseDraft(row!.document)).toEqual(pointTwillScarf());
+    // Every pooled connection is out of that transaction: saves on each of them still commit.
+    const saves = await Promise.all(Array.from({ length: 12 }, async () => {
+      const other = await createDraft(server.ctx.models, { ownerId: s.ownerUser.id, studioId: s.studioId, document: pointTwillScarf(), tags: [] });
+      return put(s.owner, other.id, { document: straightTwillTrial(), baseVersion: 1 });
+    }));
+    expect(saves.map((r) => r.status)).toEqual(saves.map(() => 200));
+    expect((await put(s.owner, s.draftId, { document: straightTwillTrial(), baseVersion: 1 })).body).toEqual({ version: 2 });
+  });
+
+  it('lets a restore and a save made at the same moment both land, one after the other', async () => {
+    const s = await studioScene();
+    const [restore, save] = await Promise.all([
+      s.editor.client.post(`/api/drafts/${s.draftId}/versions/1/restore`),
+      put(s.owner, s.draftId, { document: straightTwillTrial(), baseVersion: 1 }),
+    ]);
+    expect([restore.status, save.status]).toEqual([200, 200]);
+    expect([restore.body.version, save.body.version].sort()).toEqual([2, 3]);
   });
 
   it('refuses a draft the engine rejects with 422 naming each problem, and a viewer with 403', async () => {

@@ -5,6 +5,7 @@ import * as plansAndProgress from './0002-plans-and-progress';
 import * as draftsService from './0003-drafts-service';
 import * as listIndexes from './0004-list-indexes';
 import * as structureBackfill from './0005-structure-backfill';
+import * as saveProcedure from './0006-save-procedure';
 
 /**
  * Every migration, oldest first. Listed by hand rather than globbed so the list is type-checked and
@@ -16,4 +17,5 @@ export const migrations: RunnableMigration<QueryInterface>[] = [
   { name: '0003-drafts-service', ...draftsService },
   { name: '0004-list-indexes', ...listIndexes },
   { name: '0005-structure-backfill', ...structureBackfill },
+  { name: '0006-save-procedure', ...saveProcedure },
 ];
