@@ -141,6 +141,11 @@ describe('backup and restore', () => {
     await expect(restore({ conn, attachmentsDir: restoredAttachments, source: target })).rejects.toThrow(/--yes/);
     await restore({ conn, attachmentsDir: restoredAttachments, source: target, overwrite: true });
     expect(await dst.DraftVersion.count()).toBe(manifest.counts.versions);
+
+    // The restored database takes saves: the save procedure (migration 0006) came with the dump.
+    const head = (await dst.Draft.findByPk(created.draftIds[0]))!;
+    const saved = await saveDraft(dst, head.id, head.ownerId, { document: head.document, baseVersion: head.version, message: 'after restore' });
+    expect(saved).toEqual({ version: head.version + 1 });
   }, 180_000);
 
   it('refuses a backup that does not match its manifest, before touching the database', async () => {
