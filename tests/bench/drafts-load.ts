@@ -10,11 +10,13 @@
  *     it is based on, so each in-flight save takes a draft of its own from a pool and returns it with
  *     the new version when the answer comes (a 409 here would be a bug in the test, and is counted).
  * Prints requests/s, p50/p95/p99 latency and error counts. Targets: p95 ≤ 50 ms (list),
- * ≤ 100 ms (save), zero errors; also the CPU time per request of the app and of MariaDB.
+ * ≤ 100 ms (save), zero errors; also the CPU time per request of the app, MariaDB and autocannon, and
+ * how much of the machine's CPU was left idle.
  * Options: --duration=20 --connections=50 --only=list|save --cpu-prof=DIR.
  */
 import { spawn } from 'node:child_process';
 import { once } from 'node:events';
+import { availableParallelism } from 'node:os';
 import { readFileSync } from 'node:fs';
 import autocannon from 'autocannon';
 import { QueryTypes } from 'sequelize';
@@ -27,7 +29,7 @@ import { createDraft } from '../../server/services/drafts';
 import { signUp } from '../../server/services/auth';
 import { testConfig, uniqueEmail } from '../helpers/test-db';
 import { bigDraft } from './drafts-load-data';
-import { cpuMs, stolenMs } from './proc-stat';
+import { cpuMs, idleMs, stolenMs } from './proc-stat';
 
 const arg = (name: string, fallback: number) => Number(process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1] ?? fallback);
 const DURATION_S = arg('duration', 20);
@@ -47,6 +49,10 @@ interface Figures {
   /** CPU ms per request of the app process and of MariaDB during the run. */
   appCpu: number;
   dbCpu: number;
+  /** The same for this process, which runs autocannon. */
+  loadCpu: number;
+  /** Share of the machine's CPU time left idle during the run. */
+  idleShare: number;
   /** CPU ms the host took from this machine during the run (see stolenMs). */
   stolen: number;
   requests: number;
@@ -61,7 +67,7 @@ interface Figures {
 
 async function run(name: string, options: autocannon.Options): Promise<Figures> {
   const times: number[] = [];
-  const cpuBefore = [cpuMs(child.pid!), cpuMs(dbPid), stolenMs()];
+  const cpuBefore = [cpuMs(child.pid!), cpuMs(dbPid), stolenMs(), cpuMs(process.pid), idleMs()];
   const instance = autocannon({ connections: CONNECTIONS, duration: DURATION_S, ...options });
   instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => { times.push(responseTime); });
   const result = await instance;
@@ -71,6 +77,8 @@ async function run(name: string, options: autocannon.Options): Promise<Figures> 
     name,
     appCpu: perRequest(cpuBefore[0], child.pid!),
     dbCpu: perRequest(cpuBefore[1], dbPid),
+    loadCpu: perRequest(cpuBefore[3], process.pid),
+    idleShare: (idleMs() - cpuBefore[4]) / (DURATION_S * 1000 * availableParallelism()),
     stolen: stolenMs() - cpuBefore[2],
     requests: result.requests.total,
     perSecond: result.requests.average,
@@ -170,6 +178,8 @@ try {
     'non-2xx': f.non2xx,
     'app CPU ms/req': f.appCpu.toFixed(2),
     'MariaDB CPU ms/req': f.dbCpu.toFixed(2),
+    'autocannon CPU ms/req': f.loadCpu.toFixed(2),
+    'CPU idle': `${Math.round(100 * f.idleShare)} %`,
     'host steal ms': f.stolen,
   })));
   const verdict = (f: Figures, target: number) => `${f.name}: p95 ${f.p95} ms (target ≤ ${target} ms) ${f.p95 <= target ? 'met' : 'MISSED'}, `

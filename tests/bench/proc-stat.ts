@@ -15,7 +15,15 @@ export function cpuMs(pid: number): number {
  * CPUs so far. On a shared virtual machine it explains slow runs that nothing in the guest caused.
  */
 export function stolenMs(): number {
-  // cpu user nice system idle iowait irq softirq steal …
-  const cpu = readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/);
-  return Number(cpu[8]) * TICK_MS;
+  return machineCpu()[7] * TICK_MS;
+}
+
+/** CPU time no process wanted (idle, over all CPUs so far): near zero means the machine was the limit. */
+export function idleMs(): number {
+  return machineCpu()[3] * TICK_MS;
+}
+
+/** The first line of /proc/stat: user nice system idle iowait irq softirq steal …, in ticks. */
+function machineCpu(): number[] {
+  return readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/).slice(1).map(Number);
 }
