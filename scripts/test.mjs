@@ -8,7 +8,7 @@ import { ensureDebianPackages, ensureNodeModules, root, run } from './lib/system
 ensureNodeModules();
 ensureDebianPackages({ mariadbd: 'mariadb-server', chromium: 'chromium', pdftoppm: 'poppler-utils' });
 
-const { startMariaDB } = await import('./lib/mariadb.mjs');
+const { removeStrayInstances, startMariaDB } = await import('./lib/mariadb.mjs');
 const { databases } = await import('./lib/databases.mjs');
 const { startChild, onStop, stopAll, waitForExit } = await import('./lib/processes.mjs');
 
@@ -38,6 +38,9 @@ try {
     ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${resultsFile}`, ...process.argv.slice(2)],
     { env, cwd: root });
   const code = await waitForExit(vitest);
+  for (const dir of await removeStrayInstances(join(root, '.data'), 'restore-test-')) {
+    console.log(`Stopped a MariaDB that a test started and did not stop (its worker died?): ${dir}`);
+  }
   const { passed, failed } = countResults(code);
   exitCode = code !== 0 || failed > 0 ? 1 : 0;
   await stopAll();

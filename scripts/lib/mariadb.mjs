@@ -1,6 +1,6 @@
 // A private MariaDB instance whose data lives under the project (never the system service).
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import { join } from 'node:path';
 import { userInfo } from 'node:os';
@@ -73,6 +73,32 @@ export async function startMariaDB({ dir, port, database, user }) {
       while (existsSync(pidFile) && Date.now() - t < 30_000) await sleep(100);
     },
   };
+}
+
+/**
+ * Stops every instance under `parent` in a folder named `prefix…` and removes its data: a test that
+ * starts an instance of its own cannot stop it when its worker dies (out of memory, say), and a
+ * forgotten mariadbd would go on taking CPU and disk. Resolves to the folders it removed.
+ */
+export async function removeStrayInstances(parent, prefix) {
+  const removed = [];
+  for (const name of existsSync(parent) ? readdirSync(parent).filter((n) => n.startsWith(prefix)) : []) {
+    const dir = join(parent, name);
+    const pidFile = join(dir, 'mariadb.pid');
+    if (existsSync(pidFile)) {
+      try {
+        // mariadbd shuts down cleanly on SIGTERM and removes its pid file.
+        process.kill(Number(readFileSync(pidFile, 'utf8').trim()), 'SIGTERM');
+        const t = Date.now();
+        while (existsSync(pidFile) && Date.now() - t < 30_000) await sleep(100);
+      } catch (err) {
+        if (err.code !== 'ESRCH') throw err; // already gone, pid file left behind
+      }
+    }
+    rmSync(dir, { recursive: true, force: true });
+    removed.push(dir);
+  }
+  return removed;
 }
 
 async function ping(socket) {
