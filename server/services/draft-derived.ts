@@ -64,7 +64,8 @@ function isTwill(draft: Draft): boolean {
 export function structureTags(draft: Draft): string[] {
   const tags: string[] = [];
   const start = cropDraft(draft, STRUCTURE_CELLS, STRUCTURE_CELLS);
-  const plain = isPlainWeave(computeDrawdown(start));
+  // Most cloth is not plain weave, and its first 2 × 2 cells usually show it without the whole start.
+  const plain = isPlainWeave(computeDrawdown(cropDraft(draft, 2, 2))) && isPlainWeave(computeDrawdown(start));
   if (plain) tags.push('plain weave');
   if (!plain && isTwill(start)) tags.push('twill');
   if (new Set([...draft.warpLayers, ...draft.weftLayers]).size > 1) tags.push('double weave');

@@ -150,8 +150,11 @@ function listOf(v: unknown, ok: (item: unknown) => boolean, maxLength = Infinity
   for (let i = 0; i < v.length; i++) if (!ok(v[i])) return false;
   return true;
 }
-const isShaftList = (v: unknown) => listOf(v, (x) => wholeIn(x, 1, MAX_SHAFTS));
-const isTreadleList = (v: unknown) => listOf(v, (x) => wholeIn(x, 1, MAX_TREADLES));
+// Named once, not built per end or pick: these run over every row of every save.
+const isShaft = (x: unknown) => wholeIn(x, 1, MAX_SHAFTS);
+const isTreadle = (x: unknown) => wholeIn(x, 1, MAX_TREADLES);
+const isShaftList = (v: unknown) => listOf(v, isShaft);
+const isTreadleList = (v: unknown) => listOf(v, isTreadle);
 
 /**
  * The same schema with the long number lists checked in one plain loop each instead of one zod schema
