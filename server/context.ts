@@ -13,14 +13,16 @@ import { localDiskStorage, type BlobStorage } from './storage';
 
 const SequelizeStore = connectSessionSequelize(session.Store);
 
-/** How often one process renews a session's expiry: often enough for a sliding expiry of days. */
+/** How often one process renews a session row's expiry: far more often than sessions last (days). */
 const TOUCH_INTERVAL_MS = 10 * 60 * 1000;
 
 export type SessionStore = InstanceType<typeof SequelizeStore>;
 
 /**
- * The store renews a session's expiry on every request, a database write per request. Renewing it
- * at most every few minutes per process keeps the sliding expiry without that write.
+ * The store renews a session row's expiry (which its sweeper deletes rows by) on every request, a
+ * database write per request. Renewing it at most every few minutes per process keeps the rows of
+ * sessions in use without that write. The cookie's own expiry does not slide: it is set when the
+ * session is saved, at sign-in (express-session's `rolling` is off).
  */
 function throttleTouch(store: SessionStore): SessionStore {
   const touch = store.touch.bind(store);
