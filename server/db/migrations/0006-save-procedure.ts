@@ -1,8 +1,8 @@
 import type { QueryInterface } from 'sequelize';
 
 /**
- * A save is the busiest write there is, and most of its cost was the four round trips of its
- * transaction (begin, update, insert, commit), each a socket write and a statement for both sides.
+ * A save is the busiest write there is, and a fifth of its app CPU went to the four round trips of
+ * its transaction (begin, update, insert, commit), each a socket write and a statement on both sides.
  * This procedure does the same in one call: the draft row is updated only while it is still at the
  * version the save was based on (InnoDB holds that row's lock to the commit, so of two saves from
  * one base exactly one changes it), and only then is the version row written. It answers with the
