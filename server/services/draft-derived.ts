@@ -68,7 +68,7 @@ export function structureTags(draft: Draft): string[] {
   const plain = isPlainWeave(computeDrawdown(cropDraft(draft, 2, 2))) && isPlainWeave(computeDrawdown(start));
   if (plain) tags.push('plain weave');
   if (!plain && isTwill(start)) tags.push('twill');
-  if (new Set([...draft.warpLayers, ...draft.weftLayers]).size > 1) tags.push('double weave');
+  if (distinctCount(draft.warpLayers, draft.weftLayers) > 1) tags.push('double weave');
   if (draft.blocks && draft.blocks.warp.some((b) => b > 0)) tags.push('block weave');
   return tags;
 }
@@ -99,6 +99,7 @@ export function thumbnailPng(draft: Draft): Buffer | null {
   return encodePngRgb(width, picks * s, rgb);
 }
 
+/** How many different numbers two lists hold between them. */
 function distinctCount(a: readonly number[], b: readonly number[]): number {
   const seen = new Set(a);
   for (const v of b) seen.add(v);
