@@ -1,4 +1,5 @@
 import { randomBytes } from 'node:crypto';
+import { availableParallelism } from 'node:os';
 
 export interface DbConfig {
   host: string;
@@ -38,6 +39,11 @@ export interface Config {
    * turn it off, as one server would not see another's writes.
    */
   processCaches: boolean;
+  /**
+   * How many processes serve the app (server/cluster): one per CPU by default, as one process's
+   * single thread is what limits how many requests a machine answers.
+   */
+  workers: number;
   rateLimit: RateLimitConfig;
 }
 
@@ -73,6 +79,7 @@ export function loadConfig(env: Env = process.env): Config {
     attachmentsDir: env.SHEDWRIGHT_ATTACHMENTS_DIR || '.data/attachments',
     sessionMaxAgeMs: int(env, 'SHEDWRIGHT_SESSION_MAX_AGE_MS', 30 * 24 * 60 * 60 * 1000),
     processCaches: env.SHEDWRIGHT_PROCESS_CACHES !== '0',
+    workers: Math.max(1, int(env, 'SHEDWRIGHT_WORKERS', availableParallelism())),
     rateLimit: {
       windowMs: int(env, 'SHEDWRIGHT_RATE_WINDOW_MS', 15 * 60 * 1000),
       signIn: int(env, 'SHEDWRIGHT_SIGNIN_LIMIT', 10),

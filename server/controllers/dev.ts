@@ -1,5 +1,5 @@
 import type { Ctx } from '../routes/route';
 
 export async function mails({ app, res }: Ctx<unknown, unknown, unknown>) {
-  res.json({ mails: app.mails() });
+  res.json({ mails: await app.mails() });
 }

@@ -1,6 +1,7 @@
 import { LRUCache } from 'lru-cache';
 import type { Model, ModelStatic, Transaction } from 'sequelize';
 import type { StudioRole } from '../../shared/api/auth';
+import { singleProcess, type CacheRelay } from '../cluster/relay';
 import type { DraftModel } from './draft';
 import type { MembershipModel } from './membership';
 import type { StudioModel } from './studio';
@@ -33,8 +34,10 @@ export interface DraftOwnership {
  * when the write happens and again when its transaction commits, and a read that started before an
  * emptying does not store what it read. So a removed member or a deleted account loses access at the
  * next request, and a library page never misses a save. The writes are seen through model hooks, so
- * they must go through the models, or say what they wrote (draftSaved). The caches are per process,
- * right for one app server; several servers on one database turn them off (config.processCaches).
+ * they must go through the models, or say what they wrote (draftSaved). Each process of the app
+ * keeps its own caches; once a write has committed, the relay empties the other processes' too
+ * before the write's request is answered (server/cluster/relay.ts). Servers on other machines
+ * sharing one database turn the caches off (config.processCaches).
  */
 export interface AccessCache {
   account(userId: number): Promise<AccountFields | null>;
@@ -46,9 +49,10 @@ export interface AccessCache {
   /**
    * Says a draft's document was saved in plain SQL, which runs no model hooks: library pages are out
    * of date. Called once the save has committed; a page read before then is dropped, not kept.
+   * Resolves when every process has dropped its pages.
    */
-  draftSaved(): void;
-  /** Empties every cache; the hooks call it, tests may too. */
+  draftSaved(): Promise<void>;
+  /** Empties this process's caches; tests call it. */
   invalidate(): void;
 }
 
@@ -63,10 +67,6 @@ function writeInvalidatedCache(max: number, enabled: boolean) {
   // Boxed so that "no such row" (null) is cached too.
   const entries = new LRUCache<string, { value: unknown }>({ max });
   let generation = 0;
-  const invalidate = () => {
-    generation += 1;
-    entries.clear();
-  };
   return {
     async read<V>(key: string, load: () => Promise<V>): Promise<V> {
       const hit = entries.get(key);
@@ -76,19 +76,34 @@ function writeInvalidatedCache(max: number, enabled: boolean) {
       if (enabled && started === generation) entries.set(key, { value });
       return value;
     },
-    invalidate,
-    afterWrite(options: HookOptions | undefined) {
-      invalidate();
-      options?.transaction?.afterCommit(invalidate);
+    invalidate() {
+      generation += 1;
+      entries.clear();
     },
   };
+}
+
+/**
+ * Empties `caches` when a write happens and again when its transaction commits, then has the other
+ * processes empty theirs: they cannot see the write before it commits. Hooks return the promise, so
+ * Sequelize waits for the other processes before the write returns.
+ */
+function afterWrite(options: HookOptions | undefined, caches: { invalidate(): void }[], tellOthers: () => Promise<void>) {
+  const empty = () => { for (const cache of caches) cache.invalidate(); };
+  empty();
+  if (!options?.transaction) return tellOthers();
+  options.transaction.afterCommit(() => {
+    empty();
+    return tellOthers();
+  });
+  return undefined;
 }
 
 const OWNERSHIP_FIELDS: readonly PropertyKey[] = ['ownerId', 'studioId'];
 /** Draft columns a library page does not show. */
 const UNLISTED_FIELDS: readonly PropertyKey[] = ['thumbnail'];
 
-type Watcher = (options: HookOptions) => void;
+type Watcher = (options: HookOptions) => Promise<void> | void;
 
 /** Calls `onWrite` after every kind of write to `model`, with the write's options. */
 function watchWrites(model: ModelStatic<Model>, onWrite: Watcher) {
@@ -107,21 +122,27 @@ const updatedFields = (options: HookOptions): readonly PropertyKey[] | undefined
 
 /** The access cache over these models; when not `enabled` every read goes to the database. */
 export function createAccessCache(
-  models: { User: UserModel; Studio: StudioModel; Membership: MembershipModel; Draft: DraftModel }, enabled: boolean,
+  models: { User: UserModel; Studio: StudioModel; Membership: MembershipModel; Draft: DraftModel },
+  enabled: boolean,
+  relay: CacheRelay = singleProcess,
 ): AccessCache {
   const access = writeInvalidatedCache(50_000, enabled);
   // A page of up to 100 drafts is some tens of kB: 500 of them stay within a few tens of MB.
   const library = writeInvalidatedCache(500, enabled);
-  const everything: Watcher = (options) => {
-    access.afterWrite(options);
-    library.afterWrite(options);
-  };
+  const tell = (kind: 'access' | 'library') => () => (enabled ? relay.publish({ kind }) : Promise.resolve());
+  // 'access' empties both caches in the other processes, 'library' only the pages.
+  relay.subscribe((drop) => {
+    if (drop.kind === 'access') access.invalidate();
+    if (drop.kind !== 'session') library.invalidate();
+  });
+  const everything: Watcher = (options) => afterWrite(options, [access, library], tell('access'));
   for (const model of [models.User, models.Studio, models.Membership]) watchWrites(model as unknown as ModelStatic<Model>, everything);
   // A save changes a draft's document, not whose it is; storing its thumbnail changes no list either.
   watchWrites(models.Draft as unknown as ModelStatic<Model>, (options) => {
     const fields = updatedFields(options);
-    if (!fields || fields.some((f) => OWNERSHIP_FIELDS.includes(f))) everything(options);
-    else if (fields.some((f) => !UNLISTED_FIELDS.includes(f))) library.afterWrite(options);
+    if (!fields || fields.some((f) => OWNERSHIP_FIELDS.includes(f))) return everything(options);
+    if (fields.some((f) => !UNLISTED_FIELDS.includes(f))) return afterWrite(options, [library], tell('library'));
+    return undefined;
   });
 
   return {
@@ -138,7 +159,10 @@ export function createAccessCache(
       return row ? { ownerId: row.ownerId, studioId: row.studioId } : null;
     }),
     libraryPage: (userId, queryKey, load) => library.read(`${userId}:${queryKey}`, load),
-    draftSaved: () => library.invalidate(),
+    draftSaved: () => {
+      library.invalidate();
+      return tell('library')();
+    },
     invalidate() {
       access.invalidate();
       library.invalidate();

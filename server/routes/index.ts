@@ -33,7 +33,7 @@ function parse(schema: z.ZodType | undefined, value: unknown): unknown {
  */
 export function apiRouter(app: AppContext): Router {
   const router = Router();
-  const limiters = createLimiters(app.config.rateLimit);
+  const limiters = createLimiters(app.config.rateLimit, app.rateLimitStore);
   for (const spec of routeTable) {
     const chain: RequestHandler[] = [];
     if (spec.limiter) chain.push(limiters[spec.limiter]);

@@ -34,7 +34,7 @@ async function writeVersion(
   ) as unknown as [{ version: number }];
   const { version } = rows[0];
   // Plain SQL runs no model hooks; the procedure has committed by the time it answers.
-  models.access.draftSaved();
+  await models.access.draftSaved();
   return version === 0 ? null : version;
 }
 

@@ -2,9 +2,9 @@
  * Drafts service load test: `npx tsx tests/bench/drafts-load.ts` with the test database up
  * (`node scripts/db.mjs test`, then export the SHEDWRIGHT_DB_* lines it prints).
  *
- * Starts the real app (createApp, in a child process: drafts-load-server.ts) on a free loopback port
- * over MariaDB, gives a fresh weaver 1000
- * drafts, then runs autocannon with 50 connections for 20 s each on:
+ * Starts the real app (in processes of its own: drafts-load-server.ts) on a free loopback port
+ * over MariaDB, gives a fresh weaver 1000 drafts, then runs autocannon with 50 connections for 20 s
+ * each on:
  *   - list: GET /api/drafts (the first page of the library);
  *   - save: PUT /api/drafts/:id with a 400-end × 400-pick draft. Every save must carry the version
  *     it is based on, so each in-flight save takes a draft of its own from a pool and returns it with
@@ -12,7 +12,9 @@
  * Prints requests/s, p50/p95/p99 latency and error counts. Targets: p95 ≤ 50 ms (list),
  * ≤ 100 ms (save), zero errors; also the CPU time per request of the app, MariaDB and autocannon, and
  * how much of the machine's CPU was left idle.
- * Options: --duration=20 --connections=50 --only=list|save --cpu-prof=DIR.
+ * Options: --duration=20 --connections=50 --only=list|save --cpu-prof=DIR; --workers=N runs the app as
+ * N processes (as SHEDWRIGHT_WORKERS does; default 1); --server=express|node measures a floor instead
+ * of the app (save-floors.ts: the save's own work without the app around it; save only).
  */
 import { spawn } from 'node:child_process';
 import { once } from 'node:events';
@@ -29,12 +31,14 @@ import { createDraft } from '../../server/services/drafts';
 import { signUp } from '../../server/services/auth';
 import { testConfig, uniqueEmail } from '../helpers/test-db';
 import { bigDraft } from './drafts-load-data';
-import { cpuMs, idleMs, stolenMs } from './proc-stat';
+import { cpuMs, idleMs, stolenMs, treeCpuMs } from './proc-stat';
 
-const arg = (name: string, fallback: number) => Number(process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1] ?? fallback);
+const option = (name: string) => process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1];
+const arg = (name: string, fallback: number) => Number(option(name) ?? fallback);
 const DURATION_S = arg('duration', 20);
 const CONNECTIONS = arg('connections', 50);
-const ONLY = process.argv.find((a) => a.startsWith('--only='))?.split('=')[1];
+const SERVER = option('server') ?? 'app';
+const ONLY = SERVER === 'app' ? option('only') : 'save';
 const LIBRARY_SIZE = 1000;
 const PASSWORD = 'bench-password-loom';
 
@@ -67,17 +71,17 @@ interface Figures {
 
 async function run(name: string, options: autocannon.Options): Promise<Figures> {
   const times: number[] = [];
-  const cpuBefore = [cpuMs(child.pid!), cpuMs(dbPid), stolenMs(), cpuMs(process.pid), idleMs()];
+  const cpuBefore = [treeCpuMs(child.pid!), cpuMs(dbPid), stolenMs(), cpuMs(process.pid), idleMs()];
   const instance = autocannon({ connections: CONNECTIONS, duration: DURATION_S, ...options });
   instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => { times.push(responseTime); });
   const result = await instance;
   times.sort((a, b) => a - b);
-  const perRequest = (before: number, pid: number) => (cpuMs(pid) - before) / result.requests.total;
+  const perRequest = (before: number, now: number) => (now - before) / result.requests.total;
   return {
     name,
-    appCpu: perRequest(cpuBefore[0], child.pid!),
-    dbCpu: perRequest(cpuBefore[1], dbPid),
-    loadCpu: perRequest(cpuBefore[3], process.pid),
+    appCpu: perRequest(cpuBefore[0], treeCpuMs(child.pid!)),
+    dbCpu: perRequest(cpuBefore[1], cpuMs(dbPid)),
+    loadCpu: perRequest(cpuBefore[3], cpuMs(process.pid)),
     idleShare: (idleMs() - cpuBefore[4]) / (DURATION_S * 1000 * availableParallelism()),
     stolen: stolenMs() - cpuBefore[2],
     requests: result.requests.total,
@@ -113,9 +117,10 @@ await migrate(ctx.sequelize);
 const [{ pidFile }] = await ctx.sequelize.query<{ pidFile: string }>('SELECT @@pid_file AS pidFile', { type: QueryTypes.SELECT });
 const dbPid = Number(readFileSync(pidFile, 'utf8').trim());
 // --cpu-prof=DIR writes a V8 profile of the app process there when it exits.
-const profileDir = process.argv.find((a) => a.startsWith('--cpu-prof='))?.split('=')[1];
+const profileDir = option('cpu-prof');
 const profile = profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [];
-const child = spawn(process.execPath, [...profile, '--import', 'tsx', new URL('./drafts-load-server.ts', import.meta.url).pathname], {
+const serverOptions = process.argv.filter((a) => /^--(server|workers)=/.test(a));
+const child = spawn(process.execPath, [...profile, '--import', 'tsx', new URL('./drafts-load-server.ts', import.meta.url).pathname, ...serverOptions], {
   stdio: ['ignore', 'pipe', 'inherit'],
 });
 const [line] = await Promise.race([
@@ -141,7 +146,8 @@ try {
   for (let i = 0; i < CONNECTIONS + 1; i++) {
     saveDrafts.push(await createDraft(ctx.models, { ownerId: user.id, studioId: null, document: bigDraft(i), tags: [] }));
   }
-  const { cookie, csrf } = await signIn(base, email);
+  // The floors answer only the save, and sign nobody in.
+  const { cookie, csrf } = SERVER === 'app' ? await signIn(base, email) : { cookie: '', csrf: '' };
   const headers = { cookie, 'x-csrf-token': csrf, 'content-type': 'application/json' };
 
   const runs: Figures[] = [];

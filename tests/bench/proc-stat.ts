@@ -1,13 +1,32 @@
 // CPU accounting from Linux's /proc for the benchmarks, in ms (clock ticks of 10 ms).
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 
 const TICK_MS = 10;
 
+/** The fields of /proc/PID/stat after the command name in parentheses (so field 3, the state, is [0]). */
+const statFields = (pid: number | string) => readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+
 /** CPU time (user + system) a process has used so far. */
 export function cpuMs(pid: number): number {
-  // Fields 14 and 15 of /proc/PID/stat, counted after the command name in parentheses.
-  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  // Fields 14 and 15: utime and stime.
+  const fields = statFields(pid);
   return (Number(fields[11]) + Number(fields[12])) * TICK_MS;
+}
+
+/** The live processes whose parent is `pid` (field 4 of their stat). */
+export function childPids(pid: number): number[] {
+  return readdirSync('/proc').filter((d) => /^\d+$/.test(d)).flatMap((d) => {
+    try {
+      return Number(statFields(d)[1]) === pid ? [Number(d)] : [];
+    } catch {
+      return []; // gone meanwhile
+    }
+  });
+}
+
+/** CPU time a process and its children (the workers of a server run as several) have used so far. */
+export function treeCpuMs(pid: number): number {
+  return childPids(pid).reduce((sum, child) => sum + cpuMs(child), cpuMs(pid));
 }
 
 /**

@@ -14,6 +14,8 @@ export const artifactsDir = join(root, 'tests/e2e/artifacts');
 
 export interface AppServer {
   url: string;
+  /** The server's process: the primary when the app runs as several workers. */
+  pid: number;
   env: NodeJS.ProcessEnv;
   stop(): Promise<void>;
 }
@@ -66,6 +68,7 @@ export async function startAppServer(extraEnv: NodeJS.ProcessEnv = {}): Promise<
   }
   return {
     url,
+    pid: child.pid!,
     env,
     async stop() {
       if (child.exitCode !== null) return;
