@@ -60,6 +60,7 @@ interface HookOptions {
   transaction?: Transaction | null;
   fields?: readonly PropertyKey[];
   attributes?: Record<string, unknown>;
+  silent?: boolean;
 }
 
 /** An LRU map whose entries are dropped by any write; see AccessCache for the rule. */
@@ -117,8 +118,11 @@ function watchWrites(model: ModelStatic<Model>, onWrite: Watcher) {
 }
 
 /** The fields an update changes; undefined for creates and deletes. */
-const updatedFields = (options: HookOptions): readonly PropertyKey[] | undefined =>
-  options.fields ?? (options.attributes ? Object.keys(options.attributes) : undefined);
+function updatedFields(options: HookOptions): readonly PropertyKey[] | undefined {
+  const fields = options.fields ?? (options.attributes ? Object.keys(options.attributes) : undefined);
+  // A silent update leaves updatedAt alone, though Sequelize still lists it among the fields.
+  return options.silent ? fields?.filter((f) => f !== 'updatedAt') : fields;
+}
 
 /** The access cache over these models; when not `enabled` every read goes to the database. */
 export function createAccessCache(

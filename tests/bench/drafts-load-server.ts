@@ -2,7 +2,8 @@
 // their event loop. Prints `listening <port>` once every process listens; exits on SIGTERM.
 //   --server=app (default): the real app over the test database, run as server/index.ts runs it;
 //   --server=express | node: the floors of save-floors.ts, which answer only the save;
-//   --workers=N: that many processes behind one port (node:cluster), as SHEDWRIGHT_WORKERS does.
+//   --workers=N: that many processes behind one port (node:cluster), as SHEDWRIGHT_WORKERS does;
+//     by default as many as the app runs.
 import cluster from 'node:cluster';
 import { once } from 'node:events';
 import type { Server } from 'node:http';
@@ -15,7 +16,8 @@ import { floorServer } from './save-floors';
 const option = (name: string) => process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1];
 const kind = option('server') ?? 'app';
 if (!['app', 'express', 'node'].includes(kind)) throw new Error(`--server must be app, express or node, not ${kind}`);
-const workers = Number(option('workers') ?? 1);
+// By default as many as the app runs (SHEDWRIGHT_WORKERS, or one per CPU).
+const workers = Number(option('workers') ?? testConfig().workers);
 // A worker's SMTP port is the primary's fake server's (server/cluster/primary.ts).
 const config = testConfig({ workers, smtpPort: Number(process.env.SHEDWRIGHT_SMTP_PORT ?? 0) });
 

@@ -13,8 +13,9 @@
  * ≤ 100 ms (save), zero errors; also the CPU time per request of the app, MariaDB and autocannon, and
  * how much of the machine's CPU was left idle.
  * Options: --duration=20 --connections=50 --only=list|save --cpu-prof=DIR; --workers=N runs the app as
- * N processes (as SHEDWRIGHT_WORKERS does; default 1); --server=express|node measures a floor instead
- * of the app (save-floors.ts: the save's own work without the app around it; save only).
+ * N processes (as SHEDWRIGHT_WORKERS does; by default as many as the app runs, one per CPU);
+ * --server=express|node measures a floor instead of the app (save-floors.ts: the save's own work
+ * without the app around it; save only).
  */
 import { spawn } from 'node:child_process';
 import { once } from 'node:events';

@@ -2,10 +2,14 @@
 // every answer they give must be the one MariaDB would give, right after any write through the app.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { draftListResponseSchema } from '../../shared/api';
+import type { CacheDrop, CacheRelay } from '../../server/cluster/relay';
+import { createSequelize } from '../../server/db/sequelize';
+import { defineModels } from '../../server/models';
 import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { createDraft } from '../../server/services/drafts';
 import { createStudio } from '../../server/services/studios';
 import { startTestServer, type TestServer } from '../helpers/server';
+import { testConfig } from '../helpers/test-db';
 
 let server: TestServer;
 beforeAll(async () => { server = await startTestServer(); });
@@ -116,5 +120,102 @@ describe('with SHEDWRIGHT_PROCESS_CACHES=0 (several app servers)', () => {
     expect((await listed(client)).map((d) => d.id)).toEqual([draft.id]);
     await server.ctx.models.Draft.destroy({ where: { id: draft.id } });
     expect((await client.get(`/api/drafts/${draft.id}`)).status).toBe(404);
+  });
+});
+
+/** A stand-in for the other processes: records what is published, and answers when told to. */
+function otherProcesses() {
+  const published: CacheDrop[] = [];
+  const waiting: (() => void)[] = [];
+  const appliers: ((drop: CacheDrop) => void)[] = [];
+  const relay: CacheRelay = {
+    publish: (drop) => {
+      published.push(drop);
+      return new Promise((resolve) => waiting.push(resolve));
+    },
+    subscribe: (apply) => { appliers.push(apply); },
+  };
+  return {
+    relay,
+    published,
+    /** The others have all applied what was published. */
+    answer: () => { for (const resolve of waiting.splice(0)) resolve(); },
+    /** Another process published `drop`. */
+    deliver: (drop: CacheDrop) => { for (const apply of appliers) apply(drop); },
+  };
+}
+
+/** Whether `promise` settles while the event loop runs a while (longer than a database round trip). */
+const settles = async (promise: Promise<unknown>) => {
+  let done = false;
+  void promise.then(() => { done = true; });
+  await new Promise((r) => setTimeout(r, 200));
+  return done;
+};
+
+/** Waits until `count` drops have been published. */
+async function published(others: ReturnType<typeof otherProcesses>, count: number): Promise<CacheDrop[]> {
+  for (let waited = 0; others.published.length < count && waited < 5000; waited += 10) await new Promise((r) => setTimeout(r, 10));
+  return others.published;
+}
+
+describe('the caches of a process among several (server/cluster/relay.ts)', () => {
+  const sequelize = createSequelize(testConfig().db);
+  const others = otherProcesses();
+  const models = defineModels(sequelize, { processCaches: true, relay: others.relay });
+  afterAll(async () => { await sequelize.close(); });
+
+  /** `write` tells the others to drop access rows, and finishes only once they have. */
+  async function expectHeldForOthers(write: Promise<unknown>) {
+    expect(await published(others, 1)).toEqual([{ kind: 'access' }]);
+    expect(await settles(write)).toBe(false);
+    others.answer();
+    expect(await settles(write)).toBe(true);
+  }
+
+  it('finish a write only once the other processes have dropped what it changes', async () => {
+    const user = await server.createUser({ name: 'Before' });
+    others.published.length = 0;
+    const update = models.User.update({ name: 'After' }, { where: { id: user.id } });
+    await expectHeldForOthers(update);
+  });
+
+  it('tell the other processes about a write in a transaction only once it commits', async () => {
+    const owner = await server.createUser();
+    const studio = await createStudio(server.ctx.models, owner.id, 'Relay studio');
+    const member = await server.createUser();
+    others.published.length = 0;
+    const transaction = sequelize.transaction(async (t) => {
+      await models.Membership.create({ studioId: studio.id, userId: member.id, role: 'viewer' }, { transaction: t });
+      // Before the commit another process could only read the old rows again: nothing to tell yet.
+      expect(others.published).toEqual([]);
+    });
+    await expectHeldForOthers(transaction);
+  });
+
+  it('tell them library pages only, for a save or a rename, and nothing for a thumbnail', async () => {
+    const user = await server.createUser();
+    const draft = await createDraft(server.ctx.models, { ownerId: user.id, studioId: null, document: pointTwillScarf(), tags: [] });
+    others.published.length = 0;
+    // As services/draft-thumbnails stores it: silent, so the library's sort key stays.
+    await models.Draft.update({ thumbnail: Buffer.from('png') }, { where: { id: draft.id }, silent: true });
+    expect(others.published).toEqual([]);
+    const saved = models.access.draftSaved();
+    const renamed = models.Draft.update({ name: 'Renamed' }, { where: { id: draft.id } });
+    expect(await published(others, 2)).toEqual([{ kind: 'library' }, { kind: 'library' }]);
+    others.answer();
+    await Promise.all([saved, renamed]);
+  });
+
+  it('drop their own copies when another process says so', async () => {
+    const user = await server.createUser({ name: 'Cached name' });
+    expect((await models.access.account(user.id))?.name).toBe('Cached name');
+    // A write this process's hooks do not see, as if another process had made it.
+    await sequelize.query('UPDATE users SET name = ? WHERE id = ?', { replacements: ['New name', user.id] });
+    expect((await models.access.account(user.id))?.name).toBe('Cached name');
+    others.deliver({ kind: 'library' });
+    expect((await models.access.account(user.id))?.name).toBe('Cached name');
+    others.deliver({ kind: 'access' });
+    expect((await models.access.account(user.id))?.name).toBe('New name');
   });
 });
