@@ -17,7 +17,7 @@ import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 export async function serveApp(config: Config): Promise<Server> {
   let smtp: FakeSmtp | null = null;
   let siblings: SiblingProcesses | undefined;
-  let mailbox;
+  let mailbox: Parameters<typeof createContext>[1];
   if (cluster.isWorker) {
     const link = workerRelay();
     siblings = { relay: link.relay, rateLimitStore: (prefix) => new ClusterMemoryStoreWorker({ prefix }) };
