@@ -5,7 +5,6 @@ import type { Models, UserRow } from '../models';
 import { accountOf } from '../models/access-cache';
 import { checkCredentials } from '../services/auth';
 
-
 /**
  * A passport instance per app (not the global one), so apps on different databases can coexist in tests.
  * Only the user id goes into the session; each request looks the account up (in the access cache, which
