@@ -7,6 +7,7 @@ import {
   type Draft,
   type Sett,
 } from './types';
+import { migrateDraft } from './migrate';
 
 /** Layers a draft may use: two shafts per plain-weave layer on 32 shafts gives 16. */
 export const MAX_LAYERS = 16;
@@ -359,12 +360,14 @@ function zodMessage(issue: z.core.$ZodIssue, json: unknown): string {
 
 /**
  * Reads a JSON draft document into a {@link Draft}, filling defaults for omitted optional fields
- * (see docs/draft-format.md). Colour and layer lists are either empty (defaults apply) or give
+ * (see docs/draft-format.md). A document of an older schema version is upgraded first
+ * ({@link migrateDraft}); the object passed in is never changed. Colour and layer lists are either empty (defaults apply) or give
  * exactly one entry per end/pick: a shorter colour order is a mistake here, not a repeat.
  *
  * @throws DraftError listing every problem, e.g. "threading end 37: shaft 9 but the draft has 8 shafts".
  */
-export function parseDraft(json: unknown): Draft {
+export function parseDraft(stored: unknown): Draft {
+  const json = migrateDraft(stored);
   const problems = new Problems();
   const shape = checkDocumentShape(json);
   if (!shape.success) {

@@ -2,6 +2,7 @@
 export * from './types';
 export * from './drawdown';
 export * from './draft';
+export * from './migrate';
 export * from './cloth';
 export * from './floats';
 export * from './liftplan';
