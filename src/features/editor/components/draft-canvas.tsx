@@ -1,5 +1,5 @@
 import type Konva from 'konva';
-import { memo, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent, type WheelEvent } from 'react';
+import { memo, useEffect, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from 'react';
 import { Group, Image as KonvaImage, Layer, Rect, Shape, Stage } from 'react-konva';
 import type { Draft } from '../../../../shared/weave';
 import { changedRects, type StageRect } from '../canvas/damage';
@@ -9,6 +9,7 @@ import { useStore } from '../store/create-store';
 import type { Editor, GridCell, ViewState } from '../store/editor';
 import type { RegionId } from '../canvas/layout';
 import { handleKey } from '../store/keys';
+import { scrolledBy, wheelPixels, zoomedAbout, zoomedCell } from '../canvas/wheel';
 import { useEditorContext } from './editor-context';
 
 const LINE = '#ddd8cd';
@@ -132,11 +133,15 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
     return off;
   }, []);
 
-  // Keep the keyboard cursor in view.
+  // Keep the cursor in view after keyboard moves only: a wheel or trackpad scroll that leaves the
+  // cursor behind must stay where the weaver put it.
+  const revealed = useRef(view.get().revealCursor);
   useEffect(
     () =>
       view.subscribe(() => {
         const v = view.get();
+        if (v.revealCursor === revealed.current) return;
+        revealed.current = v.revealCursor;
         const r = regionOf(layout, v.cursor.grid);
         if (!r) return;
         const { cell: c } = layout;
@@ -155,6 +160,38 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
       }),
     [view, layout, editor],
   );
+
+  // Wheel and trackpad: a native listener, since React's is passive and cannot keep the page (or,
+  // with Ctrl, the browser's own zoom) from taking the event.
+  const current = useRef({ layout, size });
+  useLayoutEffect(() => {
+    current.current = { layout, size };
+  }, [layout, size]);
+  useEffect(() => {
+    const el = hostRef.current;
+    if (!el) return;
+    // The zoom between events, so a pinch's many small steps add up.
+    let zoom = view.get().cell;
+    const onWheel = (e: globalThis.WheelEvent) => {
+      const v = view.get();
+      const { layout: shown, size: stage } = current.current;
+      e.preventDefault();
+      if (e.ctrlKey || e.metaKey) {
+        if (Math.round(zoom) !== v.cell) zoom = v.cell;
+        zoom = zoomedCell(zoom, wheelPixels(e, stage).dy);
+        const cell = Math.round(zoom);
+        if (cell === v.cell) return;
+        const after = computeLayout(doc.get().draft, v.arrangement, cell, stage.width, stage.height);
+        const box = el.getBoundingClientRect();
+        editor.setView({ cell, ...zoomedAbout(shown, after, v, { x: e.clientX - box.left, y: e.clientY - box.top }) });
+        return;
+      }
+      const { dx, dy } = wheelPixels(e, stage);
+      editor.setView(scrolledBy(shown, v, dx, dy));
+    };
+    el.addEventListener('wheel', onWheel, { passive: false });
+    return () => el.removeEventListener('wheel', onWheel);
+  }, [view, doc, editor]);
 
   const toStage = (e: { clientX: number; clientY: number }) => {
     const rect = hostRef.current!.getBoundingClientRect();
@@ -205,19 +242,6 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
     pan.current = null;
     editor.pointerUp();
   };
-  const onWheel = (e: WheelEvent<HTMLDivElement>) => {
-    const v = view.get();
-    if (e.ctrlKey || e.metaKey) {
-      editor.setView({ cell: Math.max(1, Math.min(40, Math.round(v.cell * (e.deltaY < 0 ? 1.2 : 0.8) + (e.deltaY < 0 ? 0.5 : 0)))) });
-      return;
-    }
-    const dx = e.shiftKey ? e.deltaY : e.deltaX;
-    const dy = e.shiftKey ? 0 : e.deltaY;
-    editor.setView({
-      scrollX: Math.max(0, Math.min(layout.maxScrollX, v.scrollX + dx)),
-      scrollY: Math.max(0, Math.min(layout.maxScrollY, v.scrollY + dy)),
-    });
-  };
   const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
     if (readOnly && !e.key.startsWith('Arrow') && e.key !== '[' && e.key !== ']') return;
     performance.mark('edit-start');
@@ -236,7 +260,6 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
       onPointerMove={onPointerMove}
       onPointerUp={onPointerUp}
       onPointerCancel={onPointerUp}
-      onWheel={onWheel}
       onKeyDown={onKeyDown}
       data-testid="draft-canvas"
     >

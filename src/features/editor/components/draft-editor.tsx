@@ -121,7 +121,7 @@ function EditorMessage() {
   const { editor } = useContext(EditorContext)!;
   const message = useStore(editor.view, (v) => v.message);
   return (
-    <p aria-live="polite" className="min-h-5 text-xs text-muted" data-testid="editor-message">
+    <p id="editor-message" aria-live="polite" className="min-h-5 text-xs text-muted" data-testid="editor-message">
       {message}
     </p>
   );

@@ -4,6 +4,7 @@ import { useStore } from '../store/create-store';
 import { setShafts, setTreadles } from '../store/edits';
 import type { Tool } from '../store/editor';
 import { useEditorContext } from './editor-context';
+import { GoToBox } from './go-to-box';
 
 const TOOLS: { id: Tool; label: string; key: string }[] = [
   { id: 'draw', label: 'Draw', key: 'D' },
@@ -138,6 +139,7 @@ export function Toolbar({ readOnly = false, onShowKeys }: { readOnly?: boolean; 
           )}
         </Group>
         <Group label="View">
+          <GoToBox />
           <label className="flex items-center gap-1 text-xs">
             Zoom
             <input type="range" min={1} max={40} value={cell} onChange={(e) => editor.setView({ cell: Number(e.target.value) })} aria-valuetext={`${cell} pixels per cell`} />

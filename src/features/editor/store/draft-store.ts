@@ -23,6 +23,12 @@ export interface DraftState {
 /** Steps kept; the issue asks for at least 200. */
 export const HISTORY_LIMIT = 500;
 
+/**
+ * Asked before an edit's result is kept: false drops the edit. Undo, redo and loads are never
+ * asked (they only go back to drafts the weaver has had).
+ */
+export type EditGuard = (before: Draft, after: Draft, label: string) => boolean;
+
 export interface DraftStore extends Store<DraftState> {
   /** Runs an edit; inside a gesture it joins the gesture's one undo step. Returns true when the draft changed. */
   apply<A>(edit: Edit<A>, args: A): boolean;
@@ -38,7 +44,7 @@ export interface DraftStore extends Store<DraftState> {
 }
 
 /** The open draft and its undo history, as immer patches (tldraw/excalidraw style marks per gesture). */
-export function createDraftStore(initial: Draft): DraftStore {
+export function createDraftStore(initial: Draft, guard: EditGuard = () => true): DraftStore {
   const store = createStore<DraftState>({ draft: initial, revision: 0, undoLabel: null, redoLabel: null });
   let past: Step[] = [];
   let future: Step[] = [];
@@ -74,6 +80,7 @@ export function createDraftStore(initial: Draft): DraftStore {
         edit.recipe(d, args);
       });
       if (next === base || patches.length === 0) return false;
+      if (!guard(base, next, edit.label)) return false;
       if (gesture) {
         if (gesture.patches.length === 0) gesture.label = edit.label;
         gesture.patches.push(...patches);

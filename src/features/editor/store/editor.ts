@@ -1,7 +1,7 @@
 import type { Draft } from '../../../../shared/weave';
 import { GROW_MARGIN, refAt, type Arrangement } from '../canvas/layout';
 import { createStore, type Store } from './create-store';
-import { createDraftStore, type DraftStore } from './draft-store';
+import { createDraftStore, type DraftStore, type EditGuard } from './draft-store';
 import {
   copyRange,
   deleteThreadsEdit,
@@ -22,6 +22,7 @@ import {
   type Clip,
   type RunKind,
 } from './edits';
+import { parseGoTo } from './go-to';
 import { axisOf, GRID_LABELS, isListGrid, visibleGrids, type GridId } from './grids';
 
 export type Tool = 'draw' | 'erase' | 'select';
@@ -75,6 +76,8 @@ export interface ViewState {
   highlight: { axis: 'ends' | 'picks'; index: number } | null;
   scrollX: number;
   scrollY: number;
+  /** Goes up on every keyboard move: the canvas then scrolls the cursor into view (and only then). */
+  revealCursor: number;
   clip: Clip | null;
   /** Said by the screen reader and shown under the toolbar: what just happened. */
   message: string;
@@ -109,6 +112,8 @@ export interface Editor {
   undo(): void;
   redo(): void;
   jumpTo(axis: 'ends' | 'picks', index: number): void;
+  /** Goes to or selects what the weaver typed ("end 120", "picks 10–20"); false when it could not be read. */
+  goTo(text: string): boolean;
 }
 
 export const DEFAULT_VIEW: ViewState = {
@@ -127,6 +132,7 @@ export const DEFAULT_VIEW: ViewState = {
   highlight: null,
   scrollX: 0,
   scrollY: 0,
+  revealCursor: 0,
   clip: null,
   message: '',
 };
@@ -150,12 +156,40 @@ export function gridSize(draft: Draft, grid: GridId): { cols: number; rows: numb
   }
 }
 
+export const picksOf = (d: Draft): number => (d.control === 'liftplan' ? d.liftplan.length : d.treadling.length);
+
+/**
+ * Asks before an edit that removes more than half of the ends or of the picks (one slip of the
+ * Delete key once took every end), with the counts in the question.
+ */
+export function removalGuard(confirm: (question: string) => boolean): EditGuard {
+  return (before, after) => {
+    const counts: [string, number, number][] = [
+      ['ends', before.threading.length, after.threading.length],
+      ['picks', picksOf(before), picksOf(after)],
+    ];
+    for (const [word, was, now] of counts) {
+      if (now >= was || was - now <= was / 2) continue;
+      const what = now === 0 ? `all ${was} ${word}` : `${was - now} of the ${was} ${word}`;
+      if (!confirm(`This removes ${what}. Remove them?`)) return false;
+    }
+    return true;
+  };
+}
+
+export interface EditorOptions {
+  /** Asks the weaver a yes-or-no question (window.confirm in the browser). */
+  confirm?: (question: string) => boolean;
+}
+
+const browserConfirm = (question: string) => typeof window === 'undefined' || typeof window.confirm !== 'function' || window.confirm(question);
+
 /**
  * The editor: the open draft with its history, the view state (tool, cursor, selection, zoom — not
  * undoable), and the commands the toolbar, keys and pointer call.
  */
-export function createEditor(draft: Draft, initialView: Partial<ViewState> = {}): Editor {
-  const doc = createDraftStore(draft);
+export function createEditor(draft: Draft, initialView: Partial<ViewState> = {}, { confirm = browserConfirm }: EditorOptions = {}): Editor {
+  const doc = createDraftStore(draft, removalGuard(confirm));
   const view = createStore<ViewState>({ ...DEFAULT_VIEW, ...initialView });
   const setView = (patch: Partial<ViewState>) => view.set((v) => ({ ...v, ...patch }));
   const say = (message: string) => setView({ message });
@@ -269,9 +303,10 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {})
       const next = clampCell({ ...v.cursor, col: v.cursor.col + dCol, row: v.cursor.row + dRow });
       if (extend) {
         const from = v.selection?.grid === next.grid ? v.selection.from : v.cursor;
-        setView({ cursor: next, selection: { grid: next.grid, from, to: next } });
+        setView({ cursor: next, selection: { grid: next.grid, from, to: next }, revealCursor: v.revealCursor + 1 });
       } else {
-        setView({ cursor: next });
+        // A plain move leaves the selection behind, so the next Shift+arrow starts from the cursor.
+        setView({ cursor: next, selection: null, revealCursor: v.revealCursor + 1 });
       }
       const { index, value } = refOf(next);
       say(describeCell(doc.get().draft, next.grid, index, value, isMarked(next)));
@@ -280,7 +315,7 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {})
       const grids = visibleGrids(doc.get().draft);
       const at = grids.indexOf(view.get().cursor.grid);
       const grid = grids[(at + step + grids.length) % grids.length];
-      setView({ cursor: clampCell({ grid, col: 0, row: 0 }), selection: null });
+      setView({ cursor: clampCell({ grid, col: 0, row: 0 }), selection: null, revealCursor: view.get().revealCursor + 1 });
       say(`${GRID_LABELS[grid]} grid`);
     },
     toggleAtCursor({ add = false } = {}) {
@@ -341,7 +376,7 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {})
       const t = target();
       const axis = axisOfTarget(t.grid);
       if (!axis) return say('Delete removes ends or picks.');
-      run(doc.apply(deleteThreadsEdit, { axis, from: t.from, to: t.to }), `Deleted ${axis} ${t.from + 1}–${t.to + 1}.`, 'Nothing to delete.');
+      run(doc.apply(deleteThreadsEdit, { axis, from: t.from, to: t.to }), `Deleted ${axis} ${t.from + 1}–${t.to + 1}.`, 'Nothing deleted.');
       setView({ selection: null });
     },
     copy() {
@@ -387,6 +422,27 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {})
       const scroll = axis === 'ends' ? { scrollX: Math.max(0, index * v.cell - 4 * v.cell) } : { scrollY: Math.max(0, index * v.cell - 4 * v.cell) };
       const cursor: GridCell = axis === 'ends' ? { grid: 'threading', col: index, row: 0 } : { grid: 'weftColors', col: 0, row: index };
       setView({ highlight: { axis, index }, cursor, selection: null, ...scroll, message: `${axis === 'ends' ? 'End' : 'Pick'} ${index + 1}.` });
+    },
+    goTo(text) {
+      const d = doc.get().draft;
+      const asked = parseGoTo(text, d);
+      if ('error' in asked) {
+        say(asked.error);
+        return false;
+      }
+      const v = view.get();
+      // Ends in the threading (on the cursor's shaft row when it is there), picks in the treadling or lift plan.
+      const grid: GridId = asked.axis === 'ends' ? 'threading' : d.control === 'liftplan' ? 'liftplan' : 'treadling';
+      const at = (index: number): GridCell =>
+        asked.axis === 'ends' ? { grid, col: index, row: v.cursor.grid === grid ? v.cursor.row : 0 } : { grid, col: v.cursor.grid === grid ? v.cursor.col : 0, row: index };
+      const revealCursor = v.revealCursor + 1;
+      if (asked.kind === 'go') {
+        setView({ cursor: at(asked.index), selection: null, revealCursor, message: `${asked.axis === 'ends' ? 'End' : 'Pick'} ${asked.index + 1}.` });
+      } else {
+        const from = at(asked.from);
+        setView({ cursor: from, selection: { grid, from, to: at(asked.to) }, revealCursor, message: `${asked.axis === 'ends' ? 'Ends' : 'Picks'} ${asked.from + 1}–${asked.to + 1} selected.` });
+      }
+      return true;
     },
   };
   return editor;
