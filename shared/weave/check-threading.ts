@@ -1,3 +1,4 @@
+import { colourName } from './colour-names';
 import { resolveLayers } from './layer-lists';
 import type { Draft } from './types';
 
@@ -68,7 +69,9 @@ function plural(n: number, one: string, many = `${one}s`): string {
  *
  * `warpLayers` overrides the draft's own layer list (same rules: empty = all 1, shorter repeats).
  *
- * @example checkThreading(draft).problems[0].message // "End 37 (layer 1) is on shaft 3, whose other 15 ends are layer 2 …"
+ * Colours are named by yarn name, or "colour 3" where no yarn is named (see {@link colourName}).
+ *
+ * @example checkThreading(draft).problems[0].message // "End 37 (layer 1, colour 1) is on shaft 3, whose other 15 ends are layer 2 …"
  */
 export function checkThreading(draft: Draft, warpLayers: readonly number[] = draft.warpLayers): ThreadingCheck {
   const ends = draft.threading.length;
@@ -101,7 +104,7 @@ export function checkThreading(draft: Draft, warpLayers: readonly number[] = dra
           end: e,
           shaft: c.shaft,
           message:
-            `End ${e + 1} (layer ${layer}, colour ${draft.palette[color] ?? color}) is on shaft ${c.shaft}, ` +
+            `End ${e + 1} (layer ${layer}, ${colourName(draft, color)}) is on shaft ${c.shaft}, ` +
             `whose other ${plural(others, 'end is', 'ends are')} layer ${c.layer}: it will weave into the wrong layer.`,
         });
       } else if (c.mainColor !== undefined && color !== c.mainColor) {
@@ -110,8 +113,8 @@ export function checkThreading(draft: Draft, warpLayers: readonly number[] = dra
           end: e,
           shaft: c.shaft,
           message:
-            `End ${e + 1} is colour ${draft.palette[color] ?? color} on shaft ${c.shaft}, ` +
-            `where the other ends are colour ${draft.palette[c.mainColor] ?? c.mainColor}.`,
+            `End ${e + 1} is ${colourName(draft, color)} on shaft ${c.shaft}, ` +
+            `where the other ends are ${colourName(draft, c.mainColor)}.`,
         });
       }
     }
@@ -137,10 +140,10 @@ export function quickChecks(draft: Draft, check: ThreadingCheck = checkThreading
       if (c.mainColor !== undefined) {
         instruction =
           `Raise shaft ${c.shaft} alone: ${c.ends.length === 1 ? 'its one end' : c.ends.length === 2 ? 'both ends on it' : `all ${c.ends.length} ends on it`}` +
-          `${layerText} should be colour ${draft.palette[c.mainColor] ?? c.mainColor}.`;
+          `${layerText} should be ${colourName(draft, c.mainColor)}.`;
         if (oddEnds.length > 0) instruction += ` As drawn, ${oddEnds.length === 1 ? 'end' : 'ends'} ${oddEnds.map((e) => e + 1).join(', ')} will not be.`;
       } else {
-        const mix = c.colors.map((t) => `${t.count} of colour ${draft.palette[t.value] ?? t.value}`).join(', ');
+        const mix = c.colors.map((t) => `${t.count} of ${colourName(draft, t.value)}`).join(', ');
         instruction = `Raise shaft ${c.shaft} alone: its ${c.ends.length} ends${layerText} are mixed: ${mix}.`;
       }
       return { shaft: c.shaft, ends: c.ends.length, color: c.mainColor, layer: c.layer, oddEnds, instruction };

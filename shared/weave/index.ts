@@ -11,4 +11,6 @@ export * from './wif';
 export * from './profile';
 export * from './layers';
 export * from './check-threading';
+export * from './colour-names';
+export * from './checks';
 export * from './compare';

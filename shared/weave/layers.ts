@@ -43,6 +43,13 @@ export interface LayerProblem {
   pick?: number;
   /** 1-based shaft, when one shaft is to blame. */
   shaft?: number;
+  /**
+   * Where the layers are tied by it, 0-based: for a crossed end the picks, for a wrong lift the
+   * ends, that cross against the layer order there.
+   */
+  tied?: number[];
+  /** For a wrong lift: true when the shaft's ends are up over the pick against the order, false when they stay down. */
+  raised?: boolean;
   /** In a weaver's words, with 1-based end, pick and shaft numbers. */
   message: string;
 }
@@ -338,16 +345,25 @@ function layerProblems(draft: Draft, dd: Drawdown, wl: Uint8Array, pl: Uint8Arra
   const threadingCheck = checkThreading(draft, Array.from(wl));
   const crossed = new Uint8Array(W);
   const problems: LayerProblem[] = [];
+  const crossedAt = new Map<number, LayerProblem>();
   for (const p of threadingCheck.problems) {
     if (p.kind !== 'layer') continue;
     crossed[p.end] = 1;
-    problems.push({ kind: 'crossed-end', end: p.end, shaft: p.shaft, message: p.message });
+    const problem: LayerProblem = { kind: 'crossed-end', end: p.end, shaft: p.shaft, message: p.message, tied: [] };
+    crossedAt.set(p.end, problem);
+    problems.push(problem);
   }
   const shaftsOf = (x: number) => (draft.threading[x] ?? []).filter((s) => s >= 1 && s <= 32);
 
   // Per pick with conflicts: how many of each shaft's cross-layer ends go against the order.
   const against = new Map<number, Int32Array>();
-  const kept = conflictCells.filter((cell) => !crossed[cell % W]);
+  const kept: number[] = [];
+  for (const cell of conflictCells) {
+    // A crossed end's wrong crossings are its threading's fault: they belong to that one problem.
+    if (crossed[cell % W]) crossedAt.get(cell % W)?.tied?.push(Math.floor(cell / W));
+    else kept.push(cell);
+  }
+  for (const p of crossedAt.values()) p.tied?.sort((a, b) => a - b);
   for (const cell of kept) {
     const y = Math.floor(cell / W);
     let row = against.get(y);
@@ -364,7 +380,7 @@ function layerProblems(draft: Draft, dd: Drawdown, wl: Uint8Array, pl: Uint8Arra
     }
   }
   const stitches: LayerProblem[] = [];
-  const reported = new Set<number>();
+  const reported = new Map<number, LayerProblem>();
   for (const cell of kept) {
     const y = Math.floor(cell / W);
     const x = cell % W;
@@ -373,17 +389,24 @@ function layerProblems(draft: Draft, dd: Drawdown, wl: Uint8Array, pl: Uint8Arra
     const up = upAt(x, y);
     const faulty = shaftsOf(x).filter((s) => wrong.get(y)?.has(s));
     for (const s of faulty) {
-      if (reported.has(y * 33 + s)) continue;
-      reported.add(y * 33 + s);
+      const seen = reported.get(y * 33 + s);
+      if (seen) {
+        seen.tied?.push(x);
+        continue;
+      }
       const n = against.get(y)?.[s] ?? 0;
-      problems.push({
+      const problem: LayerProblem = {
         kind: 'wrong-lift',
         pick: y,
         shaft: s,
+        tied: [x],
+        raised: up === 1,
         message: up
           ? `Pick ${y + 1} (layer ${b}) raises shaft ${s}, putting its ${n} layer-${a} ends over the pick where layer ${b} should be on top: the layers are stitched together.`
           : `Pick ${y + 1} (layer ${b}) leaves shaft ${s} down, so the pick passes over its ${n} layer-${a} ends where layer ${a} should be on top: the layers are stitched together.`,
-      });
+      };
+      reported.set(y * 33 + s, problem);
+      problems.push(problem);
     }
     if (faulty.length > 0) continue;
     stitches.push({

@@ -62,11 +62,11 @@ describe('checkThreading', () => {
       warpColors: [0, 0, 0, 0, 0, 0, 1, 0],
     });
     expect(checkThreading(oneOdd).problems).toEqual([
-      { kind: 'colour', end: 6, shaft: 1, message: 'End 7 is colour #f0e6d0 on shaft 1, where the other ends are colour #101820.' },
+      { kind: 'colour', end: 6, shaft: 1, message: 'End 7 is colour 2 on shaft 1, where the other ends are colour 1.' },
     ]);
     const stripes = createDraft({ ...oneOdd, warpColors: [0, 0, 1, 1, 0, 0, 1, 1] });
     expect(checkThreading(stripes).problems).toEqual([]);
-    expect(quickChecks(stripes)[0].instruction).toBe('Raise shaft 1 alone: its 4 ends are mixed: 2 of colour #101820, 2 of colour #f0e6d0.');
+    expect(quickChecks(stripes)[0].instruction).toBe('Raise shaft 1 alone: its 4 ends are mixed: 2 of colour 1, 2 of colour 2.');
   });
 
   it('writes a quick check for each shaft with ends, naming the odd ends 1-based', () => {
@@ -79,7 +79,20 @@ describe('checkThreading', () => {
     const checks = quickChecks(draft);
     expect(checks.map((c) => c.shaft)).toEqual([1, 2]);
     expect(checks[0]).toMatchObject({ color: 0, oddEnds: [4] });
-    expect(checks[0].instruction).toBe('Raise shaft 1 alone: all 4 ends on it should be colour #101820. As drawn, end 5 will not be.');
-    expect(checks[1].instruction).toBe('Raise shaft 2 alone: both ends on it should be colour #f0e6d0.');
+    expect(checks[0].instruction).toBe('Raise shaft 1 alone: all 4 ends on it should be colour 1. As drawn, end 5 will not be.');
+    expect(checks[1].instruction).toBe('Raise shaft 2 alone: both ends on it should be colour 2.');
+  });
+
+  it('names colours by the yarn shown in them, never by hex code', () => {
+    const draft = createDraft({
+      shafts: 2,
+      threading: [[1], [2], [1], [2], [1], [2], [1], [2]],
+      palette: ['#101820', '#f0e6d0'],
+      warpColors: [0, 0, 0, 0, 0, 0, 1, 0],
+      yarns: [{ id: 'dark', name: 'Dark wool', color: 0 }],
+    });
+    expect(checkThreading(draft).problems[0].message).toBe('End 7 is colour 2 on shaft 1, where the other ends are Dark wool.');
+    expect(quickChecks(draft)[1].instruction).toBe('Raise shaft 2 alone: all 4 ends on it should be Dark wool.');
+    for (const text of [...checkThreading(draft).problems.map((p) => p.message), ...quickChecks(draft).map((q) => q.instruction)]) expect(text).not.toMatch(/#/);
   });
 });

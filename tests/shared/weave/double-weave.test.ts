@@ -68,7 +68,7 @@ describe('two-block double weave on 8 shafts', () => {
       expect(shaft.colors).toHaveLength(1);
       expect(shaft.layer).toBe([1, 2, 5, 6].includes(shaft.shaft) ? 1 : 2);
     }
-    expect(quickChecks(draft)[2].instruction).toBe('Raise shaft 3 alone: both ends on it (layer 2) should be colour #f2e8d5.');
+    expect(quickChecks(draft)[2].instruction).toBe('Raise shaft 3 alone: both ends on it (layer 2) should be colour 2.');
   });
 
   it('reports a navy end moved onto a shaft of the other layer, at that end', () => {
@@ -77,7 +77,7 @@ describe('two-block double weave on 8 shafts', () => {
     const check = checkThreading(moved);
     expect(check.problems).toHaveLength(1);
     expect(check.problems[0]).toMatchObject({ kind: 'layer', end: 4, shaft: 3 });
-    expect(check.problems[0].message).toMatch(/^End 5 \(layer 1, colour #1f2a44\) is on shaft 3/);
+    expect(check.problems[0].message).toMatch(/^End 5 \(layer 1, colour 1\) is on shaft 3/);
     const layers = simulateLayers(moved);
     expect(layers.problems.filter((p) => p.kind === 'crossed-end')).toEqual([
       expect.objectContaining({ end: 4, shaft: 3, message: expect.stringContaining('End 5') }),

@@ -228,12 +228,17 @@ describe('simulateLayers', () => {
         kind: 'wrong-lift',
         pick: 0,
         shaft: 4,
+        // Shaft 4 holds the layer-2 ends 4 and 8 of block A (unit order 1, 3, 2, 4).
+        tied: [3, 7],
+        raised: true,
         message: 'Pick 1 (layer 1) raises shaft 4, putting its 2 layer-2 ends over the pick where layer 1 should be on top: the layers are stitched together.',
       },
       {
         kind: 'wrong-lift',
         pick: 1,
         shaft: 2,
+        tied: [2, 6],
+        raised: false,
         message: 'Pick 2 (layer 2) leaves shaft 2 down, so the pick passes over its 2 layer-1 ends where layer 1 should be on top: the layers are stitched together.',
       },
     ]);

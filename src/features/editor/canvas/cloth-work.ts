@@ -1,4 +1,4 @@
-import { checkThreading, isLayered, type Draft, type Float } from '../../../../shared/weave';
+import { countByKind, findChecks, isLayered, type CheckKind, type Draft } from '../../../../shared/weave';
 import type { ClothView } from '../store/editor';
 import { createDerived, type Derived } from './derived';
 import { paintCloth, paintFace, paintFloats, paintLayerMap, paintStructure, tile } from './paint';
@@ -28,9 +28,10 @@ export interface ViewPicture {
   pixels: Uint32Array<ArrayBuffer>;
 }
 
-/** A problem Checks lists, jumping to its end or pick. */
+/** One item of Checks: one cause, jumping to its end or pick. */
 export interface CheckItem {
   key: string;
+  kind: CheckKind;
   axis: 'ends' | 'picks';
   index: number;
   message: string;
@@ -42,13 +43,15 @@ export interface ClothResult {
   pictures: Partial<Record<ClothView, ViewPicture | null>>;
   /** Floats over the limit, all of them (the floats view's caption). */
   floatsOverLimit: number;
-  /** The first {@link MAX_CHECKS} problems found. */
+  /** The first {@link MAX_CHECKS} items, one per cause. */
   checks: CheckItem[];
-  /** How many problems there are in all. */
+  /** How many items there are in all. */
   checkCount: number;
+  /** Items by kind, counting those left out of `checks`. */
+  checkKinds: { kind: CheckKind; label: string; count: number }[];
 }
 
-/** Problems sent back at most; Checks says how many more there are. */
+/** Items sent back at most; Checks says how many more there are. */
 export const MAX_CHECKS = 100;
 /** Cells a tiled view may hold; past this, fewer repeats are shown (the view is 300 px wide anyway). */
 export const MAX_TILED_CELLS = 1_500_000;
@@ -89,32 +92,15 @@ function picture(view: ClothView, draft: Draft, derived: Derived, floatLimit: nu
   return { width: one.width * n, height: one.height * n, repeats: n, pixels };
 }
 
-/** What the engine finds wrong: threading, layer problems, and each thread's longest float over the limit. */
-function findChecks(draft: Draft, derived: Derived, floatLimit: number): CheckItem[] {
-  const list: CheckItem[] = [];
-  for (const p of checkThreading(draft).problems) list.push({ key: `t-${p.end}-${p.shaft}`, axis: 'ends', index: p.end, message: p.message });
-  if (isLayered(draft)) {
-    derived.layers(draft).problems.forEach((p, i) => {
-      if (p.end !== undefined) list.push({ key: `l-${i}`, axis: 'ends', index: p.end, message: p.message });
-      else if (p.pick !== undefined) list.push({ key: `l-${i}`, axis: 'picks', index: p.pick, message: p.message });
-    });
-  }
-  // One item per thread: its longest float over the limit (a thread may float many times).
-  const longest = new Map<string, Float>();
-  for (const f of derived.floats(draft, floatLimit).overLimit) {
-    const key = `${f.kind}-${f.thread}`;
-    const best = longest.get(key);
-    if (!best || f.length > best.length) longest.set(key, f);
-  }
-  for (const f of longest.values()) {
-    list.push({
-      key: `f-${f.kind}-${f.thread}-${f.start}`,
-      axis: f.kind === 'warp' ? 'ends' : 'picks',
-      index: f.thread,
-      message: `${f.kind === 'warp' ? 'End' : 'Pick'} ${f.thread + 1} floats ${f.side} ${f.length} threads (your limit is ${floatLimit}).`,
-    });
-  }
-  return list;
+/** What the engine finds wrong (threading, layers, floats over the limit), one item per cause. */
+function checkItems(draft: Draft, derived: Derived, floatLimit: number) {
+  const groups = findChecks(draft, {
+    layers: isLayered(draft) ? derived.layers(draft).problems : [],
+    floats: derived.floats(draft, floatLimit).overLimit,
+    floatLimit,
+  });
+  const items = groups.map(({ key, kind, axis, index, message }): CheckItem => ({ key, kind, axis, index, message }));
+  return { items, kinds: countByKind(groups) };
 }
 
 /**
@@ -133,13 +119,14 @@ export function createClothWorker(): (request: ClothRequest) => ClothResult {
     const { draft } = last;
     const pictures: ClothResult['pictures'] = {};
     for (const view of request.views) pictures[view] = picture(view, draft, derived, request.floatLimit, request.tiles);
-    const checks = findChecks(draft, derived, request.floatLimit);
+    const checks = checkItems(draft, derived, request.floatLimit);
     return {
       id: request.id,
       pictures,
       floatsOverLimit: derived.floats(draft, request.floatLimit).overLimit.length,
-      checks: checks.slice(0, MAX_CHECKS),
-      checkCount: checks.length,
+      checks: checks.items.slice(0, MAX_CHECKS),
+      checkCount: checks.items.length,
+      checkKinds: checks.kinds,
     };
   };
 }

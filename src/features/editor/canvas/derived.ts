@@ -10,6 +10,12 @@ import {
   type LayerSimulation,
 } from '../../../../shared/weave';
 
+/**
+ * Layer problems kept for Checks, which groups them by cause: enough for every crossing of a
+ * 200 × 100 cloth woven wrong; a draft with more lists its first ones.
+ */
+const MAX_LAYER_PROBLEMS = 20_000;
+
 /** Keeps the last result and recomputes only when one of the keys changed (by identity). */
 function lastResult<R>(): (keys: readonly unknown[], compute: () => R) => R {
   let last: readonly unknown[] | null = null;
@@ -52,7 +58,7 @@ export function createDerived(): Derived {
     },
     layers: (d) => {
       const down = drawdown(d);
-      return ly([down, d.warpLayers, d.weftLayers, d.warpColors, d.weftColors, d.palette, d.blocks], () => simulateLayers(d, undefined, { drawdown: down }));
+      return ly([down, d.warpLayers, d.weftLayers, d.warpColors, d.weftColors, d.palette, d.blocks], () => simulateLayers(d, undefined, { drawdown: down, maxProblems: MAX_LAYER_PROBLEMS }));
     },
   };
 }
