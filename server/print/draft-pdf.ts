@@ -1,6 +1,6 @@
 import PDFDocument from 'pdfkit';
 import { hexToRgb, pickCount, type Draft } from '../../shared/weave';
-import { computePlan, type PlanDocument, type PlanOutputs } from '../../shared/plan';
+import { clothSett, computePlan, planBlocker, type ClothSett, type PlanDocument, type PlanOutputs } from '../../shared/plan';
 import { cellOrigin, gridBounds, type DraftShape, type GridPlacement } from '../../shared/print/draft-layout';
 import { PAGE_MARGIN, LEGEND_HEAD, LEGEND_ROW, PAGE_OVERLAP, planDraftPages, type PagePart, type PrintView, type ViewCut } from '../../shared/print/draft-pages';
 import { LOOM_LIST_KINDS, pageSize, type LoomListKind, type PrintMeta, type PrintOptions, type Rect } from '../../shared/print/types';
@@ -9,7 +9,7 @@ import { fontData } from './fonts';
 import { drawMask, embedMask, gridPixels, markBits, placeGrid, type PdfPixels } from './pdf-image';
 import { BODY_SIZE, GRID_LINE, GRID_RULE, INK, LABEL_SIZE, MUTED, plural, swatch, text, type Doc } from './pdf-style';
 import { writeText, type TextItem } from './pdf-text';
-import { drawLoomLists, drawPlanPage, listOrientation } from './plan-pages';
+import { drawLoomLists, drawPlanPage, listOrientation, settText } from './plan-pages';
 import { cellImage, clothSources, layerTint, orientCells, type CellImage, type ClothSources } from './raster';
 
 /**
@@ -95,7 +95,7 @@ export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
   const legend = legendRows(draft);
   const layout = planDraftPages({ page, shape, arrangement: options, views, legendRows: legend.length, maxViewSheets: MAX_VIEW_SHEETS });
   const tiled = layout.pages.flatMap((p) => p.parts).some((p) => p.kind === 'draft' && p.across * p.down > 1);
-  const ctx: DrawContext = { doc, draft, options, shape, legend, sources, images: new Map(), ink: new GridInk(doc), tiled, viewCut: layout.viewCut };
+  const ctx: DrawContext = { doc, draft, sett: clothSett(draft, input.plan), options, shape, legend, sources, images: new Map(), ink: new GridInk(doc), tiled, viewCut: layout.viewCut };
   const breathe = turnTaker();
   for (const [i, p] of layout.pages.entries()) {
     await breathe();
@@ -105,7 +105,8 @@ export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
     for (const part of p.parts) drawPart(ctx, part);
   }
 
-  const outputs = input.plan ? (input.outputs ?? computePlan(draft, input.plan)) : undefined;
+  // An empty draft has nothing to count: its plan page says so instead of showing figures.
+  const outputs = input.plan && !planBlocker(draft) ? (input.outputs ?? computePlan(draft, input.plan)) : undefined;
   const yarnNames = (colour: number) => legend.find((r) => r.colour === colour)?.yarns ?? 'no yarn named';
   drawPlanPage(doc, draft, yarnNames, input.plan && outputs ? { doc: input.plan, outputs } : undefined);
   const which = input.lists ?? (outputs ? LOOM_LIST_KINDS : (['threading', 'weaving'] as const));
@@ -126,6 +127,8 @@ interface LegendRow {
 interface DrawContext {
   doc: Doc;
   draft: Draft;
+  /** The plan's sett when there is a plan, else the draft's: the same figures the plan page prints. */
+  sett: ClothSett;
   options: PrintOptions;
   shape: DraftShape;
   legend: LegendRow[];
@@ -169,10 +172,9 @@ function legendRows(draft: Draft): LegendRow[] {
 
 
 function summary(ctx: DrawContext): string {
-  const { draft, shape } = ctx;
+  const { draft, shape, sett } = ctx;
   const loom = shape.liftPlan ? 'lift plan' : plural(draft.treadles, 'treadle');
-  const per = draft.sett.unit === 'inch' ? 'inch' : 'cm';
-  return `${plural(shape.ends, 'end')} × ${plural(shape.picks, 'pick')} · ${plural(draft.shafts, 'shaft')} · ${loom} · ${draft.shed} shed · sett ${draft.sett.warp} ends and ${draft.sett.weft} picks per ${per}`;
+  return `${plural(shape.ends, 'end')} × ${plural(shape.picks, 'pick')} · ${plural(draft.shafts, 'shaft')} · ${loom} · ${draft.shed} shed · sett ${settText(sett)}`;
 }
 
 function drawTitleBlock(ctx: DrawContext, meta: PrintMeta): void {

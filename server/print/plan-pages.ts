@@ -1,5 +1,7 @@
 import { pickCount, type Draft } from '../../shared/weave';
 import {
+  planBlocker,
+  type ClothSett,
   defaultLoomWaste,
   dentingLabel,
   DEFAULT_ORIENTATION,
@@ -98,6 +100,11 @@ class Flow {
   }
 }
 
+/** "24 ends and 20 picks per inch": the one way the print states a sett. */
+export function settText(s: ClothSett): string {
+  return `${fixed(s.warp)} ends and ${fixed(s.weft)} picks per ${s.unit}`;
+}
+
 function fixed(n: number, digits = 1): string {
   return n.toLocaleString('en', { maximumFractionDigits: digits, minimumFractionDigits: 0 });
 }
@@ -112,9 +119,12 @@ export type YarnNames = (colour: number) => string;
 /** Page 2: the project plan (or what the draft alone says when there is none) and the notes. */
 export function drawPlanPage(doc: Doc, draft: Draft, yarnNames: YarnNames, plan?: { doc: PlanDocument; outputs: PlanOutputs }): void {
   const flow = new Flow(doc, 'Plan');
-  if (!plan) {
+  const blocker = planBlocker(draft);
+  if (blocker) {
+    flow.line(blocker, MUTED);
+  } else if (!plan) {
     flow.line('No plan has been saved for this draft yet; the figures below come from the draft alone.', MUTED);
-    flow.pair('Sett', `${draft.sett.warp} ends and ${draft.sett.weft} picks per ${draft.sett.unit}`);
+    flow.pair('Sett', settText(draft.sett));
     flow.pair('Ends in the draft', String(draft.threading.length));
     flow.pair('Picks in the draft', String(pickCount(draft)));
   } else {
@@ -122,15 +132,16 @@ export function drawPlanPage(doc: Doc, draft: Draft, yarnNames: YarnNames, plan?
     const w = outputs.warp;
     const u = w.unit === 'inch' ? 'in' : 'cm';
     const len = (v: number) => `${fixed(v)} ${u}`;
-    flow.pair('Sett', `${fixed(w.sett)} ends and ${fixed(w.picksPerUnit)} picks per ${w.unit}`);
+    flow.pair('Sett', settText({ warp: w.sett, weft: w.picksPerUnit, unit: w.unit }));
     const per = p.reed.per === '10cm' ? '10 cm' : p.reed.per;
     flow.pair('Reed and dents', `${p.reed.dents}-dent reed per ${per}, sleyed ${dentingLabel(outputs.denting.pattern)} (gives ${fixed(outputs.denting.sett)} ends per ${w.unit})`);
+    if (outputs.centring) flow.pair('Centred in the reed', `start at dent ${outputs.centring.firstDent} of ${outputs.centring.reedDents}`);
     flow.pair('Width in the reed', len(w.widthInReed));
     flow.pair('Ends', `${w.ends.totalEnds} (${w.ends.repeats} repeats, ${w.ends.bodyEnds} in the body)`);
-    flow.pair('Finished size', `${len(p.finishedWidth)} × ${len(p.finishedLength)}, ${plural(p.pieces, 'piece')}`);
+    flow.pair('Finished size', `${len(w.finished.width)} × ${len(w.finished.length)}, ${plural(p.pieces, 'piece')}${w.finished.width === p.finishedWidth && w.finished.length === p.finishedLength ? '' : ' (estimated with the allowances)'}`);
     flow.pair('Woven length per piece', len(w.wovenLengthPerPiece));
     flow.pair('Warp length', len(w.warpLength));
-    flow.pair('Picks in all', String(w.totalPicks));
+    flow.pair('Picks in all', outputs.picksReason);
     flow.pair('Weft length', len(w.weftLength));
     const a = p.allowances;
     flow.pair('Take-up / draw-in', `${percent(a.takeUp)} / ${percent(a.drawIn)}`);
@@ -192,7 +203,7 @@ export async function drawLoomLists(
     if (kind === 'threading') await threadingList(doc, threading, orientation, breathe);
     else if (kind === 'sleying' && outputs) await sleyingList(doc, outputs, orientation, breathe);
     else if (kind === 'tie-on' && outputs) await tieOnList(doc, outputs, orientation, breathe);
-    else if (kind === 'weaving') await weavingPages(doc, draft, weaving, yarnNames, breathe);
+    else if (kind === 'weaving') await weavingPages(doc, draft, weaving, yarnNames, breathe, outputs?.picksReason);
   }
 }
 
@@ -248,9 +259,11 @@ async function tieOnList(doc: Doc, outputs: PlanOutputs, o: Orientation, breathe
   }
 }
 
-async function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames: YarnNames, breathe: Breathe): Promise<void> {
+async function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames: YarnNames, breathe: Breathe, picksReason?: string): Promise<void> {
   const flow = new Flow(doc, draft.control === 'liftplan' ? 'Lift plan' : 'Treadling');
-  const times = list.repeats > 0 ? `Weave the sequence ${plural(list.repeats, 'time')}${list.extraPicks ? `, then picks 1–${list.extraPicks} once more` : ''}. ` : '';
+  const times = picksReason
+    ? `${picksReason} `
+    : list.repeats > 0 ? `Weave the sequence ${plural(list.repeats, 'time')}${list.extraPicks ? `, then picks 1–${list.extraPicks} once more` : ''}. ` : '';
   flow.line(`${times}${list.picksPerUnit} picks per ${list.unit}. Shafts are numbered from the front of the loom.`, MUTED);
   flow.line(`Tick each line as you weave it. ${REST}`, MUTED, BODY_SIZE - 1);
   const layered = draft.weftLayers.some((l) => l > 1);

@@ -8,3 +8,4 @@ export * from './results';
 export * from './loom-lists';
 export * from './plan-schema';
 export * from './compute-plan';
+export * from './picks';

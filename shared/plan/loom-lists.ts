@@ -84,13 +84,18 @@ export interface ThreadingStep {
   colorHex: string;
   layer: number;
   selvedge: boolean;
+  /** The dent this end is sleyed in, numbered as on the sleying list, when there is one. */
+  dent?: number;
 }
 
-/** The threading list in working order, in counted groups of `groupSize` ends. */
-export function threadingSteps(draft: Draft, warp: readonly WarpEnd[], o: Orientation, groupSize: number): Group<ThreadingStep>[] {
+/**
+ * The threading list in working order, in counted groups of `groupSize` ends; with `dents`
+ * (end → dent, from {@link dentOfEnd}) each end carries the dent it goes through.
+ */
+export function threadingSteps(draft: Draft, warp: readonly WarpEnd[], o: Orientation, groupSize: number, dents?: ReadonlyMap<number, number>): Group<ThreadingStep>[] {
   const steps = workingOrder(warp.length, o).map((i) => {
     const e = warp[i];
-    return {
+    const step: ThreadingStep = {
       end: e.end,
       shafts: e.shafts.map((s) => weaverShaft(s, draft.shafts, o)).sort((a, b) => a - b),
       color: e.color,
@@ -98,6 +103,9 @@ export function threadingSteps(draft: Draft, warp: readonly WarpEnd[], o: Orient
       layer: e.layer,
       selvedge: e.selvedge,
     };
+    const dent = dents?.get(e.end);
+    if (dent !== undefined) step.dent = dent;
+    return step;
   });
   return groupInto(steps, groupSize);
 }
@@ -128,6 +136,13 @@ export function sleyingSteps(
     ends: d.ends.map((i) => ({ end: warp[i].end, color: warp[i].color, layer: warp[i].layer })),
   }));
   return groupInto(steps, dentsPerGroup);
+}
+
+/** The dent of every end on a sleying list: 1-based end → dent number. */
+export function dentOfEnd(sleying: readonly Group<SleyingStep>[]): Map<number, number> {
+  const out = new Map<number, number>();
+  for (const g of sleying) for (const d of g.items) for (const e of d.ends) out.set(e.end, d.dent);
+  return out;
 }
 
 /** Tie-on bundles of `endsPerGroup` ends in working order, each as its 1-based end numbers. */

@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 import type { Draft, LengthUnit } from '../weave/types';
-import { DEFAULT_ALLOWANCES, DEFAULT_WEFT_ALLOWANCE, defaultLoomWaste, type WarpPlanInput, type YarnChoice } from './warp';
+import { DEFAULT_ALLOWANCES, DEFAULT_WEFT_ALLOWANCE, defaultLoomWaste, type PlanSize, type WarpPlanInput, type YarnChoice } from './warp';
 import { parseYarn } from './yarn';
 import { DEFAULT_ORIENTATION } from './loom-lists';
 import { WEAVES } from './sett';
@@ -44,8 +44,17 @@ export const planDocumentSchema = z.object({
   schemaVersion: z.literal(PLAN_SCHEMA_VERSION).default(PLAN_SCHEMA_VERSION),
   unit: z.enum(['inch', 'cm']).default('inch'),
   loom: z.enum(['table', 'floor']).default('floor'),
+  /**
+   * What the size starts from: the finished size, the size on the loom (`onLoom`), or the draft
+   * itself as a whole design. Absent: the draft for a block design (its blocks are the cloth),
+   * else the finished size.
+   */
+  sizeFrom: z.enum(['finished', 'loom', 'draft']).optional(),
+  /** Used when the finished size is what the weaver gives; kept when the plan starts elsewhere. */
   finishedWidth: positive,
   finishedLength: positive,
+  /** Width in the reed and length to weave per piece, when the plan starts from the loom. */
+  onLoom: z.object({ widthInReed: positive, wovenLength: positive }).optional(),
   pieces: z.number().int().min(1).default(1),
   hems: nonNegative.default(0),
   fringe: nonNegative.default(0),
@@ -70,6 +79,8 @@ export const planDocumentSchema = z.object({
   picksPerUnit: positive.optional(),
   // A 12-dent reed is a common first reed (common practice).
   reed: z.object({ dents: positive, per: z.enum(['inch', 'cm', '10cm']) }).default({ dents: 12, per: 'inch' }),
+  /** Width of the reed's dented part, in the plan's unit: with it the sleying starts where the warp sits centred. */
+  reedWidth: positive.optional(),
   /** Ends per dent, repeating; planned from the sett when absent. */
   denting: z.array(count).min(1).refine((p) => p.some((n) => n > 0), 'A denting needs at least one end.').optional(),
   repeatEnds: z.number().int().min(1).optional(),
@@ -87,10 +98,10 @@ export const planDocumentSchema = z.object({
       direction: z.enum(['right-to-left', 'left-to-right']).default(DEFAULT_ORIENTATION.direction),
       shaftNumbering: z.enum(['near', 'far']).default(DEFAULT_ORIENTATION.shaftNumbering),
       endOneAt: z.enum(['right', 'left']).default(DEFAULT_ORIENTATION.endOneAt),
-      /** Ends per threading group; one threading repeat when absent. */
+      /** Ends per threading group; about an inch (2.5 cm) of ends when absent. */
       groupSize: z.number().int().min(1).optional(),
       dentsPerGroup: z.number().int().min(1).optional(),
-      /** Ends per tie-on bundle; about one inch of warp when absent. */
+      /** Ends per tie-on bundle; TIE_ON_ENDS when absent. */
       tieOnEnds: z.number().int().min(1).optional(),
       layerRule: z.boolean().default(false),
       layerOrder: z.array(z.number().int().min(1)).min(1).optional(),
@@ -98,6 +109,8 @@ export const planDocumentSchema = z.object({
     })
     .prefault({}),
   notes: z.string().max(20_000).default(''),
+}).superRefine((doc, ctx) => {
+  if (doc.sizeFrom === 'loom' && !doc.onLoom) ctx.addIssue({ code: 'custom', path: ['onLoom'], message: 'Give the width in the reed and the length to weave.' });
 });
 
 /** A saved plan with every default filled in. */
@@ -127,9 +140,17 @@ function yarnChoice(y: PlanDocument['warpYarn']): YarnChoice | undefined {
   return { metresPerKg: base, byColor };
 }
 
+/** Where the plan's size comes from for this draft (see `sizeFrom`). */
+export function planSize(doc: PlanDocument, draft: Draft): PlanSize {
+  const from = doc.sizeFrom ?? (draft.blocks ? 'draft' : 'finished');
+  if (from === 'loom' && doc.onLoom) return { from, ...doc.onLoom };
+  return { from: from === 'draft' ? 'draft' : 'finished' };
+}
+
 /** The warp-plan inputs a saved plan stands for, with its draft's threading as the repeat. */
 export function warpPlanInput(doc: PlanDocument, draft: Draft): WarpPlanInput {
   return {
+    size: planSize(doc, draft),
     unit: doc.unit,
     finishedWidth: doc.finishedWidth,
     finishedLength: doc.finishedLength,

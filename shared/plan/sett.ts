@@ -55,6 +55,23 @@ export function workingSettRange(maximum: number): { low: number; high: number }
   return { low: maximum * WORKING_SETT_RANGE.low, high: maximum * WORKING_SETT_RANGE.high };
 }
 
+/** How far a sett lies outside a working range, and which way; absent when it is inside. */
+export interface SettOutside {
+  direction: 'above' | 'below';
+  /** Ends per unit beyond the nearer end of the range. */
+  by: number;
+}
+
+/**
+ * Whether a sett lies outside its working range. Above it the cloth packs stiff (or will not
+ * beat in); below it the cloth is loose and shifts. @example settOutside(24, { low: 19.5, high: 20.8 }) // { direction: 'above', by: 3.2 }
+ */
+export function settOutside(sett: number, working: { low: number; high: number }): SettOutside | undefined {
+  if (sett > working.high) return { direction: 'above', by: sett - working.high };
+  if (sett < working.low) return { direction: 'below', by: working.low - sett };
+  return undefined;
+}
+
 /** Two or more cloths woven at once share the reed, so the sett multiplies by the layer count. */
 export function layeredSett(singleLayerSett: number, layers: number): number {
   return singleLayerSett * layers;

@@ -60,6 +60,24 @@ export function wovenLengthFor(finishedLength: number, a: Allowances): number {
   return beforeLoss(beforeLoss(finishedLength, a.lengthShrinkage), a.takeUp);
 }
 
+/**
+ * The finished size a cloth of this size on the loom gives: the other way round from
+ * `widthInReedFor` and `wovenLengthFor`. @example finishedFromLoom(14, 24, a) // { width: 12, length: 19 } with a piece's measured allowances
+ */
+export function finishedFromLoom(widthInReed: number, wovenLength: number, a: Allowances): { width: number; length: number } {
+  return {
+    width: widthInReed * (1 - a.drawIn) * (1 - a.widthShrinkage),
+    length: wovenLength * (1 - a.takeUp) * (1 - a.lengthShrinkage),
+  };
+}
+
+/**
+ * Where a plan's size comes from: the finished size wanted, the size on the loom (width in the
+ * reed and length to weave, per piece), or the draft itself when it is a whole design (a mat, a
+ * panel) whose ends and picks are the cloth.
+ */
+export type PlanSize = { from: 'finished' } | { from: 'loom'; widthInReed: number; wovenLength: number } | { from: 'draft' };
+
 export type EndRounding = 'nearest' | 'up' | 'down';
 
 export interface EndCountInput {
@@ -204,6 +222,26 @@ export interface WarpPlanInput {
   weftYarn?: YarnChoice;
   packageSize?: PackageSize;
   boutEnds?: number;
+  /** The finished size by default. */
+  size?: PlanSize;
+}
+
+/**
+ * How the picks to weave come about, so every count shown can say why it differs from the draft's:
+ * `total` = `pieces` × `perPiece` + `samplePicks`.
+ */
+export interface PickCount {
+  /** Picks in the draft. */
+  draft: number;
+  /** True when the draft is a whole design: each piece weaves the draft's picks (and its hems). */
+  whole: boolean;
+  /** Picks woven for one piece. */
+  perPiece: number;
+  /** In a whole design, picks each piece adds for its hems. */
+  hemPicks: number;
+  pieces: number;
+  samplePicks: number;
+  total: number;
 }
 
 export interface WarpPlan {
@@ -219,7 +257,10 @@ export interface WarpPlan {
   /** Woven length of all pieces and samples, on the loom. */
   wovenLength: number;
   warpLength: number;
+  /** The finished size these give: the weaver's own when the plan starts from it. */
+  finished: { width: number; length: number };
   totalPicks: number;
+  picks: PickCount;
   weftLength: number;
   warpByColor: YarnAmount[];
   weftByColor: YarnAmount[];
@@ -239,21 +280,44 @@ export function computeWarpPlan(draft: Draft, input: WarpPlanInput): WarpPlan {
   if (!(sett > 0)) throw new RangeError('The sett must be above zero.');
   const repeatEnds = input.repeatEnds ?? Math.max(1, draft.threading.length);
 
-  const targetWidthInReed = widthInReedFor(input.finishedWidth, input.allowances);
-  const ends = endCount({
-    widthInReed: targetWidthInReed,
-    sett,
-    repeatEnds,
-    rounding: input.rounding,
-    balanceEnds: input.balanceEnds,
-    selvedgeEndsPerSide: input.selvedgeEndsPerSide,
-  });
+  const size = input.size ?? { from: 'finished' };
+  const draftPicks = pickCount(draft);
+  const whole = size.from === 'draft';
+  const targetWidthInReed = whole
+    ? (draft.threading.length + 2 * input.selvedgeEndsPerSide) / sett
+    : size.from === 'loom'
+      ? size.widthInReed
+      : widthInReedFor(input.finishedWidth, input.allowances);
+  const ends = whole
+    ? { repeats: 1, bodyEnds: draft.threading.length, totalEnds: draft.threading.length + 2 * input.selvedgeEndsPerSide }
+    : endCount({
+        widthInReed: targetWidthInReed,
+        sett,
+        repeatEnds,
+        rounding: input.rounding,
+        balanceEnds: input.balanceEnds,
+        selvedgeEndsPerSide: input.selvedgeEndsPerSide,
+      });
   const widthInReed = ends.totalEnds / sett;
-  const wovenLengthPerPiece = wovenLengthFor(input.finishedLength + input.hems, input.allowances);
+  // Whole numbers of picks, tolerating float noise so 24.000000001 picks is not 25.
+  const picksFor = (length: number) => Math.ceil(picksPerUnit * length - 1e-9);
+  const hemPicks = whole ? picksFor(wovenLengthFor(input.hems, input.allowances)) : 0;
+  const wovenLengthPerPiece = whole
+    ? (draftPicks + hemPicks) / picksPerUnit
+    : size.from === 'loom'
+      ? size.wovenLength
+      : wovenLengthFor(input.finishedLength + input.hems, input.allowances);
   const wovenLength = input.pieces * wovenLengthPerPiece + input.samples;
   const warpLength = input.pieces * (wovenLengthPerPiece + input.fringe) + input.samples + input.loomWaste;
-  const totalPicks = Math.ceil(picksPerUnit * wovenLength - 1e-9);
+  const perPiece = whole ? draftPicks + hemPicks : picksFor(wovenLengthPerPiece);
+  const samplePicks = picksFor(input.samples);
+  const picks: PickCount = { draft: draftPicks, whole, perPiece, hemPicks, pieces: input.pieces, samplePicks, total: input.pieces * perPiece + samplePicks };
+  const totalPicks = picks.total;
   const weftLength = picksPerUnit * wovenLength * widthInReed * (1 + input.weftAllowance);
+  const finished =
+    size.from === 'finished'
+      ? { width: input.finishedWidth, length: input.finishedLength }
+      : finishedFromLoom(targetWidthInReed, wovenLengthPerPiece, input.allowances);
 
   const warpCounts = new Map<number, number>();
   for (const e of expandWarp(draft, ends, input.selvedgeEndsPerSide)) {
@@ -264,16 +328,15 @@ export function computeWarpPlan(draft: Draft, input: WarpPlanInput): WarpPlan {
     .sort((a, b) => a[0] - b[0])
     .map(([color, n]) => amount(color, n, n * warpMetresPerEnd, input.warpYarn, input.packageSize));
 
-  const picks = pickCount(draft);
   const weftCounts = new Map<number, number>();
-  for (let p = 0; p < picks; p++) {
+  for (let p = 0; p < draftPicks; p++) {
     const c = draft.weftColors[p] ?? 0;
     weftCounts.set(c, (weftCounts.get(c) ?? 0) + 1);
   }
   const weftMetres = toMetres(weftLength, unit);
   const weftByColor = [...weftCounts]
     .sort((a, b) => a[0] - b[0])
-    .map(([color, n]) => amount(color, n, (weftMetres * n) / picks, input.weftYarn, input.packageSize));
+    .map(([color, n]) => amount(color, n, (weftMetres * n) / draftPicks, input.weftYarn, input.packageSize));
 
   return {
     unit,
@@ -285,7 +348,9 @@ export function computeWarpPlan(draft: Draft, input: WarpPlanInput): WarpPlan {
     wovenLengthPerPiece,
     wovenLength,
     warpLength,
+    finished,
     totalPicks,
+    picks,
     weftLength,
     warpByColor,
     weftByColor,

@@ -1,32 +1,17 @@
 /** The loom-side lists as the page steps through them: counts, the step at a place, and quick checks. */
 import type { LoomList, WorkingOrder } from '../../../shared/api/plans';
 import { computePlan, type PlanOutputs } from '../../../shared/plan/compute-plan';
-import { groupSizeForWidth, weaverShaft, type Group, type SleyingStep, type ThreadingStep, type WeavingList, type WeavingRow } from '../../../shared/plan/loom-lists';
+import { weaverShaft, type Group, type SleyingStep, type ThreadingStep, type WeavingList, type WeavingRow } from '../../../shared/plan/loom-lists';
 import type { PlanDocument } from '../../../shared/plan/plan-schema';
-import { dentsPerInch } from '../../../shared/plan/reed';
-import { convertDensity } from '../../../shared/plan/units';
 import { quickChecks } from '../../../shared/weave/check-threading';
 import type { Draft } from '../../../shared/weave/types';
 
-/** Longest threading repeat taken as one group; longer repeats (block drafts) go by width instead. */
-export const MAX_REPEAT_GROUP = 24;
-
 /**
- * The plan's lists in the weaver's working order. When the plan sets no group size, a threading
- * group is one repeat, or about an inch (2.5 cm) of ends when the repeat is long: a counted group
- * should be a handful of heddles, not a whole block design; sleying groups are then about an inch
- * of dents (common practice).
+ * The plan's lists in the weaver's working order, with the guide's own bundle size for tying on.
+ * Group sizes are the plan's (about an inch of ends unless the weaver set them).
  */
 export function loomOutputs(draft: Draft, plan: PlanDocument, order: WorkingOrder, tieOnEnds?: number): PlanOutputs {
-  const repeat = plan.repeatEnds ?? draft.threading.length;
-  const sett = plan.sett ?? convertDensity(draft.sett.warp, draft.sett.unit, plan.unit);
-  const groupSize = plan.lists.groupSize ?? (repeat > MAX_REPEAT_GROUP ? groupSizeForWidth(sett, plan.unit === 'inch' ? 1 : 2.5) : undefined);
-  const long = repeat > MAX_REPEAT_GROUP;
-  const dentsPerGroup = plan.lists.dentsPerGroup ?? (long ? Math.max(1, Math.round(dentsPerInch(plan.reed))) : undefined);
-  return computePlan(draft, {
-    ...plan,
-    lists: { ...plan.lists, ...order, ...(groupSize ? { groupSize } : {}), ...(dentsPerGroup ? { dentsPerGroup } : {}), ...(tieOnEnds ? { tieOnEnds } : {}) },
-  });
+  return computePlan(draft, { ...plan, lists: { ...plan.lists, ...order, ...(tieOnEnds ? { tieOnEnds } : {}) } });
 }
 
 /** How many places the marker can be on in a list: groups, or picks for weaving. */

@@ -19,6 +19,8 @@ export function convertPlanUnit(doc: PlanDocument, to: LengthUnit): PlanDocument
     fringe: len(doc.fringe),
     samples: len(doc.samples),
     loomWaste: doc.loomWaste === undefined ? undefined : len(doc.loomWaste),
+    onLoom: doc.onLoom && { widthInReed: len(doc.onLoom.widthInReed), wovenLength: len(doc.onLoom.wovenLength) },
+    reedWidth: doc.reedWidth === undefined ? undefined : len(doc.reedWidth),
     sett: density(doc.sett),
     picksPerUnit: density(doc.picksPerUnit),
   };

@@ -7,7 +7,7 @@ import { mockApi, type MockHandler } from '../support/mock-api';
 import { renderApp } from '../support/render';
 import { twoLayerDraft } from '../plan/fixtures';
 
-// 8 ends a repeat; 10" at 24 epi with 10 % draw-in and shrinkage → 37 repeats = 296 ends; groups of one repeat.
+// 8 ends a repeat; 10" at 24 epi with 10 % draw-in and shrinkage → 37 repeats = 296 ends; groups of an inch of ends (24).
 const plan = { ...defaultPlan('inch'), sett: 24, layers: 2, lists: { ...defaultPlan().lists, layerRule: true } };
 const back = { side: 'back', direction: 'right-to-left', shaftNumbering: 'near' } as const;
 
@@ -36,21 +36,21 @@ describe('At the loom', () => {
   it('finds the weaver\'s place from the server and moves with buttons and keys', async () => {
     const server = mockApi(routes({ list: 'threading', positions: { threading: 2 }, settings: back, movedAt: '2025-01-01T00:00:00.000Z' }));
     renderApp('/drafts/4/loom');
-    await waitFor(() => expect(heading()).toBe('Threading: group 3 of 37'));
+    await waitFor(() => expect(heading()).toBe('Threading: group 3 of 13'));
     expect(screen.getByRole('progressbar').getAttribute('aria-valuenow')).toBe('3');
     expect(screen.getByRole('button', { name: 'Back of the loom' }).getAttribute('aria-pressed')).toBe('true');
 
     fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
-    expect(heading()).toBe('Threading: group 4 of 37');
+    expect(heading()).toBe('Threading: group 4 of 13');
     await waitFor(() => expect(server.to('PUT /api/drafts/4/progress')).toHaveLength(1));
     expect(server.to('PUT /api/drafts/4/progress')[0].body).toMatchObject({ list: 'threading', position: 3, settings: back });
 
     fireEvent.keyDown(window, { key: 'ArrowRight' });
     fireEvent.keyDown(window, { key: ' ' });
-    expect(heading()).toBe('Threading: group 6 of 37');
+    expect(heading()).toBe('Threading: group 6 of 13');
     fireEvent.keyDown(window, { key: 'Backspace' });
     fireEvent.keyDown(window, { key: 'ArrowLeft' });
-    expect(heading()).toBe('Threading: group 4 of 37');
+    expect(heading()).toBe('Threading: group 4 of 13');
     await waitFor(() => expect(server.to('PUT /api/drafts/4/progress')).toHaveLength(5));
     expect(server.to('PUT /api/drafts/4/progress').at(-1)!.body).toMatchObject({ position: 3 });
     await screen.findByText('Place saved.');
@@ -59,14 +59,14 @@ describe('At the loom', () => {
   it('names colours in words beside the swatch, with shafts as numbered from the back, and a quick check', async () => {
     mockApi(routes(null));
     renderApp('/drafts/4/loom');
-    await waitFor(() => expect(heading()).toBe('Threading: group 1 of 37'));
+    await waitFor(() => expect(heading()).toBe('Threading: group 1 of 13'));
     fireEvent.click(screen.getByRole('button', { name: /Back of the loom/ }));
     // From the back, right to left, the last end (296, on draft shaft 8) comes first; nearest shaft is the back one.
     const first = screen.getAllByRole('listitem').find((li) => li.textContent?.startsWith('End 296'))!;
     expect(first.textContent).toBe('End 296Shaft 1Cotton, sand (colour 2)layer 2');
     fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
     const check = screen.getByRole('region', { name: 'Quick check' });
-    expect(check.textContent).toMatch(/Raise shaft 1 alone: every end on it should be Cotton, sand \(colour 2\) \(layer 2\)\. In this group: end 296\./);
+    expect(check.textContent).toMatch(/Raise shaft 1 alone: every end on it should be Cotton, sand \(colour 2\) \(layer 2\)\. In this group: ends 296, 288, 280\./);
   });
 
   it('keeps the place on the device while offline and sends it when back online', async () => {
@@ -78,7 +78,7 @@ describe('At the loom', () => {
       },
     }));
     renderApp('/drafts/4/loom');
-    await waitFor(() => expect(heading()).toBe('Threading: group 1 of 37'));
+    await waitFor(() => expect(heading()).toBe('Threading: group 1 of 13'));
     fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
     fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
     await screen.findByText(/Offline: your place is kept on this device/);
@@ -122,7 +122,7 @@ describe('At the loom', () => {
     let now = Date.parse('2025-05-01T09:00:00Z');
     vi.spyOn(Date, 'now').mockImplementation(() => now);
     renderApp('/drafts/4/loom');
-    await waitFor(() => expect(heading()).toBe('Threading: group 1 of 37'));
+    await waitFor(() => expect(heading()).toBe('Threading: group 1 of 13'));
     for (let i = 0; i < 8; i++) {
       expect(screen.queryByText(/Time for a short break/)).toBeNull();
       fireEvent.click(screen.getByRole('button', { name: /Next group/ }));

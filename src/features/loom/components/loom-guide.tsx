@@ -269,7 +269,7 @@ function StepBody({ list, position, outputs, draft, unitWord }: {
         raise shaft{row.raised.length === 1 ? '' : 's'} <strong>{row.raised.join(', ') || 'none'}</strong>
       </p>
       <p className="inline-flex items-center gap-2">Weft: <ColourSwatch draft={draft} color={row.color} />{row.layer > 1 || draft.weftLayers.some((l) => l > 1) ? ` · layer ${row.layer}` : ''}</p>
-      <p className="text-sm text-muted">Beat for {Math.round(w.picksPerUnit * 10) / 10} picks per {unitWord}; measure now and then, with the warp under the same tension.</p>
+      <p className="text-sm text-muted">{outputs.picksReason} Beat for {Math.round(w.picksPerUnit * 10) / 10} picks per {unitWord}; measure now and then, with the warp under the same tension.</p>
     </div>
   );
 }

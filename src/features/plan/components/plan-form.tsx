@@ -2,7 +2,9 @@ import { useState, type ReactNode } from 'react';
 import { Button } from '../../../components/ui/button';
 import { colourName } from '../../../components/ui/colour-swatch';
 import { Field, SelectField } from '../../../components/ui/field';
-import type { PlanDocument } from '../../../../shared/plan/plan-schema';
+import { planSize, type PlanDocument } from '../../../../shared/plan/plan-schema';
+
+type SizeFrom = NonNullable<PlanDocument['sizeFrom']>;
 import { defaultLoomWaste, DEFAULT_ALLOWANCES, DEFAULT_WEFT_ALLOWANCE } from '../../../../shared/plan/warp';
 import { dentingLabel } from '../../../../shared/plan/reed';
 import { parseYarn } from '../../../../shared/plan/yarn';
@@ -103,6 +105,7 @@ export function PlanForm({ plan, draft, onChange, errors, measured }: PlanFormPr
   const [dentingText, setDentingText] = useState(plan.denting ? dentingLabel(plan.denting) : '');
   const dentingResult = parseDenting(dentingText);
   const colours = [...new Set([...draft.warpColors, ...draft.weftColors])].sort((a, b) => a - b);
+  const sizeFrom = planSize(plan, draft).from;
 
   return (
     <div className="flex flex-col gap-4">
@@ -112,8 +115,31 @@ export function PlanForm({ plan, draft, onChange, errors, measured }: PlanFormPr
       </div>
 
       <Group title="Cloth">
-        <NumberField label={`Finished width (${unitWord})`} value={plan.finishedWidth} onChange={(v) => v !== undefined && set({ finishedWidth: v })} error={errors.finishedWidth} />
-        <NumberField label={`Finished length per piece (${unitWord})`} value={plan.finishedLength} onChange={(v) => v !== undefined && set({ finishedLength: v })} error={errors.finishedLength} />
+        <SelectField
+          label="Size from"
+          value={sizeFrom}
+          hint={sizeFrom === 'draft' ? 'The draft is the whole piece: its ends and picks give the size on the loom.' : undefined}
+          onChange={(e) => {
+            const from = e.target.value as SizeFrom;
+            set({ sizeFrom: from, ...(from === 'loom' && !plan.onLoom ? { onLoom: { widthInReed: plan.finishedWidth, wovenLength: plan.finishedLength } } : {}) });
+          }}
+        >
+          <option value="finished">The finished size I want</option>
+          <option value="loom">What is on the loom</option>
+          <option value="draft">The draft: it is the whole piece (a mat, a panel)</option>
+        </SelectField>
+        {sizeFrom === 'finished' && (
+          <>
+            <NumberField label={`Finished width (${unitWord})`} value={plan.finishedWidth} onChange={(v) => v !== undefined && set({ finishedWidth: v })} error={errors.finishedWidth} />
+            <NumberField label={`Finished length per piece (${unitWord})`} value={plan.finishedLength} onChange={(v) => v !== undefined && set({ finishedLength: v })} error={errors.finishedLength} />
+          </>
+        )}
+        {sizeFrom === 'loom' && plan.onLoom && (
+          <>
+            <NumberField label={`Width in the reed (${unitWord})`} value={plan.onLoom.widthInReed} onChange={(v) => v !== undefined && plan.onLoom && set({ onLoom: { ...plan.onLoom, widthInReed: v } })} error={errors['onLoom.widthInReed']} />
+            <NumberField label={`Length to weave per piece (${unitWord})`} value={plan.onLoom.wovenLength} onChange={(v) => v !== undefined && plan.onLoom && set({ onLoom: { ...plan.onLoom, wovenLength: v } })} error={errors['onLoom.wovenLength']} />
+          </>
+        )}
         <NumberField label="Pieces" value={plan.pieces} onChange={(v) => v !== undefined && set({ pieces: v })} error={errors.pieces} />
         <NumberField label={`Hems per piece, both ends (${unitWord})`} value={plan.hems} onChange={(v) => set({ hems: v ?? 0 })} optional error={errors.hems} />
         <NumberField label={`Fringe per piece, both ends (${unitWord})`} value={plan.fringe} onChange={(v) => set({ fringe: v ?? 0 })} optional error={errors.fringe} />
@@ -224,6 +250,15 @@ export function PlanForm({ plan, draft, onChange, errors, measured }: PlanFormPr
           <option value="10cm">per 10 cm</option>
           <option value="cm">per cm</option>
         </SelectField>
+        <NumberField
+          label={`Reed width (${unitWord})`}
+          value={plan.reedWidth}
+          optional
+          placeholder="not given"
+          hint="The dented width of the reed: the plan then finds the dent to start at so the warp is centred."
+          onChange={(v) => set({ reedWidth: v })}
+          error={errors.reedWidth}
+        />
         <Field
           label="Ends per dent"
           value={dentingText}

@@ -82,6 +82,14 @@ export function PlanOutputsView({ outputs, plan, draft }: { outputs: PlanOutputs
             ['Picks used', density(warp.picksPerUnit, u, 'picks')],
           ]}
         />
+        {settGuide.outside && settGuide.working && (
+          <p role="note" className="rounded-md border border-danger bg-danger-soft p-2 text-sm">
+            <span aria-hidden="true">⚠ </span>
+            {density(warp.sett, u)} is {num(settGuide.outside.by)} {settGuide.outside.direction} the working range for this yarn
+            {plan.layers > 1 ? ` in ${plan.layers} layers` : ''} (Ashenhurst&apos;s rule): the cloth may be
+            {settGuide.outside.direction === 'above' ? ' stiff or hard to beat in' : ' loose and shift'}. Weave a sample to be sure.
+          </p>
+        )}
         {settGuide.fromWraps === undefined && !settGuide.working && (
           <p className="text-sm text-muted">Give the warp yarn or its wraps per inch for sett advice.</p>
         )}
@@ -91,10 +99,11 @@ export function PlanOutputsView({ outputs, plan, draft }: { outputs: PlanOutputs
         <Facts
           rows={[
             ['Width in the reed', `${length(warp.widthInReed, u, 2)} (asked: ${length(warp.targetWidthInReed, u, 2)})`],
+            ['Finished size', `${length(warp.finished.width, u)} × ${length(warp.finished.length, u)}${plan.sizeFrom === 'finished' || warp.finished.width === plan.finishedWidth ? '' : ' (estimated with the allowances)'}`],
             ['Total ends', `${num(warp.ends.totalEnds, 0)} = ${warp.ends.repeats} repeats${plan.balanceEnds ? ` + ${plan.balanceEnds} balancing` : ''}${plan.selvedgeEndsPerSide ? ` + ${plan.selvedgeEndsPerSide * 2} selvedge` : ''}`],
             ['Woven length per piece', length(warp.wovenLengthPerPiece, u)],
             ['Warp length', long(warp.warpLength)],
-            ['Picks in all', num(warp.totalPicks, 0)],
+            ['Picks in all', outputs.picksReason],
             ['Weft length', long(warp.weftLength)],
             ...(warp.bouts ? [['Bouts', `${warp.bouts.length}: ${warp.bouts.join(', ')} ends`] as [string, ReactNode]] : []),
           ]}
@@ -112,6 +121,9 @@ export function PlanOutputsView({ outputs, plan, draft }: { outputs: PlanOutputs
             ['Reed', `${num(plan.reed.dents)} dents ${plan.reed.per === '10cm' ? 'per 10 cm' : plan.reed.per === 'cm' ? 'per cm' : 'per inch'}`],
             ['Ends per dent', `${dentingLabel(denting.pattern)}${plan.denting ? '' : ' (planned from the sett)'}`],
             ['Sett this gives', `${density(denting.sett, u)} (${denting.difference >= 0 ? '+' : ''}${num(denting.difference, 2)} against the sett used)`],
+            ...(outputs.centring
+              ? [['Centred in the reed', `start at dent ${outputs.centring.firstDent} of ${outputs.centring.reedDents} (${outputs.centring.dentsUsed} dents used)`] as [string, ReactNode]]
+              : []),
           ]}
         />
         <table className="w-full text-sm">

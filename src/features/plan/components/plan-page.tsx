@@ -7,7 +7,7 @@ import { MissingNotice, PageHeading } from '../../../components/ui/page-heading'
 import { Spinner } from '../../../components/ui/spinner';
 import { isApiError } from '../../../lib/api-client';
 import type { DraftDetail } from '../../../types/api';
-import { computePlan, type PlanOutputs } from '../../../../shared/plan/compute-plan';
+import { computePlan, planBlocker, type PlanOutputs } from '../../../../shared/plan/compute-plan';
 import { planDocumentSchema, type PlanDocument } from '../../../../shared/plan/plan-schema';
 import { parseDraft } from '../../../../shared/weave/draft';
 import type { Draft } from '../../../../shared/weave/types';
@@ -59,7 +59,9 @@ function PlanEditor({ detail, saved }: { detail: DraftDetail; saved: PlanDocumen
   const { errors, outputs } = useMemo(() => {
     const errors = fieldErrors(plan);
     let outputs: PlanOutputs | string;
-    if (Object.keys(errors).length > 0) outputs = 'Some inputs need fixing before the plan can be worked out.';
+    const blocker = planBlocker(draft);
+    if (blocker) outputs = blocker;
+    else if (Object.keys(errors).length > 0) outputs = 'Some inputs need fixing before the plan can be worked out.';
     else {
       try {
         outputs = computePlan(draft, plan);
