@@ -1,3 +1,4 @@
+import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
@@ -6,6 +7,8 @@ const apiPort = Number(process.env.SHEDWRIGHT_PORT ?? 4780);
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
+  // `@/…` is `src/…` (tsconfig.json says the same for the type checker and the linter).
+  resolve: { alias: { '@': fileURLToPath(new URL('./src', import.meta.url)) } },
   server: {
     host: '127.0.0.1',
     proxy: { '/api': `http://127.0.0.1:${apiPort}` },

@@ -1,6 +1,7 @@
-// `npm test`: every suite against a throwaway MariaDB and headless Chromium it starts itself.
-// Ends with one plain line `N passed, N failed` summing all suites. Extra arguments go to vitest
-// (e.g. `npm test -- --project shared`).
+// `npm test`: the linter, then every suite against a throwaway MariaDB and headless Chromium it
+// starts itself. Ends with one plain line `N passed, N failed` summing all suites, the lint counted
+// as one check. Extra arguments go to vitest (e.g. `npm test -- --project shared`); the lint always runs.
+import { spawnSync } from 'node:child_process';
 import { rmSync, mkdirSync, readFileSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { ensureDebianPackages, ensureNodeModules, root, run } from './lib/system.mjs';
@@ -14,7 +15,9 @@ const { startChild, onStop, stopAll, waitForExit } = await import('./lib/process
 
 const resultsDir = join(root, 'tests', '.results');
 const resultsFile = join(resultsDir, 'vitest.json');
+const vitestArgs = process.argv.slice(2);
 let exitCode = 1;
+const lint = runLint();
 try {
   // Throwaway: a fresh data directory every run, so no state leaks between runs.
   const dir = join(root, databases.test.dir);
@@ -35,22 +38,36 @@ try {
   run(join(root, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { env });
 
   const vitest = startChild(join(root, 'node_modules/.bin/vitest'),
-    ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${resultsFile}`, ...process.argv.slice(2)],
+    ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${resultsFile}`, ...vitestArgs],
     { env, cwd: root });
   const code = await waitForExit(vitest);
   for (const dir of await removeStrayInstances(join(root, '.data'), 'restore-test-')) {
     console.log(`Stopped a MariaDB that a test started and did not stop (its worker died?): ${dir}`);
   }
-  const { passed, failed } = countResults(code);
+  const suites = countResults(code);
+  const passed = suites.passed + lint.passed;
+  const failed = suites.failed + lint.failed;
   exitCode = code !== 0 || failed > 0 ? 1 : 0;
   await stopAll();
   console.log(`${passed} passed, ${failed} failed`);
 } catch (err) {
   console.error(`npm test could not run: ${err.stack ?? err}`);
   await stopAll();
-  console.log('0 passed, 1 failed');
+  console.log(`${lint.passed} passed, ${lint.failed + 1} failed`);
 }
 process.exit(exitCode);
+
+/**
+ * ESLint over the whole repository (eslint.config.js), no warning allowed. A problem fails the run but
+ * the suites still run, so one report shows everything that is wrong.
+ */
+function runLint() {
+  console.log('Lint (eslint.config.js) …');
+  const r = spawnSync(join(root, 'node_modules/.bin/eslint'), ['.', '--max-warnings', '0'], { stdio: 'inherit', cwd: root });
+  const clean = r.status === 0;
+  console.log(clean ? 'Lint: no problems.' : 'Lint: FAILED (problems above).');
+  return { passed: clean ? 1 : 0, failed: clean ? 0 : 1 };
+}
 
 /** Sums vitest's JSON report; a file that failed to load counts as one failure. */
 function countResults(code) {

@@ -1,7 +1,7 @@
 import type { AuthResponse, ForgotBody, ResetBody, SignInBody, SignUpBody } from '../../shared/api/auth';
-import { HttpError } from '../middleware/errors';
+import { HttpError } from '../http/errors';
 import { authenticateLocal, logIn, logOut } from '../middleware/passport';
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import { requestPasswordReset, resetPassword, signUp as createAccount } from '../services/auth';
 import { loadSessionUser } from '../services/users';
 

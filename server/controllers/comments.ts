@@ -1,5 +1,5 @@
 import type { CommentBody } from '../../shared/api';
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import { addComment, deleteComment, listComments } from '../services/comments';
 
 export async function list({ app, res, params }: Ctx<unknown, unknown, { id: number }>) {

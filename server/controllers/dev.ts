@@ -1,4 +1,4 @@
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 
 export async function mails({ app, res }: Ctx<unknown, unknown, unknown>) {
   res.json({ mails: await app.mails() });

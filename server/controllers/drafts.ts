@@ -1,6 +1,6 @@
 import type { CreateDraftBody, DraftListQuery, ForkBody, SaveDraftBody, UpdateDraftBody } from '../../shared/api';
 import { toWif } from '../../shared/weave';
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import { versionDocument } from '../services/draft-documents';
 import { attachmentDisposition, draftFromWifFile } from '../services/draft-files';
 import { draftThumbnail } from '../services/draft-thumbnails';

@@ -1,6 +1,6 @@
 import type { Response } from 'express';
 import type { DrawdownPngQuery, PrintQuery } from '../../shared/api/exports';
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import { attachmentDisposition } from '../services/draft-files';
 import { draftPrintable, drawdownPng, printPdf, sharedPrintable, type Printable } from '../services/exports';
 

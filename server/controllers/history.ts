@@ -1,5 +1,5 @@
 import type { CompareQuery } from '../../shared/api';
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import { compareVersions, comparePng, getVersion, listVersions, restoreVersion } from '../services/draft-versions';
 
 type Id = { id: number };

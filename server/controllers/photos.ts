@@ -1,4 +1,4 @@
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import { addPhoto, listPhotos, readPhoto } from '../services/photos';
 
 export async function upload({ app, req, res, params }: Ctx<unknown, unknown, { id: number; n: number }>) {

@@ -1,6 +1,6 @@
 import type { ProgressBody, ResultInput } from '../../shared/api/plans';
 import type { PlanDocument } from '../../shared/plan/plan-schema';
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import * as plans from '../services/plans';
 
 type Id = { id: number };

@@ -1,5 +1,5 @@
 import type { AcceptInviteBody, InviteBody } from '../../shared/api';
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import { acceptInvitation, inviteToStudio } from '../services/invitations';
 import { createShareLink, revokeShareLinks, sharedDraft, shareStatus } from '../services/sharing';
 

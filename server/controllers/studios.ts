@@ -1,5 +1,5 @@
 import type { CreateStudioBody, MemberRoleBody } from '../../shared/api/studios';
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import { createStudio, listStudios, removeMember, setMemberRole, studioDetail } from '../services/studios';
 
 export interface StudioParams { id: number }

@@ -1,5 +1,5 @@
 import type { YarnBody, YarnPatch } from '../../shared/api';
-import type { Ctx } from '../routes/route';
+import type { Ctx } from '../http/handler';
 import { createYarn, deleteYarn, listYarns, updateYarn } from '../services/yarns';
 
 export async function list({ app, req, res }: Ctx<unknown, unknown, unknown>) {

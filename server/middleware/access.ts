@@ -1,10 +1,10 @@
 import type { NextFunction, Request, Response } from 'express';
 import { roleRank, type StudioRole } from '../../shared/api/auth';
 import type { AppContext } from '../context';
-import type { RouteSpec } from '../routes/route';
+import type { RouteSpec } from '../http/handler';
 import { draftRole } from '../services/drafts';
 import { studioRole } from '../services/studios';
-import { forbidden, HttpError, notFound } from './errors';
+import { forbidden, HttpError, notFound } from '../http/errors';
 
 const signedOut = () => new HttpError(401, 'unauthenticated', 'Sign in first');
 

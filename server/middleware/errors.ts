@@ -1,33 +1,8 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { BaseError, ConnectionError } from 'sequelize';
 import { ZodError } from 'zod';
-import type { ApiError, ErrorCode } from '../../shared/api/errors';
-
-/** An error whose status, code and message are safe to show to the client. */
-export class HttpError extends Error {
-  constructor(
-    readonly status: number,
-    readonly code: ErrorCode,
-    message: string,
-    readonly fields?: Record<string, string>,
-  ) {
-    super(message);
-  }
-}
-
-export const notFound = (what = 'Not found') => new HttpError(404, 'not_found', what);
-export const forbidden = (what = 'Your role does not allow this') => new HttpError(403, 'forbidden', what);
-export const conflict = (what: string) => new HttpError(409, 'conflict', what);
-
-/** Turns a zod failure into a 400 with one message per field. */
-export function validationError(error: ZodError): HttpError {
-  const fields: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.join('.') || '_';
-    fields[key] ??= issue.message;
-  }
-  return new HttpError(400, 'validation', 'Some fields are not valid', fields);
-}
+import type { ApiError } from '../../shared/api/errors';
+import { HttpError, notFound, validationError } from '../http/errors';
 
 /**
  * Driver codes that mean the connection to MariaDB broke or the server is going away, as opposed to a

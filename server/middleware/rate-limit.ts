@@ -1,6 +1,6 @@
 import { rateLimit, type Store } from 'express-rate-limit';
 import type { RateLimitConfig } from '../config';
-import { HttpError } from './errors';
+import { HttpError } from '../http/errors';
 
 /**
  * One limiter per kind of sensitive route, counting per client address within the window; `store`

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
-import { HttpError } from './errors';
+import { HttpError } from '../http/errors';
 
 /**
  * Accepts one file in the form field "file", held in memory (never written where the web server

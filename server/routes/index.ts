@@ -2,7 +2,7 @@ import { Router, type RequestHandler } from 'express';
 import type { z } from 'zod';
 import type { AppContext } from '../context';
 import { resourceRole, siteAccess } from '../middleware/access';
-import { validationError } from '../middleware/errors';
+import { validationError } from '../http/errors';
 import { createLimiters } from '../middleware/rate-limit';
 import { authRoutes } from './auth';
 import { collaborationRoutes } from './collaboration';
@@ -10,7 +10,7 @@ import { devRoutes } from './dev';
 import { draftRoutes } from './drafts';
 import { exportRoutes } from './exports';
 import { planRoutes } from './plans';
-import type { RouteSpec } from './route';
+import type { RouteSpec } from '../http/handler';
 import { studioRoutes } from './studios';
 import { yarnRoutes } from './yarns';
 

@@ -1,7 +1,7 @@
 import { Op, UniqueConstraintError } from 'sequelize';
 import type { ResetBody, SignUpBody } from '../../shared/api/auth';
 import type { Mailer } from '../mail/mailer';
-import { conflict, HttpError } from '../middleware/errors';
+import { conflict, HttpError } from '../http/errors';
 import type { Models, UserRow } from '../models';
 import { dummyPasswordHash, hashPassword, verifyPassword } from './passwords';
 import { newToken, tokenHash } from './tokens';

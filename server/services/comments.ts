@@ -1,5 +1,5 @@
 import type { Comment, CommentBody } from '../../shared/api';
-import { forbidden, HttpError, notFound } from '../middleware/errors';
+import { forbidden, HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { CommentRow } from '../models/comment';
 

@@ -1,5 +1,5 @@
 import { DraftError, parseDraft, type Draft } from '../../shared/weave';
-import { HttpError, notFound } from '../middleware/errors';
+import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 
 /**

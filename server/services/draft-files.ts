@@ -1,5 +1,5 @@
 import { fromWif, WifError, type Draft } from '../../shared/weave';
-import { HttpError } from '../middleware/errors';
+import { HttpError } from '../http/errors';
 
 /** Reads an uploaded WIF file; a file that is not one, or does not make a valid draft, is a 422 saying why. */
 export function draftFromWifFile(file: { buffer: Buffer; originalname: string } | undefined): Draft {

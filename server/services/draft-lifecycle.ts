@@ -2,7 +2,7 @@ import { Op, type WhereOptions } from 'sequelize';
 import { roleRank } from '../../shared/api/auth';
 import type { CreateDraftBody, DraftSummary, ForkBody, LineageDraft, LineageResponse, UpdateDraftBody } from '../../shared/api';
 import { emptyDraft, type Draft } from '../../shared/weave';
-import { forbidden, HttpError, notFound } from '../middleware/errors';
+import { forbidden, HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { DraftRow } from '../models/draft';
 import { parseDocument, versionDocument } from './draft-documents';

@@ -1,5 +1,5 @@
 import { parseDraft } from '../../shared/weave';
-import { notFound } from '../middleware/errors';
+import { notFound } from '../http/errors';
 import type { Models } from '../models';
 import { thumbnailPng } from './draft-derived';
 

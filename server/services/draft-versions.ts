@@ -1,7 +1,7 @@
 import type { CompareResponse, SaveDraftBody, VersionDetailResponse, VersionSummary } from '../../shared/api';
 import { compareDrafts, comparisonImage, type Draft } from '../../shared/weave';
 import { encodePngRgb } from '../print/png';
-import { HttpError, notFound } from '../middleware/errors';
+import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { DraftVersionRow } from '../models/draft-version';
 import { derivedColumns } from './draft-derived';

@@ -2,7 +2,7 @@ import { Op, QueryTypes, type WhereOptions } from 'sequelize';
 import type { StudioRole } from '../../shared/api/auth';
 import type { DraftDetail, DraftListQuery, DraftListResponse, DraftSummary } from '../../shared/api/drafts';
 import type { Draft } from '../../shared/weave/types';
-import { notFound } from '../middleware/errors';
+import { notFound } from '../http/errors';
 import type { DraftRow } from '../models/draft';
 import type { Models } from '../models';
 import { derivedColumns } from './draft-derived';

@@ -3,7 +3,7 @@ import type { LoomList } from '../../shared/api/plans';
 import type { PlanDocument } from '../../shared/plan';
 import type { LoomListKind, PrintMeta } from '../../shared/print/types';
 import { isLayered, parseDraft, pickCount, type Draft } from '../../shared/weave';
-import { HttpError, notFound } from '../middleware/errors';
+import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import { renderDraftPdf } from '../print/draft-pdf';
 import { renderDrawdownPngAsync } from '../print/drawdown-png';

@@ -2,7 +2,7 @@ import { Op } from 'sequelize';
 import { roleRank } from '../../shared/api/auth';
 import type { AcceptInviteResponse, InviteBody } from '../../shared/api';
 import type { Mailer } from '../mail/mailer';
-import { HttpError, notFound } from '../middleware/errors';
+import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import { newToken, tokenHash } from './tokens';
 

@@ -1,6 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import type { Photo } from '../../shared/api';
-import { HttpError, notFound } from '../middleware/errors';
+import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { AttachmentRow } from '../models/attachment';
 import type { BlobStorage } from '../storage';

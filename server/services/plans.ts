@@ -5,7 +5,7 @@ import { planDocumentSchema, type PlanDocument } from '../../shared/plan/plan-sc
 import { measuredAllowances } from '../../shared/plan/results';
 import type { Allowances } from '../../shared/plan/warp';
 import { parseDraft } from '../../shared/weave/draft';
-import { HttpError, notFound } from '../middleware/errors';
+import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { LoomProgressRow } from '../models/loom-progress';
 import type { WeavingResultRow } from '../models/weaving-result';

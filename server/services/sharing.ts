@@ -1,6 +1,6 @@
 import { Op } from 'sequelize';
 import type { ShareLinkResponse, SharedDraftResponse, ShareStatusResponse } from '../../shared/api';
-import { notFound } from '../middleware/errors';
+import { notFound } from '../http/errors';
 import type { Models } from '../models';
 import { newToken, tokenHash } from './tokens';
 

@@ -1,7 +1,7 @@
 import { fn, col } from 'sequelize';
 import type { StudioRole } from '../../shared/api/auth';
 import type { StudioDetailResponse, StudioListItem, StudioMember, Studio } from '../../shared/api/studios';
-import { conflict, notFound } from '../middleware/errors';
+import { conflict, notFound } from '../http/errors';
 import type { Models } from '../models';
 
 /** The studios a user belongs to, with their role and how many members each has. */

@@ -1,5 +1,5 @@
 import type { Yarn, YarnBody, YarnPatch } from '../../shared/api';
-import { notFound } from '../middleware/errors';
+import { notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { YarnRow } from '../models/yarn';
 

@@ -10,7 +10,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { chromium } from 'playwright-core';
+import { chromium, type CDPSession } from 'playwright-core';
 import { build, createServer, preview } from 'vite';
 import { stolenMs } from './proc-stat';
 
@@ -287,7 +287,7 @@ function longestTask(events: TraceEvent[], pageStart: number, from: number, to: 
 }
 
 /** Ends the trace started on `cdp` and reads its events from the stream Chromium hands back. */
-async function readTrace(cdp: import('playwright-core').CDPSession): Promise<TraceEvent[]> {
+async function readTrace(cdp: CDPSession): Promise<TraceEvent[]> {
   const done = new Promise<string>((resolve) => cdp.once('Tracing.tracingComplete', (e) => resolve(e.stream!)));
   await cdp.send('Tracing.end');
   const handle = await done;

@@ -8,7 +8,7 @@ import { defaultPlan } from '../../shared/plan/plan-schema';
 import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import type { UserRow } from '../../server/models';
 import { routeTable } from '../../server/routes';
-import type { RouteSpec } from '../../server/routes/route';
+import type { RouteSpec } from '../../server/http/handler';
 import { createDraft } from '../../server/services/drafts';
 import { addComment } from '../../server/services/comments';
 import { addPhoto } from '../../server/services/photos';

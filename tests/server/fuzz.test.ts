@@ -8,7 +8,7 @@ import { apiErrorSchema, PHOTO_MAX_BYTES, WIF_MAX_BYTES } from '../../shared/api
 import { toWif } from '../../shared/weave';
 import { straightTwillTrial } from '../../server/db/seeders/demo-drafts';
 import { routeTable } from '../../server/routes';
-import type { RouteSpec } from '../../server/routes/route';
+import type { RouteSpec } from '../../server/http/handler';
 import { createDraft } from '../../server/services/drafts';
 import { startTestServer, type TestClient, type TestServer } from '../helpers/server';
 

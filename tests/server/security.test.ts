@@ -11,7 +11,7 @@ import { loadConfig } from '../../server/config';
 import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { encodePngRgb } from '../../server/print/png';
 import { routeTable } from '../../server/routes';
-import type { RouteSpec } from '../../server/routes/route';
+import type { RouteSpec } from '../../server/http/handler';
 import { addComment } from '../../server/services/comments';
 import { createDraft } from '../../server/services/drafts';
 import { addPhoto } from '../../server/services/photos';

@@ -6,6 +6,7 @@ export function safeNextPath(raw: string | null | undefined, fallback = '/drafts
   if (!raw || !raw.startsWith('/')) return fallback;
   if (raw.startsWith('//')) return fallback;
   // Browsers read `\` as `/` and drop tabs and newlines, which would turn `/\evil` or `/\t/evil` into `//evil`.
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what this refuses
   if (/[\u0000-\u001f\u007f\\]/.test(raw)) return fallback;
   if (raw === '/sign-in' || raw.startsWith('/sign-in?')) return fallback;
   return raw;

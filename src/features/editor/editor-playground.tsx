@@ -42,13 +42,12 @@ function readParams(): { ends: number; picks: number; shafts: number } {
  * big one) and a pretend server that can go offline or take someone else's save.
  */
 export default function EditorPlayground() {
-  const params = useMemo(readParams, []);
+  const params = useMemo(() => readParams(), []);
   const draft = useMemo(() => demoDraft(params.ends, params.picks, params.shafts), [params]);
   const server = useRef({ version: 1, document: draft });
   const [offline, setOffline] = useState(false);
   // The editor keeps the first onSave it is given, so it reads "offline" through a ref.
   const offlineRef = useRef(offline);
-  offlineRef.current = offline;
   const [log, setLog] = useState<string[]>([]);
   const note = (line: string) => setLog((l) => [line, ...l].slice(0, 6));
 
@@ -79,7 +78,14 @@ export default function EditorPlayground() {
           {params.ends} ends × {params.picks} picks on {params.shafts} shafts
         </span>
         <label className="flex items-center gap-1">
-          <input type="checkbox" checked={offline} onChange={(e) => setOffline(e.target.checked)} />
+          <input
+            type="checkbox"
+            checked={offline}
+            onChange={(e) => {
+              offlineRef.current = e.target.checked;
+              setOffline(e.target.checked);
+            }}
+          />
           Pretend server offline
         </label>
         <button type="button" className="rounded border border-field bg-surface px-2" onClick={someoneElseSaves}>

@@ -55,6 +55,7 @@ export function usePlace(draftId: number, server: Progress | null | undefined) {
     const chosen = newerPlace(cache.place, server);
     if (!chosen) return;
     latest.current = chosen;
+    // eslint-disable-next-line react-hooks/set-state-in-effect -- the server's place arrives after the first render and is merged once with this device's copy
     setPlace(chosen);
     writeLoomCache(draftId, { place: chosen });
     if (chosen !== server && cache.pending) void send(chosen);

@@ -1,6 +1,6 @@
 import { exportQuery, type PngViewName } from '../../../shared/api/exports';
 import type { LoomList, WorkingOrder } from '../../../shared/api/plans';
-import type { Arrangement } from '../editor/canvas/layout';
+import type { Arrangement } from '../editor';
 
 /** The print's arrangement words: which side the threading, treadling and shaft 1 are on. */
 export interface PrintArrangement {

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useEffect, useEffectEvent, useMemo, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { ColourSwatch } from '../../../components/ui/colour-swatch';
 import type { LoomList, Progress, WorkingOrder } from '../../../../shared/api/plans';
@@ -73,8 +73,7 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
   const back = () => go(position - 1);
 
   // A foot switch that types a key works like the buttons.
-  const keys = useRef({ forward, back });
-  keys.current = { forward, back };
+  const step = useEffectEvent((by: 1 | -1) => go(position + by));
   useEffect(() => {
     const onKey = (e: KeyboardEvent) => {
       const t = e.target as HTMLElement | null;
@@ -82,10 +81,10 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
       const onButton = t?.tagName === 'BUTTON' || t?.tagName === 'A';
       if (e.key === 'ArrowRight' || (e.key === ' ' && !onButton)) {
         e.preventDefault();
-        keys.current.forward();
+        step(1);
       } else if (e.key === 'ArrowLeft' || (e.key === 'Backspace' && !onButton)) {
         e.preventDefault();
-        keys.current.back();
+        step(-1);
       }
     };
     window.addEventListener('keydown', onKey);
