@@ -1,6 +1,7 @@
 import { colourName } from './colour-names';
 import { resolveLayers } from './layer-lists';
 import type { Draft } from './types';
+import { plural } from './words';
 
 /** A count of ends sharing one value (a palette index or a layer). */
 export interface Tally {
@@ -55,10 +56,6 @@ function tally(values: Iterable<number>): Tally[] {
   const counts = new Map<number, number>();
   for (const v of values) counts.set(v, (counts.get(v) ?? 0) + 1);
   return [...counts].map(([value, count]) => ({ value, count })).sort((a, b) => b.count - a.count || a.value - b.value);
-}
-
-function plural(n: number, one: string, many = `${one}s`): string {
-  return `${n} ${n === 1 ? one : many}`;
 }
 
 /**

@@ -1,9 +1,11 @@
 import { checkThreading, type ThreadingProblem } from './check-threading';
 import { colourName } from './colour-names';
+import { pickCount } from './drawdown';
 import type { Float } from './floats';
 import { resolveLayers } from './layer-lists';
 import type { LayerProblem } from './layers';
 import type { Draft } from './types';
+import { numberList, plural } from './words';
 
 /** What a Checks item is about, for the count by kind and for folding. */
 export type CheckKind = 'threading' | 'layers' | 'floats';
@@ -163,20 +165,6 @@ function extentOf(axis: 'ends' | 'picks', problems: readonly FoundProblem[]): nu
     }
   }
   return [...at].sort((a, b) => a - b);
-}
-
-function pickCount(draft: Draft): number {
-  return draft.control === 'liftplan' ? draft.liftplan.length : draft.treadling.length;
-}
-
-/** "1, 3, 5 … 199" (1-based): every number up to five, else the first three and the last. */
-export function numberList(indices: readonly number[]): string {
-  const n = indices.map((i) => i + 1);
-  return n.length <= 5 ? n.join(', ') : `${n.slice(0, 3).join(', ')} … ${n[n.length - 1]}`;
-}
-
-function plural(n: number, one: string, many = `${one}s`): string {
-  return `${n} ${n === 1 ? one : many}`;
 }
 
 /** The value most of a shaft's other ends have (their layer, colour or block), undefined if none. */

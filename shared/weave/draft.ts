@@ -1,9 +1,13 @@
 import { z } from 'zod';
 import {
   DRAFT_SCHEMA_VERSION,
+  MAX_PROFILE_COLUMNS,
+  MAX_PROFILE_ROWS,
   MAX_SHAFTS,
   MAX_THREADS,
+  MAX_THREADS_PER_UNIT,
   MAX_TREADLES,
+  PROFILE_UNIT_IDS,
   type Draft,
   type Sett,
 } from './types';
@@ -62,6 +66,34 @@ const threadList = <T extends z.ZodType>(item: T, what: string) =>
 
 const shaftsOf = z.array(shaftNumber, { error: 'must be a list of shaft numbers, e.g. [1] or [1, 3]' });
 const treadlesOf = z.array(treadleNumber, { error: 'must be a list of treadle numbers, e.g. [1] or [1, 3]' });
+
+const blockNumber = wholeNumber('a block').min(1, { error: (iss) => `${String(iss.input)} is not a block number (they start at 1)` });
+/** A repeating colour order: at most this many colours before it repeats. */
+export const MAX_COLOUR_ORDER = 256;
+const colourOrder = z
+  .array(colourIndex, { error: 'must be a list of colour indices' })
+  .min(1, { error: 'needs at least one colour' })
+  .max(MAX_COLOUR_ORDER, { error: `has more than ${MAX_COLOUR_ORDER} colours` });
+const colourOrders = z.array(colourOrder, { error: 'must be a list of colour orders, one per set of the unit' }).max(MAX_LAYERS, { error: 'has too many sets' });
+const threadsPerUnit = (what: string) => wholeNumber(what).min(1, { error: 'must be at least 1' }).max(MAX_THREADS_PER_UNIT, { error: `is more than ${MAX_THREADS_PER_UNIT}` });
+
+/** The block design kept with a draft (types.ts BlockDesign); profile.ts checks it fits its unit. */
+const blockDesignSchema = z.strictObject(
+  {
+    unit: z.enum(PROFILE_UNIT_IDS, { error: `must be one of ${PROFILE_UNIT_IDS.map((u) => JSON.stringify(u)).join(', ')}` }),
+    threading: z
+      .array(blockNumber, { error: 'must be a list of block numbers' })
+      .min(1, { error: 'needs at least one column' })
+      .max(MAX_PROFILE_COLUMNS, { error: `has more than ${MAX_PROFILE_COLUMNS} columns` }),
+    treadling: z.array(z.array(blockNumber, { error: 'must be a list of block numbers' }), { error: 'must be a list of rows' }).max(MAX_PROFILE_ROWS, { error: `has more than ${MAX_PROFILE_ROWS} rows` }),
+    endsPerUnit: threadsPerUnit('ends per unit').optional(),
+    picksPerUnit: threadsPerUnit('picks per unit').optional(),
+    warpColors: colourOrders,
+    weftColors: colourOrders,
+    blockWarpColors: z.array(colourOrders, { error: 'must be a list, one entry per block' }).max(MAX_SHAFTS, { error: 'has more blocks than shafts' }).optional(),
+  },
+  { error: 'must be a block design object' },
+);
 
 /**
  * Shape of the versioned JSON draft document (docs/draft-format.md). It checks each field on its
@@ -137,6 +169,7 @@ export const draftDocumentSchema = z.strictObject(
         { error: 'must be an object with warp and weft lists' },
       )
       .optional(),
+    profile: blockDesignSchema.optional(),
   },
   { error: 'a draft must be a JSON object' },
 );
@@ -201,6 +234,7 @@ const FIELD_WORDS: Record<string, string> = {
   warpLayers: 'warp layers',
   weftLayers: 'weft layers',
   yarns: 'yarn',
+  profile: 'block design',
 };
 
 function pathText(path: readonly PropertyKey[]): string {
@@ -318,6 +352,7 @@ function crossCheck(raw: Record<string, unknown>, problems: Problems): void {
   if (paletteSize > 0) {
     checkColours(problems, 'warpColors', raw.warpColors, paletteSize);
     checkColours(problems, 'weftColors', raw.weftColors, paletteSize);
+    if (isRecord(raw.profile)) checkDesignColours(problems, raw.profile, paletteSize);
     if (Array.isArray(raw.yarns)) {
       raw.yarns.forEach((y: unknown, i) => {
         if (isRecord(y) && isInt(y.color) && y.color >= paletteSize) {
@@ -334,6 +369,24 @@ function crossCheck(raw: Record<string, unknown>, problems: Problems): void {
       ids.add(y.id);
     });
   }
+}
+
+/** Colours of the block design's orders must be in the draft's palette. */
+function checkDesignColours(problems: Problems, design: Record<string, unknown>, paletteSize: number): void {
+  const check = (orders: unknown, what: string) => {
+    if (!Array.isArray(orders)) return;
+    orders.forEach((order: unknown, set) => {
+      if (!Array.isArray(order)) return;
+      for (const v of order as unknown[]) {
+        if (isInt(v) && v >= paletteSize) {
+          problems.add(['profile'], `${what} order ${set + 1}: colour ${v} is not in the palette (its colours are numbered 0 to ${paletteSize - 1})`);
+        }
+      }
+    });
+  };
+  check(design.warpColors, 'warp colour');
+  check(design.weftColors, 'weft colour');
+  if (Array.isArray(design.blockWarpColors)) design.blockWarpColors.forEach((orders: unknown, b) => check(orders, `block ${b + 1} warp colour`));
 }
 
 function resolveControl(raw: Record<string, unknown>): Draft['control'] {
@@ -409,6 +462,7 @@ function withDefaults(doc: DraftDocument): Draft {
     notes: doc.notes ?? '',
   };
   if (doc.blocks) draft.blocks = doc.blocks;
+  if (doc.profile) draft.profile = doc.profile;
   return draft;
 }
 

@@ -13,4 +13,5 @@ export * from './layers';
 export * from './check-threading';
 export * from './colour-names';
 export * from './checks';
+export * from './words';
 export * from './compare';

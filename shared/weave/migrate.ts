@@ -17,7 +17,13 @@ export interface DraftMigration {
  * DRAFT_SCHEMA_VERSION. To change the format, bump DRAFT_SCHEMA_VERSION in types.ts, add a step
  * here, and keep a fixture of the old version in tests/shared/weave/fixtures/.
  */
-export const DRAFT_MIGRATIONS: readonly DraftMigration[] = [];
+export const DRAFT_MIGRATIONS: readonly DraftMigration[] = [
+  {
+    from: 1,
+    change: 'adds the block design a draft was expanded from (`profile`), optional; nothing stored before changes meaning',
+    up: (doc) => ({ ...doc }),
+  },
+];
 
 /**
  * Upgrades a stored draft document of any older schema version, one step at a time, to the

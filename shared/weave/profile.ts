@@ -1,36 +1,26 @@
 import { createDraft, DEFAULT_SETT } from './draft';
-import { MAX_SHAFTS, MAX_TREADLES, type Draft, type Sett } from './types';
+import { resolveLayers } from './layer-lists';
+import { liftPlanOf, toTreadlingDraft } from './liftplan';
+import { numberList, plural } from './words';
+import {
+  MAX_PROFILE_COLUMNS,
+  MAX_PROFILE_ROWS,
+  MAX_SHAFTS,
+  MAX_THREADS_PER_UNIT,
+  MAX_TREADLES,
+  type BlockDesign,
+  type Draft,
+  type ProfileUnitId,
+  type Sett,
+} from './types';
 
-/**
- * A block design: which block each group of ends and picks belongs to, expanded later with a unit.
- * Block numbers are 1-based, as the weaver counts them.
- */
-export interface Profile {
+/** A block design with the palette its colours point into, ready to expand. */
+export interface Profile extends Omit<BlockDesign, 'unit'> {
   name?: string;
-  /** Per profile column (block-end): the 1-based block whose unit fills it. */
-  threading: number[];
-  /**
-   * Per profile row (block-pick): the 1-based blocks where the pattern shows — for double weave,
-   * where layer 1 is on top; every other block has layer 2 on top.
-   */
-  treadling: number[][];
-  /** Ends per profile column; a whole multiple of the unit's own width. Default: the unit's width. */
-  endsPerUnit?: number;
-  /** Picks per profile row; a whole multiple of the unit's own height. Default: the unit's height. */
-  picksPerUnit?: number;
-  /** '#rrggbb' colours the orders below point into. */
+  /** '#rrggbb' colours the orders point into. */
   palette: string[];
-  /**
-   * Per warp set of the unit (see {@link ProfileUnit.warpSets}): a colour order as palette indices,
-   * repeated over the ends of that set. Double weave: [layer 1 order, layer 2 order].
-   */
-  warpColors: number[][];
-  /** Per weft set of the unit, as for the warp. */
-  weftColors: number[][];
   sett?: Sett;
 }
-
-export type ProfileUnitId = 'double-weave' | 'summer-and-winter';
 
 /** A unit the editor can offer for expanding a profile. */
 export interface ProfileUnit {
@@ -205,6 +195,10 @@ function checkProfile(profile: Profile, unit: ProfileUnit): { endsPerUnit: numbe
   if (!Number.isInteger(picksPerUnit) || picksPerUnit < unit.height || picksPerUnit % unit.height !== 0) {
     problems.push(`picks per unit must be a whole multiple of ${unit.height} for ${unit.name.toLowerCase()}`);
   }
+  if (profile.threading.length === 0) problems.push('give the profile at least one column');
+  if (profile.threading.length > MAX_PROFILE_COLUMNS) problems.push(`${profile.threading.length} profile columns is more than ${MAX_PROFILE_COLUMNS}`);
+  if (profile.treadling.length > MAX_PROFILE_ROWS) problems.push(`${profile.treadling.length} profile rows is more than ${MAX_PROFILE_ROWS}`);
+  if (endsPerUnit > MAX_THREADS_PER_UNIT || picksPerUnit > MAX_THREADS_PER_UNIT) problems.push(`a profile column or row can stand for at most ${MAX_THREADS_PER_UNIT} ends or picks`);
   let blocks = 0;
   profile.threading.forEach((b, i) => {
     if (!Number.isInteger(b) || b < 1) problems.push(`profile column ${i + 1}: ${String(b)} is not a block number (they start at 1)`);
@@ -234,6 +228,9 @@ function checkProfile(profile: Profile, unit: ProfileUnit): { endsPerUnit: numbe
   };
   checkOrders(profile.warpColors, unit.warpSets, 'warp');
   checkOrders(profile.weftColors, unit.weftSets, 'weft');
+  profile.blockWarpColors?.forEach((orders, b) => {
+    if (orders && orders.length > 0) checkOrders(orders, unit.warpSets, `block ${b + 1} warp`);
+  });
   if (problems.length > 0) throw new Error(`The profile cannot be expanded: ${problems.join('; ')}`);
   return { endsPerUnit, picksPerUnit, blocks };
 }
@@ -258,12 +255,15 @@ export function expandProfile(profile: Profile, unitId: ProfileUnitId, options: 
   const warpColors: number[] = [];
   const warpLayers: number[] = [];
   const warpBlocks: number[] = [];
+  // Each set counts its ends across the whole warp, so a colour order runs on unbroken from block to block.
   const warpSetCount = new Array<number>(unit.warpSets.length).fill(0);
   for (const block of profile.threading) {
+    const own = profile.blockWarpColors?.[block - 1];
+    const orders = own && own.length > 0 ? own : profile.warpColors;
     for (let i = 0; i < endsPerUnit; i++) {
       const t = recipe.ends[i % unit.width];
       threading.push([t.shared ? t.shaft + 1 : unit.sharedShafts + (block - 1) * unit.shaftsPerBlock + t.shaft + 1]);
-      const order = profile.warpColors[t.set];
+      const order = orders[t.set];
       warpColors.push(order[warpSetCount[t.set]++ % order.length]);
       warpLayers.push(t.set + 1);
       warpBlocks.push(block);
@@ -327,4 +327,127 @@ function tieUpDistinctLifts(lifts: number[][], treadles: number): { tieup: numbe
   }
   while (tieup.length < treadles) tieup.push([]);
   return { tieup, treadling };
+}
+
+/** A block design expanded into a draft, and what that did, for the weaver. */
+export interface AppliedProfile {
+  draft: Draft;
+  /** What was expanded, kept and replaced, in sentences. */
+  summary: string;
+}
+
+/**
+ * Expands a block design into an existing draft, keeping what the design does not decide: the
+ * name, palette, yarns, sett and notes, and the design itself (to reopen). When the draft was
+ * expanded before (it has block links), ends and picks the weaver added before or after the linked
+ * area are kept as drawn; the rest is replaced, and the summary names the hand edits inside the
+ * old design's area that were replaced. A treadled draft stays treadled when its treadles suffice.
+ *
+ * @example applyProfile(draft, { ...draft.profile!, threading: [1, 2, 2, 1] }).summary
+ * // "Expanded into 16 ends and 16 picks on 8 shafts. Kept 4 ends drawn outside the block design."
+ * @throws Error when the design cannot be expanded (see {@link expandProfile}).
+ */
+export function applyProfile(draft: Draft, design: BlockDesign): AppliedProfile {
+  const expand = (d: BlockDesign) => expandProfile({ ...d, palette: draft.palette, name: draft.name, sett: draft.sett }, d.unit);
+  const next = expand(design);
+  const ends = linkedSpan(draft.blocks?.warp, draft.threading.length);
+  const oldLifts = risingLifts(draft);
+  const picks = linkedSpan(draft.blocks?.weft, oldLifts.length);
+  const oldWarpLayers = resolveLayerList(draft.warpLayers, draft.threading.length);
+  const oldWeftLayers = resolveLayerList(draft.weftLayers, oldLifts.length);
+  const newWarpLayers = resolveLayerList(next.warpLayers, next.threading.length);
+  const newWeftLayers = resolveLayerList(next.weftLayers, next.liftplan.length);
+  const around = <T>(old: readonly T[], span: Span, middle: readonly T[]): T[] => [...old.slice(0, span.first), ...middle, ...old.slice(span.last + 1)];
+
+  const threading = around(draft.threading, ends, next.threading);
+  const liftplan = around(oldLifts, picks, next.liftplan);
+  const warpLayers = around(oldWarpLayers, ends, newWarpLayers);
+  const weftLayers = around(oldWeftLayers, picks, newWeftLayers);
+  const shafts = Math.max(next.shafts, ...threading.flat(), ...liftplan.flat());
+  let result = createDraft({
+    ...draft,
+    shafts,
+    shed: 'rising',
+    control: 'liftplan',
+    treadles: 0,
+    tieup: [],
+    treadling: [],
+    liftplan,
+    threading,
+    warpColors: around(draft.warpColors, ends, next.warpColors),
+    weftColors: around(draft.weftColors, picks, next.weftColors),
+    warpLayers: warpLayers.every((l) => l === 1) && weftLayers.every((l) => l === 1) ? [] : warpLayers,
+    weftLayers: warpLayers.every((l) => l === 1) && weftLayers.every((l) => l === 1) ? [] : weftLayers,
+    blocks: { warp: around(new Array<number>(draft.threading.length).fill(0), ends, next.blocks!.warp), weft: around(new Array<number>(oldLifts.length).fill(0), picks, next.blocks!.weft) },
+    profile: design,
+  });
+  if (draft.control === 'treadling' && draft.treadles > 0) {
+    const treadled = toTreadlingDraft(result, draft.treadles);
+    if (treadled.ok) result = treadled.draft;
+  }
+
+  const sentences = [`Expanded into ${plural(next.threading.length, 'end')} and ${plural(next.liftplan.length, 'pick')} on ${plural(shafts, 'shaft')}.`];
+  const keptEnds = draft.threading.length - (ends.last - ends.first + 1);
+  const keptPicks = oldLifts.length - (picks.last - picks.first + 1);
+  if (keptEnds > 0 || keptPicks > 0) {
+    sentences.push(`Kept ${[keptEnds > 0 ? plural(keptEnds, 'end') : '', keptPicks > 0 ? plural(keptPicks, 'pick') : ''].filter(Boolean).join(' and ')} drawn outside the block design.`);
+  }
+  if (draft.profile && draft.blocks) {
+    // Hand edits: threads of the old design's area that differ from what the old design expands to.
+    let before: Draft | undefined;
+    try {
+      before = expand(draft.profile);
+    } catch {
+      before = undefined;
+    }
+    if (before) {
+      const warpLayersBefore = resolveLayerList(before.warpLayers, before.threading.length);
+      const weftLayersBefore = resolveLayerList(before.weftLayers, before.liftplan.length);
+      const editedEnds = changedWithin(ends, (e, i) => sameList(draft.threading[e], before.threading[i]) && draft.warpColors[e] === before.warpColors[i] && oldWarpLayers[e] === warpLayersBefore[i]);
+      const editedPicks = changedWithin(picks, (p, i) => sameList(oldLifts[p], before.liftplan[i]) && draft.weftColors[p] === before.weftColors[i] && oldWeftLayers[p] === weftLayersBefore[i]);
+      if (editedEnds.length > 0 || editedPicks.length > 0) {
+        const what = [editedEnds.length > 0 ? `${editedEnds.length === 1 ? 'end' : 'ends'} ${numberList(editedEnds)}` : '', editedPicks.length > 0 ? `${editedPicks.length === 1 ? 'pick' : 'picks'} ${numberList(editedPicks)}` : ''];
+        sentences.push(`Replaced your changes to ${what.filter(Boolean).join(' and ')} inside the old design.`);
+      }
+    }
+  } else if (draft.threading.length > 0 || oldLifts.length > 0) {
+    sentences.push(`Replaced the ${plural(draft.threading.length, 'end')} and ${plural(oldLifts.length, 'pick')} drawn before.`);
+  }
+  const names = draft.yarns.map((y) => y.name);
+  if (names.length > 0) sentences.push(`Yarns kept: ${names.join(', ')}.`);
+  return { draft: result, summary: sentences.join(' ') };
+}
+
+/** First and last thread of a run, inclusive; first > last for none. */
+interface Span {
+  first: number;
+  last: number;
+}
+
+/** The threads from the first to the last linked to a block; all of them when there are no links. */
+function linkedSpan(links: readonly number[] | undefined, n: number): Span {
+  if (!links || links.length !== n || !links.some((b) => b > 0)) return { first: 0, last: n - 1 };
+  return { first: links.findIndex((b) => b > 0), last: n - 1 - [...links].reverse().findIndex((b) => b > 0) };
+}
+
+/** Threads of a span (0-based) where `same(thread, positionInSpan)` fails, or that the old design did not reach. */
+function changedWithin(span: Span, same: (index: number, i: number) => boolean): number[] {
+  const out: number[] = [];
+  for (let x = span.first; x <= span.last; x++) if (!same(x, x - span.first)) out.push(x);
+  return out;
+}
+
+function sameList(a: readonly number[] | undefined, b: readonly number[] | undefined): boolean {
+  return a !== undefined && b !== undefined && a.length === b.length && a.every((v, i) => v === b[i]);
+}
+
+/** The draft's picks as the shafts raised on a rising shed. */
+function risingLifts(draft: Draft): number[][] {
+  const lifts = liftPlanOf(draft);
+  if (draft.shed === 'rising') return lifts;
+  return lifts.map((l) => Array.from({ length: draft.shafts }, (_, i) => i + 1).filter((s) => !l.includes(s)));
+}
+
+function resolveLayerList(list: readonly number[], n: number): number[] {
+  return Array.from(resolveLayers(list, n));
 }

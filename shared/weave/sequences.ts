@@ -114,3 +114,31 @@ export function treadleDraftAsDrawnIn(draft: Draft, options: { tieup?: number[][
   if (draft.blocks) result.blocks = { warp: draft.blocks.warp, weft: [...draft.blocks.warp] };
   return result;
 }
+
+/** How "Repeat with a change" alters the run for its changed copies. */
+export type RunChange = 'reverse' | 'swap';
+
+/**
+ * The run changed: 'reverse' reads it backwards; 'swap' exchanges its first two different values
+ * (two colours of a colour order, two shafts of a threading) wherever they occur.
+ *
+ * @example changedRun(['dark', 'light', 'dark', 'light'], 'reverse') // ['light', 'dark', 'light', 'dark']
+ */
+export function changedRun<T>(run: readonly T[], change: RunChange): T[] {
+  if (change === 'reverse') return reverse(run);
+  const a = run[0];
+  const i = run.findIndex((v) => v !== a);
+  if (i < 0) return [...run];
+  const b = run[i];
+  return run.map((v) => (v === a ? b : v === b ? a : v));
+}
+
+/**
+ * "Repeat with a change": the run `times` times, then its changed copy `times` times, that pair
+ * `pairs` times over. A four-end colour unit that reverses every 12 repeats is
+ * `repeatWithChange(unit, 12, 'reverse')`.
+ */
+export function repeatWithChange<T>(run: readonly T[], times: number, change: RunChange, pairs = 1): T[] {
+  const pair = [...repeat(run, times), ...repeat(changedRun(run, change), times)];
+  return repeat(pair, pairs);
+}

@@ -4,7 +4,7 @@
  * Counted things a weaver sees (shafts, treadles, layers, blocks) are 1-based numbers;
  * positions in arrays (end, pick, palette entry) are 0-based indices.
  */
-export const DRAFT_SCHEMA_VERSION = 1;
+export const DRAFT_SCHEMA_VERSION = 2;
 
 export const MAX_SHAFTS = 32;
 export const MAX_TREADLES = 32;
@@ -38,6 +38,46 @@ export interface BlockLinks {
   weft: number[];
 }
 
+/** Units a block design can be expanded with (profile.ts describes each). */
+export const PROFILE_UNIT_IDS = ['double-weave', 'summer-and-winter'] as const;
+export type ProfileUnitId = (typeof PROFILE_UNIT_IDS)[number];
+
+/** Most profile columns (block-ends) and rows (block-picks) a block design may have. */
+export const MAX_PROFILE_COLUMNS = 200;
+export const MAX_PROFILE_ROWS = 200;
+/** Most ends (or picks) one profile column (or row) may stand for. */
+export const MAX_THREADS_PER_UNIT = 64;
+
+/**
+ * A block design: which block each group of ends and picks belongs to, expanded with a unit into
+ * the full draft (profile.ts). Kept in the draft it was expanded into, so it can be reopened.
+ * Block numbers are 1-based; colours are indices into the draft's palette.
+ */
+export interface BlockDesign {
+  unit: ProfileUnitId;
+  /** Per profile column (block-end): the block whose unit fills it. */
+  threading: number[];
+  /**
+   * Per profile row (block-pick), a block lift plan: the blocks where the pattern shows (for double
+   * weave, where layer 1 is on top; every other block has layer 2 on top).
+   */
+  treadling: number[][];
+  /** Ends per profile column; a whole multiple of the unit's own width. Default: the unit's width. */
+  endsPerUnit?: number;
+  /** Picks per profile row; a whole multiple of the unit's own height. Default: the unit's height. */
+  picksPerUnit?: number;
+  /**
+   * Per warp set of the unit (double weave: layer 1, layer 2): a colour order, repeated over the
+   * ends of that set, so [dark, light] in one layer and [dark] in the other weaves colour-and-weave
+   * inside each block.
+   */
+  warpColors: number[][];
+  /** Per weft set of the unit, as for the warp. */
+  weftColors: number[][];
+  /** Per block (entry block − 1): its own warp colour orders per set; a missing or empty entry uses `warpColors`. */
+  blockWarpColors?: number[][][];
+}
+
 export interface Draft {
   schemaVersion: typeof DRAFT_SCHEMA_VERSION;
   name: string;
@@ -68,4 +108,6 @@ export interface Draft {
   yarns: DraftYarn[];
   notes: string;
   blocks?: BlockLinks;
+  /** The block design the draft was expanded from, to reopen and change. */
+  profile?: BlockDesign;
 }

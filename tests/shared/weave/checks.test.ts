@@ -1,7 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { checkThreading } from '../../../shared/weave/check-threading';
-import { countByKind, findChecks, foundProblems, groupChecks, numberList, type FoundProblem } from '../../../shared/weave/checks';
+import { countByKind, findChecks, foundProblems, groupChecks, type FoundProblem } from '../../../shared/weave/checks';
+import { numberList } from '../../../shared/weave/words';
 import { findFloats } from '../../../shared/weave/floats';
 import { simulateLayers } from '../../../shared/weave/layers';
 import { expandProfile } from '../../../shared/weave/profile';

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { compareDrafts, comparisonImage, COMPARE_COLOURS, computeDrawdown, type Draft } from '../../../shared/weave';
+import { compareDrafts, comparisonImage, COMPARE_COLOURS, computeDrawdown, DRAFT_SCHEMA_VERSION, type Draft } from '../../../shared/weave';
 import { draftArb } from './arbitraries';
 
 /** Slow oracle: every cell of the larger size, one isUp at a time. */
@@ -70,7 +70,7 @@ describe('compareDrafts', () => {
 
   it('counts every end and pick as changed when only the palette is recoloured', () => {
     const d: Draft = {
-      schemaVersion: 1, name: 'tabby', shafts: 2, treadles: 2, shed: 'rising', control: 'treadling',
+      schemaVersion: DRAFT_SCHEMA_VERSION, name: 'tabby', shafts: 2, treadles: 2, shed: 'rising', control: 'treadling',
       threading: [[1], [2], [1], [2]], tieup: [[1], [2]], treadling: [[1], [2]], liftplan: [],
       palette: ['#000000', '#ffffff'], warpColors: [0, 0, 0, 0], weftColors: [1, 1], warpLayers: [], weftLayers: [],
       sett: { warp: 10, weft: 10, unit: 'inch' }, yarns: [], notes: '',

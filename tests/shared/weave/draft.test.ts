@@ -12,7 +12,7 @@ import {
   parseDraft,
 } from '../../../shared/weave/draft';
 import { asLists, straightDraw } from '../../../shared/weave/sequences';
-import type { Draft } from '../../../shared/weave/types';
+import { DRAFT_SCHEMA_VERSION, type Draft } from '../../../shared/weave/types';
 import { draftArb } from './arbitraries';
 
 function problemsOf(json: unknown): string[] {
@@ -118,8 +118,8 @@ describe('parseDraft', () => {
 
   it('names missing fields and a version it does not read', () => {
     expect(problemsOf({})).toEqual(['schemaVersion: is missing', 'shafts: is missing', 'threading: is missing']);
-    expect(problemsOf({ schemaVersion: 2, shafts: 4, threading: [] })).toEqual([
-      'schemaVersion: 2 is not a version this program reads (it reads 1)',
+    expect(problemsOf({ schemaVersion: DRAFT_SCHEMA_VERSION + 1, shafts: 4, threading: [] })).toEqual([
+      `schemaVersion: ${DRAFT_SCHEMA_VERSION + 1} is not a version this program reads (it reads ${DRAFT_SCHEMA_VERSION})`,
     ]);
     expect(problemsOf('not a draft')).toEqual(['draft: a draft must be a JSON object']);
   });
@@ -144,7 +144,7 @@ describe('parseDraft', () => {
   it('fills defaults for omitted optional fields', () => {
     const d = parseDraft({ schemaVersion: 1, shafts: 4, threading: [[1], [2]], treadles: 1, treadling: [[1], []] });
     expect(d).toEqual({
-      schemaVersion: 1,
+      schemaVersion: DRAFT_SCHEMA_VERSION, // a format-1 document, upgraded
       name: 'Untitled draft',
       shafts: 4,
       treadles: 1,

@@ -2,7 +2,8 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { parseDraft } from '../../../shared/weave/draft';
 import { computeDrawdown, type Drawdown } from '../../../shared/weave/drawdown';
-import { expandProfile, maxBlocks, PROFILE_UNITS, profileUnit, type Profile, type ProfileUnitId } from '../../../shared/weave/profile';
+import { expandProfile, maxBlocks, PROFILE_UNITS, profileUnit, type Profile } from '../../../shared/weave/profile';
+import type { ProfileUnitId } from '../../../shared/weave/types';
 import { doubleWeaveProfile } from '../../helpers/draft-fixtures';
 
 const PALETTE = ['#22303c', '#efe6d2', '#9a3b2e'];
