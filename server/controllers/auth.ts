@@ -2,7 +2,7 @@ import type { AuthResponse, ForgotBody, ResetBody, SignInBody, SignUpBody } from
 import { HttpError } from '../http/errors';
 import { authenticateLocal, logIn, logOut } from '../middleware/passport';
 import type { Ctx } from '../http/handler';
-import { requestPasswordReset, resetPassword, signUp as createAccount } from '../services/auth';
+import { endSessionsOf, requestPasswordReset, resetPassword, signUp as createAccount } from '../services/auth';
 import { loadSessionUser } from '../services/users';
 
 type In<B> = Ctx<B, unknown, unknown>;
@@ -53,8 +53,10 @@ export async function forgot({ app, body, res }: In<ForgotBody>) {
   res.status(202).json({ ok: true });
 }
 
+/** A new password ends every session the account had, and signs in this one afresh. */
 export async function reset(ctx: In<ResetBody>) {
   const user = await resetPassword(ctx.app.models, ctx.body);
+  await endSessionsOf(ctx.app.models, ctx.app.sessionStore, user.id);
   await logIn(ctx.req, user);
   ctx.res.json(await signedIn(ctx, user.id));
 }

@@ -27,5 +27,5 @@ export async function invite({ app, req, res, params, body }: Ctx<InviteBody, un
 }
 
 export async function accept({ app, req, res, body }: Ctx<AcceptInviteBody, unknown, unknown>) {
-  res.json(await acceptInvitation(app.models, req.user!.id, body.token));
+  res.json(await acceptInvitation(app.models, req.user!, body.token));
 }

@@ -13,7 +13,8 @@ export function createSequelize(db: DbConfig): Sequelize {
     define: { charset: 'utf8mb4', collate: 'utf8mb4_unicode_ci' },
     // When MariaDB is down a request must fail fast (503) rather than hang: a refused or silent
     // connection attempt gives up after 3 s, and a request waits at most 5 s for a pooled connection.
-    dialectOptions: { connectTimeout: 3000 },
+    // logParam: the driver leaves query values out of its error messages (they hold weavers' text).
+    dialectOptions: { connectTimeout: 3000, logParam: false },
     pool: { max: 10, min: 0, idle: 10_000, acquire: 5000 },
   });
   applyMetaFix(sequelize);

@@ -9,7 +9,7 @@ import type { AppContext } from '../context';
  * Who may call a route. Studio roles apply to the route's resource (the studio or the draft named by
  * `:id`); a signed-in non-member gets 404 for those, as if the resource did not exist.
  */
-export type MinimumRole = 'public' | 'user' | 'admin' | StudioRole;
+export type MinimumRole = 'public' | 'user' | StudioRole;
 
 export interface Ctx<B, Q, P> {
   req: Request;
@@ -30,9 +30,11 @@ export interface RouteSpec {
   minimumRole: MinimumRole;
   /** What `:id` names, for studio roles. */
   resource?: 'studio' | 'draft';
+  /** A tool for developers: the route exists only in development mode (config.dev). */
+  devOnly?: boolean;
   /** A member acting on their own `:userId` (leaving a studio) needs only 'viewer'. */
   allowSelf?: boolean;
-  /** Reads a multipart file (after the sign-in check, before validation); see middleware/upload. */
+  /** Reads a multipart file (after the access check, before validation); see middleware/upload. */
   upload?: RequestHandler;
   /** Rate-limited routes share a counter per limiter and client address. */
   limiter?: 'signIn' | 'passwordReset';

@@ -4,6 +4,10 @@ import type { UserRow } from './user';
 
 export interface DraftAttributes {
   id: number;
+  /**
+   * Who made the draft. A personal draft is theirs; a studio draft is the studio's, and this only
+   * names its author (the studio role decides what anyone may do with it).
+   */
   ownerId: number;
   /** null for a personal draft. */
   studioId: number | null;

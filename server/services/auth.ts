@@ -1,4 +1,4 @@
-import { Op, UniqueConstraintError } from 'sequelize';
+import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
 import type { ResetBody, SignUpBody } from '../../shared/api/auth';
 import type { Mailer } from '../mail/mailer';
 import { conflict, HttpError } from '../http/errors';
@@ -67,8 +67,29 @@ export async function resetPassword(models: Models, body: ResetBody, now = new D
     const found = await models.User.findByPk(reset.userId, { transaction });
     if (!found) return null;
     await found.update({ passwordHash }, { transaction });
+    // Whoever asked for the other links, this one settled it: they open nothing now.
+    await models.PasswordReset.update({ usedAt: now }, { where: { userId: found.id, usedAt: null }, transaction });
     return found;
   });
   if (!user) throw invalid;
   return user;
+}
+
+/** The part of the session store that ends a session, in every process that keeps a copy of it. */
+export interface SessionEnder {
+  destroy(sid: string, callback?: (err?: unknown) => void): void;
+}
+
+/**
+ * Ends every session signed in as the user: after a password reset, whoever held the old password
+ * (or a stolen cookie) is signed out. Sessions keep only the user id, in passport's part of the data.
+ */
+export async function endSessionsOf(models: Models, sessions: SessionEnder, userId: number): Promise<void> {
+  const rows = await models.Session.sequelize!.query<{ sid: string }>(
+    "SELECT `sid` FROM `sessions` WHERE JSON_VALUE(`data`, '$.passport.user') = ?",
+    { replacements: [String(userId)], type: QueryTypes.SELECT },
+  );
+  for (const { sid } of rows) {
+    await new Promise<void>((resolve, reject) => sessions.destroy(sid, (err) => (err ? reject(err) : resolve())));
+  }
 }

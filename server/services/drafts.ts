@@ -45,12 +45,14 @@ export async function createDraft(
 
 const memberStudioIds = async (models: Models, userId: number) => [...(await models.access.studioRoles(userId)).keys()];
 
-/** The condition for drafts a user can see: their own, and those of their studios. */
+/**
+ * The condition for drafts a user can see: their personal drafts, and those of their studios. A
+ * studio draft is the studio's: its author sees it only while a member.
+ */
 export async function visibleDraftsWhere(models: Models, userId: number): Promise<WhereOptions> {
   const studioIds = await memberStudioIds(models, userId);
-  return studioIds.length > 0
-    ? { [Op.or]: [{ ownerId: userId }, { studioId: { [Op.in]: studioIds } }] }
-    : { ownerId: userId };
+  const personal = { ownerId: userId, studioId: null };
+  return studioIds.length > 0 ? { [Op.or]: [personal, { studioId: { [Op.in]: studioIds } }] } : personal;
 }
 
 /** The columns a library entry shows, with the names of the draft's owner and studio. */
@@ -104,7 +106,8 @@ export function listDraftsJson(models: Models, userId: number, query: DraftListQ
 async function readLibraryPage(models: Models, userId: number, query: DraftListQuery): Promise<DraftListResponse> {
   // What visibleDraftsWhere says, in SQL.
   const studioIds = await memberStudioIds(models, userId);
-  const filters = [studioIds.length > 0 ? `(\`ownerId\` = ? OR \`studioId\` IN (${studioIds.map(() => '?').join(', ')}))` : '`ownerId` = ?'];
+  const personal = '(`ownerId` = ? AND `studioId` IS NULL)';
+  const filters = [studioIds.length > 0 ? `(${personal} OR \`studioId\` IN (${studioIds.map(() => '?').join(', ')}))` : personal];
   const values: unknown[] = [userId, ...studioIds];
   const filter = (sql: string, value: unknown) => {
     filters.push(sql);
@@ -140,15 +143,15 @@ async function readLibraryPage(models: Models, userId: number, query: DraftListQ
 }
 
 /**
- * The user's role on a draft: 'owner' for its owner, else their role in the draft's studio;
- * null when they cannot see it (which the routes answer with 404).
+ * The user's role on a draft: in a studio, their role in the studio, whoever made the draft (its
+ * author keeps no rights of their own once removed or demoted); a personal draft is its owner's
+ * alone. null when they cannot see it (which the routes answer with 404).
  */
 export async function draftRole(models: Models, userId: number, draftId: number): Promise<StudioRole | null> {
   const row = await models.access.draftOwnership(draftId);
   if (!row) return null;
-  if (row.ownerId === userId) return 'owner';
-  if (row.studioId === null) return null;
-  return studioRole(models, userId, row.studioId);
+  if (row.studioId !== null) return studioRole(models, userId, row.studioId);
+  return row.ownerId === userId ? 'owner' : null;
 }
 
 /** One draft with its document, for a user whose role the access check already found. */

@@ -2,7 +2,7 @@ import { Op } from 'sequelize';
 import { roleRank } from '../../shared/api/auth';
 import type { AcceptInviteResponse, InviteBody } from '../../shared/api';
 import type { Mailer } from '../mail/mailer';
-import { HttpError, notFound } from '../http/errors';
+import { forbidden, HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import { newToken, tokenHash } from './tokens';
 
@@ -29,15 +29,23 @@ export async function inviteToStudio(
 }
 
 /**
- * Joins the signed-in user to the invitation's studio. The link is the proof: it works once, within
- * its time, for whoever holds it (the mailbox it was sent to). A member keeps the higher of their role
- * and the invited one.
+ * Joins the signed-in user to the invitation's studio. It works once, within its time, and only for
+ * the account with the invited e-mail: a forwarded or leaked link admits nobody else, and a refusal
+ * leaves the invitation open for the person it was meant for. A member keeps the higher of their
+ * role and the invited one.
  */
-export async function acceptInvitation(models: Models, userId: number, token: string, now = new Date()): Promise<AcceptInviteResponse> {
+export async function acceptInvitation(
+  models: Models, user: { id: number; email: string }, token: string, now = new Date(),
+): Promise<AcceptInviteResponse> {
   const invalid = new HttpError(400, 'bad_request', 'This invitation is invalid, used or expired; ask for a new one');
+  const userId = user.id;
   return models.Invitation.sequelize!.transaction(async (transaction) => {
     const invite = await models.Invitation.findOne({ where: { tokenHash: tokenHash(token) }, transaction });
-    if (!invite) throw invalid;
+    if (!invite || invite.acceptedAt !== null || invite.expiresAt <= now) throw invalid;
+    if (invite.email.toLowerCase() !== user.email.toLowerCase()) {
+      throw forbidden('This invitation was sent to another e-mail address. Sign in with the account for that address, '
+        + 'or sign up with it, and open the link again.');
+    }
     // A conditional update claims the invitation, so two requests at once cannot both use it.
     const [claimed] = await models.Invitation.update(
       { acceptedAt: now, acceptedById: userId },

@@ -60,10 +60,13 @@ export async function getProgress(models: Models, draftId: number, userId: numbe
 /**
  * Moves this weaver's place marker. A save whose `movedAt` is older than the stored one (a save
  * queued offline arriving after a newer one from another device) changes nothing, and the stored
- * place is returned so the client can follow it.
+ * place is returned so the client can follow it. A time ahead of the server's clock (a device set
+ * wrong) counts as now: stored as it came, it would outrank every later move until that time came.
  */
-export async function saveProgress(models: Models, draftId: number, userId: number, body: ProgressBody): Promise<Progress> {
-  const movedAt = body.movedAt ? new Date(body.movedAt) : new Date();
+export async function saveProgress(
+  models: Models, draftId: number, userId: number, body: ProgressBody, now = new Date(),
+): Promise<Progress> {
+  const movedAt = body.movedAt && Date.parse(body.movedAt) < now.getTime() ? new Date(body.movedAt) : now;
   return models.LoomProgress.sequelize!.transaction(async (transaction) => {
     const row = await models.LoomProgress.findOne({ where: { draftId, userId }, transaction, lock: transaction.LOCK.UPDATE });
     if (!row) {

@@ -12,6 +12,7 @@ import {
   type Sett,
 } from './types';
 import { migrateDraft } from './migrate';
+import { BROKEN_TEXT_MESSAGE, hasLoneSurrogate } from './text';
 
 /** Layers a draft may use: two shafts per plain-weave layer on 32 shafts gives 16. */
 export const MAX_LAYERS = 16;
@@ -41,6 +42,10 @@ export class DraftError extends Error {
     this.problems = problems;
   }
 }
+
+/** Text the weaver wrote: at most `max` characters, and whole characters only (see ./text). */
+const text = (max: number, tooLong: string) =>
+  z.string({ error: 'must be text' }).max(max, { error: tooLong }).refine((s) => !hasLoneSurrogate(s), { error: BROKEN_TEXT_MESSAGE });
 
 const wholeNumber = (what: string) =>
   z.number({ error: `${what} must be a number` }).int({ error: `${what} must be a whole number` });
@@ -107,7 +112,7 @@ export const draftDocumentSchema = z.strictObject(
           ? 'is missing'
           : `${JSON.stringify(iss.input)} is not a version this program reads (it reads ${DRAFT_SCHEMA_VERSION})`,
     }),
-    name: z.string({ error: 'must be text' }).max(MAX_NAME_LENGTH, { error: `is longer than ${MAX_NAME_LENGTH} characters` }).optional(),
+    name: text(MAX_NAME_LENGTH, `is longer than ${MAX_NAME_LENGTH} characters`).optional(),
     shafts: wholeNumber('the number of shafts')
       .min(1, { error: 'a draft needs at least 1 shaft' })
       .max(MAX_SHAFTS, { error: (iss) => `${String(iss.input)} shafts is more than ${MAX_SHAFTS}, the most a draft can have` }),
@@ -149,8 +154,8 @@ export const draftDocumentSchema = z.strictObject(
       .array(
         z.strictObject(
           {
-            id: z.string({ error: 'must be text' }).min(1, { error: 'cannot be empty' }).max(100, { error: 'is too long' }),
-            name: z.string({ error: 'must be text' }).max(MAX_NAME_LENGTH, { error: 'is too long' }),
+            id: text(100, 'is too long').min(1, { error: 'cannot be empty' }),
+            name: text(MAX_NAME_LENGTH, 'is too long'),
             color: colourIndex,
           },
           { error: 'must be an object with id, name and color' },
@@ -159,7 +164,7 @@ export const draftDocumentSchema = z.strictObject(
       )
       .max(MAX_PALETTE, { error: 'has too many yarns' })
       .optional(),
-    notes: z.string({ error: 'must be text' }).max(MAX_NOTES_LENGTH, { error: `is longer than ${MAX_NOTES_LENGTH} characters` }).optional(),
+    notes: text(MAX_NOTES_LENGTH, `is longer than ${MAX_NOTES_LENGTH} characters`).optional(),
     blocks: z
       .strictObject(
         {

@@ -15,3 +15,4 @@ export * from './colour-names';
 export * from './checks';
 export * from './words';
 export * from './compare';
+export * from './text';

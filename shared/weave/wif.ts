@@ -416,7 +416,8 @@ export function readWif(text: string): WifReadResult {
 
   const candidate = {
     schemaVersion: DRAFT_SCHEMA_VERSION,
-    name: title ? readText(title.value).slice(0, 200) : 'Imported draft',
+    // No title: left empty, for the caller to name the draft (after its file, say).
+    name: title ? readText(title.value).slice(0, 200) : '',
     shafts: shaftsGiven ?? usedShafts,
     treadles,
     shed: r.bool('WEAVING', 'Rising Shed', true) ? 'rising' : 'sinking',

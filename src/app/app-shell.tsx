@@ -15,7 +15,6 @@ const navItems = [
 /** The frame of every signed-in page: product name, the areas, who is signed in, sign out. */
 export function AppShell({ user, children }: { user: SessionUser; children: ReactNode }) {
   const signOut = useSignOut();
-  const items = user.isAdmin ? [...navItems, { to: '/admin/mails', label: 'Mails' }] : navItems;
 
   return (
     <div className="flex min-h-screen flex-col">
@@ -29,7 +28,7 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
           </Link>
           <nav aria-label="Main">
             <ul className="flex gap-1">
-              {items.map((item) => (
+              {navItems.map((item) => (
                 <li key={item.to}>
                   {/* The current area is bold and underlined, not only a different colour. */}
                   <NavLink

@@ -1,6 +1,7 @@
 import type { Express } from 'express';
 import request from 'supertest';
 import type { StudioRole } from '../../shared/api/auth';
+import type { CapturedMail } from '../../shared/api/dev';
 import { createApp } from '../../server/app';
 import type { Config } from '../../server/config';
 import { createContext, type AppContext } from '../../server/context';
@@ -67,6 +68,11 @@ export interface TestServer {
   client(): TestClient;
   /** Creates an account directly (no HTTP), with a unique e-mail. */
   createUser(options?: { name?: string; isAdmin?: boolean; email?: string; password?: string }): Promise<UserRow>;
+  /**
+   * The newest mail to `email` (whose subject matches `subject`, if given), waiting for it: mails
+   * are sent after the request that causes them has been answered.
+   */
+  mailTo(email: string, subject?: RegExp): Promise<CapturedMail>;
   /** A fresh user signed in, holding `role` in a fresh studio (owned by another fresh user unless role is owner). */
   signInWithRole(role: StudioRole): Promise<{ client: TestClient; user: UserRow; studioId: number; ownerId: number }>;
   close(): Promise<void>;
@@ -98,6 +104,15 @@ export async function startTestServer(overrides: Partial<Config> = {}): Promise<
     smtp,
     client: () => new TestClient(app),
     createUser,
+    async mailTo(email, subject) {
+      const started = Date.now();
+      for (;;) {
+        const mail = smtp.mails().find((m) => m.to.includes(email) && (!subject || subject.test(m.subject)));
+        if (mail) return mail;
+        if (Date.now() - started > 10_000) throw new Error(`no mail to ${email} arrived`);
+        await new Promise((resolve) => setTimeout(resolve, 20));
+      }
+    },
     async signInWithRole(role) {
       const user = await createUser({ name: `Test ${role}` });
       const owner = role === 'owner' ? user : await createUser({ name: 'Test studio owner' });

@@ -8,6 +8,7 @@ import { defineModels } from '../../server/models';
 import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { createDraft } from '../../server/services/drafts';
 import { createStudio } from '../../server/services/studios';
+import { tokenHash } from '../../server/services/tokens';
 import { startTestServer, type TestServer } from '../helpers/server';
 import { testConfig } from '../helpers/test-db';
 
@@ -73,9 +74,16 @@ describe('the access and library caches', () => {
     const user = await server.createUser();
     const client = server.client();
     await client.signIn(user.email);
-    expect((await client.get('/api/dev/mails')).status).toBe(403);
-    await user.update({ isAdmin: true });
-    expect((await client.get('/api/dev/mails')).status).toBe(200);
+    // An invitation is accepted only by the invited address, as the request's account gives it.
+    const studio = await createStudio(server.ctx.models, (await server.createUser()).id, 'Cache studio');
+    const token = 'cache-test-invitation-token-000000000000000';
+    const email = `changed-${user.email}`;
+    await server.ctx.models.Invitation.create({
+      studioId: studio.id, invitedById: user.id, email, role: 'viewer', tokenHash: tokenHash(token), expiresAt: new Date(Date.now() + 60_000),
+    });
+    expect((await client.post('/api/invitations/accept', { token })).status).toBe(403);
+    await user.update({ email });
+    expect((await client.post('/api/invitations/accept', { token })).status).toBe(200);
     await user.destroy();
     expect((await client.get('/api/drafts')).status).toBe(401);
   });

@@ -37,7 +37,7 @@ interface Fixture {
 interface Case {
   /** The caller is passed for routes on things a user owns (their comment, their yarn). */
   path: (f: Fixture, caller: Caller) => string | Promise<string>;
-  body?: (f: Fixture) => Promise<unknown> | unknown;
+  body?: (f: Fixture, caller: Caller) => Promise<unknown> | unknown;
   /** A file sent as multipart field "file" instead of a JSON body. */
   upload?: () => { bytes: Buffer; name: string };
   success: number;
@@ -127,12 +127,15 @@ async function photoPath(f: Fixture): Promise<string> {
   }
   return `/api/drafts/${f.draftId}/photos/${photoIds.get(f.draftId)}`;
 }
-/** To a studio of its own: accepting must not make the matrix's non-member a member of the shared one. */
-async function inviteToken(): Promise<string> {
+/**
+ * To a studio of its own: accepting must not make the matrix's non-member a member of the shared one.
+ * Sent to the caller, as only the invited address may accept.
+ */
+async function inviteToken(caller: Caller): Promise<string> {
   const token = randomBytes(32).toString('base64url');
   const studio = await createStudio(server.ctx.models, people.owner.id, 'Invitation studio');
   await server.ctx.models.Invitation.create({
-    studioId: studio.id, invitedById: people.owner.id, email: uniqueEmail('invited'), role: 'viewer',
+    studioId: studio.id, invitedById: people.owner.id, email: caller === 'signed out' ? uniqueEmail('invited') : people[caller].email, role: 'viewer',
     tokenHash: tokenHash(token), expiresAt: new Date(Date.now() + 60_000),
   });
   return token;
@@ -170,7 +173,7 @@ const draftsServiceCases: Record<string, Case> = {
   'POST /api/studios/:id/invitations': {
     path: (f) => `/api/studios/${f.studioId}/invitations`, body: () => ({ email: uniqueEmail('invitee'), role: 'viewer' }), success: 201,
   },
-  'POST /api/invitations/accept': { path: () => '/api/invitations/accept', body: async () => ({ token: await inviteToken() }), success: 200 },
+  'POST /api/invitations/accept': { path: () => '/api/invitations/accept', body: async (_f, caller) => ({ token: await inviteToken(caller) }), success: 200 },
   'GET /api/drafts/:id/comments': { path: (f) => `/api/drafts/${f.draftId}/comments`, success: 200 },
   'POST /api/drafts/:id/comments': { path: (f) => `/api/drafts/${f.draftId}/comments`, body: () => ({ text: 'Lovely', end: 3 }), success: 201 },
   'DELETE /api/drafts/:id/comments/:commentId': { path: commentPath, success: 204 },
@@ -199,11 +202,12 @@ const keyOf = (spec: RouteSpec) => `${spec.method.toUpperCase()} ${spec.path}`;
 
 /** The status a caller should get from a route, from nothing but the route's declared minimum role. */
 function expectedStatus(spec: RouteSpec, caller: Caller, success: number): number {
+  // The tests run outside development mode, where developers' tools do not exist.
+  if (spec.devOnly) return 404;
   const min = spec.minimumRole;
   if (min === 'public') return success;
   if (caller === 'signed out') return 401;
   if (min === 'user') return success;
-  if (min === 'admin') return caller === 'admin' ? success : 403;
   if (caller === 'admin' || caller === 'non-member') return 404;
   return roleRank(caller as StudioRole) >= roleRank(min) ? success : 403;
 }
@@ -257,7 +261,7 @@ describe('access matrix', () => {
     expect(c, `a case for ${keyOf(spec)}`).toBeDefined();
     const fixture = c.changes === 'studio' ? await createFixture() : sharedFixture;
     const client = c.changes === 'session' ? await signedInClient(caller) : sharedClients.get(caller)!;
-    const body = c.body ? await c.body(fixture) : undefined;
+    const body = c.body ? await c.body(fixture, caller) : undefined;
     const path = await c.path(fixture, caller);
     const res = c.upload ? await sendFile(client, path, c.upload()) : await client.send(spec.method, path, body);
     const expected = expectedStatus(spec, caller, c.success);

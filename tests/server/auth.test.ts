@@ -146,15 +146,8 @@ describe('forgot and reset password', () => {
   const linkIn = (text: string) => text.match(/https?:\/\/\S+\/reset\?token=([\w%-]+)/);
 
   async function mailedToken(email: string): Promise<string> {
-    const admin = await server.createUser({ isAdmin: true });
-    const client = server.client();
-    await client.signIn(admin.email);
-    const res = await client.get('/api/dev/mails');
-    expect(res.status).toBe(200);
-    const mail = (res.body.mails as { to: string; subject: string; text: string }[]).find((m) => m.to.includes(email));
-    expect(mail, `a mail to ${email}`).toBeDefined();
-    expect(mail!.subject).toMatch(/reset/i);
-    const link = linkIn(mail!.text);
+    const mail = await server.mailTo(email, /reset/i);
+    const link = linkIn(mail.text);
     expect(link?.[0].startsWith('http://127.0.0.1:4780/reset?token=')).toBe(true);
     return decodeURIComponent(link![1]);
   }
@@ -183,6 +176,32 @@ describe('forgot and reset password', () => {
 
     expect((await server.client().post('/api/auth/sign-in', { email: user.email, password: TEST_PASSWORD })).status).toBe(401);
     expect((await server.client().post('/api/auth/sign-in', { email: user.email, password: newPassword })).status).toBe(200);
+  });
+
+  it('finding 4: a password reset ends other sessions and voids the other reset links', async () => {
+    const user = await server.createUser();
+    const laptop = server.client();
+    const phone = server.client();
+    await laptop.signIn(user.email);
+    await phone.signIn(user.email);
+    expect((await laptop.get('/api/drafts')).status).toBe(200);
+
+    // Two links asked for; the newer one is used from a third browser.
+    await server.client().post('/api/auth/forgot', { email: user.email });
+    const older = await mailedToken(user.email);
+    await server.client().post('/api/auth/forgot', { email: user.email });
+    const newer = await mailedToken(user.email);
+    expect(newer).not.toBe(older);
+    const resetter = server.client();
+    expect((await resetter.post('/api/auth/reset', { token: newer, password: 'a-fresh-long-password' })).status).toBe(200);
+
+    for (const other of [laptop, phone]) {
+      expect((await other.get('/api/session')).body).toEqual({ user: null });
+      expect((await other.get('/api/drafts')).status).toBe(401);
+    }
+    expect((await resetter.get('/api/session')).body.user.id).toBe(user.id);
+    expect((await server.client().post('/api/auth/reset', { token: older, password: 'an-attackers-password' })).status).toBe(400);
+    expect((await server.client().post('/api/auth/sign-in', { email: user.email, password: 'a-fresh-long-password' })).status).toBe(200);
   });
 
   it('refuses an expired token', async () => {

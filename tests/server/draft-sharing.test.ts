@@ -1,4 +1,7 @@
+import { once } from 'node:events';
 import fc from 'fast-check';
+import { createServer, request as httpRequest, type IncomingMessage } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -118,6 +121,29 @@ describe('studio invitations', () => {
     expect((await s.viewer.post(`/api/studios/${s.studioId}/invitations`, { email: late, role: 'viewer' })).status).toBe(403);
     expect((await s.owner.post(`/api/studios/${s.studioId}/invitations`, { email: 'not an e-mail', role: 'viewer' })).status).toBe(400);
   });
+
+  it('finding 3: an invitation is accepted only by the account with the invited e-mail, and stays open after a refusal', async () => {
+    const s = await scene();
+    const invited = uniqueEmail('invited');
+    await s.owner.post(`/api/studios/${s.studioId}/invitations`, { email: invited, role: 'editor' });
+    const token = linkIn(server.smtp.mails().find((m) => m.to.includes(invited))!.text)!;
+
+    // A member of the studio with another address, and a stranger who signs up with their own.
+    const wrongMember = await s.viewer.post('/api/invitations/accept', { token });
+    expect(wrongMember.status).toBe(403);
+    expect(wrongMember.body.error.message).toMatch(/sent to another e-mail address/);
+    expect((await s.viewer.get(`/api/drafts/${s.draftId}`)).body.draft.role).toBe('viewer');
+    const stranger = server.client();
+    await stranger.post('/api/auth/sign-up', { email: uniqueEmail('stranger'), password: TEST_PASSWORD, name: 'Stranger' });
+    expect((await stranger.post('/api/invitations/accept', { token })).status).toBe(403);
+    expect((await stranger.get(`/api/studios/${s.studioId}`)).status).toBe(404);
+    expect(await server.ctx.models.Invitation.findOne({ where: { email: invited } })).toMatchObject({ acceptedAt: null, acceptedById: null });
+
+    // The person it was sent to signs up with that address (in another case) and joins.
+    const meant = server.client();
+    await meant.post('/api/auth/sign-up', { email: invited.toUpperCase(), password: TEST_PASSWORD, name: 'Invited' });
+    expect((await meant.post('/api/invitations/accept', { token })).body.studio).toEqual({ id: s.studioId, name: 'Test studio', role: 'editor' });
+  });
 });
 
 describe('comments', () => {
@@ -198,6 +224,45 @@ describe('photos of the cloth', () => {
     // Nothing refused was kept.
     expect(existsSync(join(attachmentsDir, 'drafts', String(s.draftId)))).toBe(false);
   });
+
+  it('finding 9: an upload is refused on access before its file is read', async () => {
+    const s = await scene();
+    const path = `/api/drafts/${s.draftId}/versions/1/photos`;
+    const outsider = server.client();
+    await outsider.signIn((await server.createUser()).email);
+    // Too big to store: had the file been read first, the answer would be 413, not the access refusal.
+    const big = Buffer.concat([png, Buffer.alloc(PHOTO_MAX_BYTES)]);
+    expect((await upload(s.viewer, path, big, 'big.png')).status).toBe(403);
+    expect((await upload(outsider, path, big, 'big.png')).status).toBe(404);
+    expect((await upload(s.owner, path, big, 'big.png')).status).toBe(413);
+
+    // The refusal comes while the file is still on its way: the server does not wait to read it.
+    const listening = createServer(server.app).listen(0, '127.0.0.1');
+    await once(listening, 'listening');
+    try {
+      const { port } = listening.address() as AddressInfo;
+      const cookie = (outsider.agent as unknown as { jar: { getCookies(a: unknown): { toValueString(): string }[] } }).jar
+        .getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false }).map((c) => c.toValueString()).join('; ');
+      const boundary = 'shedwright-finding-9';
+      const head = `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="cloth.png"\r\nContent-Type: image/png\r\n\r\n`;
+      const sending = httpRequest({
+        host: '127.0.0.1', port, method: 'POST', path,
+        headers: {
+          cookie, 'x-csrf-token': await outsider.csrf(),
+          'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': String(head.length + 4 * 1024 * 1024),
+        },
+      });
+      sending.on('error', () => undefined);
+      sending.write(head);
+      sending.write(png);
+      const [answer] = (await once(sending, 'response')) as [IncomingMessage];
+      expect(answer.statusCode).toBe(404);
+      sending.destroy();
+    } finally {
+      listening.closeAllConnections();
+      listening.close();
+    }
+  });
 });
 
 describe('WIF import', () => {
@@ -214,6 +279,15 @@ describe('WIF import', () => {
     const untitled = toWif({ ...pointTwillScarf(), name: '' });
     const named = await upload(s.owner, '/api/drafts/import-wif', Buffer.from(untitled), 'Spring mat.wif');
     expect(named.body.draft.name).toBe('Spring mat');
+  });
+
+  it('finding 11: a WIF without a [TEXT] title is named after its file', async () => {
+    const s = await scene();
+    const noText = toWif(pointTwillScarf()).replace(/\[TEXT\]\n[^[]*/, '').replace(/^TEXT=true\n/m, '');
+    expect(noText).not.toMatch(/TEXT|Title/);
+    const res = await upload(s.owner, '/api/drafts/import-wif', Buffer.from(noText), 'Harbour table mat.WIF');
+    expect(res.status, res.text).toBe(201);
+    expect(res.body.draft.name).toBe('Harbour table mat');
   });
 
   it('answers a bad file with 422 saying what is wrong, an empty form with 400, a huge file with 413', async () => {

@@ -36,4 +36,23 @@ describe('local fake SMTP', () => {
     expect(mails[0]).toMatchObject({ to: 'dev-mode@test.shedwright.test', subject: 'Hello loom', text: 'Warp is on.' });
     expect(Number.isNaN(Date.parse(mails[0].date))).toBe(false);
   });
+
+  it('finding 5: outside development mode nobody reads captured mail through the app, site admins included', async () => {
+    const live = await startTestServer({ dev: false });
+    try {
+      const victim = await live.createUser({ name: 'Victim' });
+      const admin = await live.createUser({ name: 'Site admin', isAdmin: true });
+      expect((await live.client().post('/api/auth/forgot', { email: victim.email })).status).toBe(202);
+      await live.mailTo(victim.email, /reset/i);
+      const adminClient = live.client();
+      await adminClient.signIn(admin.email);
+      for (const client of [adminClient, live.client()]) {
+        const res = await client.get('/api/dev/mails');
+        expect(res.status).toBe(404);
+        expect(JSON.stringify(res.body)).not.toContain('reset?token=');
+      }
+    } finally {
+      await live.close();
+    }
+  });
 });

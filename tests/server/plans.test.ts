@@ -106,6 +106,22 @@ describe('loom-side progress', () => {
     expect((next.body as ProgressResponse).progress?.positions.threading).toBe(10);
   });
 
+  it('finding 10: a place saved with a time in the future does not freeze the place marker', async () => {
+    const s = await scene();
+    const put = (position: number, movedAt?: string) =>
+      s.viewer.send('put', `${s.base}/progress`, { list: 'weaving', position, settings: workingOrder, ...(movedAt ? { movedAt } : {}) });
+    // A tablet whose clock runs a year ahead.
+    const ahead = await put(12, new Date(Date.now() + 365 * 24 * 3600_000).toISOString());
+    expect(ahead.status).toBe(200);
+    const stored = (ahead.body as ProgressResponse).progress!;
+    expect(stored.positions.weaving).toBe(12);
+    expect(Date.parse(stored.movedAt)).toBeLessThanOrEqual(Date.now());
+
+    // A device with the right clock moves on, with its own time or none.
+    expect(((await put(13, new Date().toISOString())).body as ProgressResponse).progress!.positions.weaving).toBe(13);
+    expect(((await put(14)).body as ProgressResponse).progress!.positions.weaving).toBe(14);
+  });
+
   it('refuses bad input (400) and outsiders (404)', async () => {
     const s = await scene();
     for (const body of [

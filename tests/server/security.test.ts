@@ -2,12 +2,15 @@ import { randomBytes } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import express from 'express';
 import fc from 'fast-check';
+import request from 'supertest';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import type { z } from 'zod';
 import { SESSION_COOKIE } from '../../server/app';
 import { loadConfig } from '../../server/config';
+import { errorHandler } from '../../server/middleware/errors';
 import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { encodePngRgb } from '../../server/print/png';
 import { routeTable } from '../../server/routes';
@@ -593,5 +596,58 @@ describe('SQL injection through every text field', () => {
     console.log(`security: ${cases} SQL injection attempts (${outcomes.refused} refused with a 4xx, ${outcomes.stored} stored and read back verbatim, `
       + `${outcomes.passwords} passwords that sign in as typed, ${outcomes.searches} searches finding nothing); tables intact`);
     expect(outcomes.stored).toBeGreaterThan(20);
+  });
+});
+
+describe('broken text', () => {
+  it('finding 8: a lone UTF-16 surrogate in a draft name, tag, notes, fork name or WIF title is refused (400/422), never a 500', async () => {
+    const errors = vi.spyOn(console, 'error');
+    try {
+      const s = await makeStudio('Surrogates');
+      const lone = 'Scarf \uD800 end';
+      const answers = [
+        await s.owner.post('/api/drafts', { name: lone }),
+        await s.owner.patch(`/api/drafts/${s.draftId}`, { tags: ['wool', lone] }),
+        await s.owner.send('put', `/api/drafts/${s.draftId}`, { document: { ...pointTwillScarf(), notes: `Notes ${lone}` }, baseVersion: 1 }),
+        await s.owner.post(`/api/drafts/${s.draftId}/fork`, { name: lone }),
+        await s.owner.post(`/api/drafts/${s.draftId}/comments`, { text: lone }),
+      ];
+      for (const res of answers) {
+        expect(res.status, res.text).toBe(400);
+        expect(JSON.stringify(res.body.error.fields)).toMatch(/broken character/);
+      }
+      // A WIF title may carry the half as a JSON escape.
+      const wif = toWif(pointTwillScarf()).replace(/^Title=.*$/m, 'Title="Scarf \\ud800 end"');
+      const imported = await s.owner.agent.post('/api/drafts/import-wif').set('x-csrf-token', await s.owner.csrf()).attach('file', Buffer.from(wif), 'scarf.wif');
+      expect(imported.status, imported.text).toBe(422);
+      expect(imported.body.error.message).toMatch(/broken character/);
+      // Well-formed pairs are text like any other.
+      expect((await s.owner.post('/api/drafts', { name: 'Scarf 🧶' })).status).toBe(201);
+      expect(errors.mock.calls.filter((c) => String(c[0]).startsWith('Unexpected error'))).toEqual([]);
+    } finally {
+      errors.mockRestore();
+    }
+  });
+
+  it('finding 8: a database error is logged without its SQL or the values it carried', async () => {
+    const s = await makeStudio('Quiet errors');
+    const secret = 'private-tag-6617';
+    // A value MariaDB itself refuses, written past the schemas, as a bug would.
+    const failure = await server.ctx.models.Draft.update({ tags: [`${secret} \uD800`] }, { where: { id: s.draftId } }).then(() => null, (err: unknown) => err);
+    expect(failure).toBeInstanceOf(Error);
+    const app = express();
+    app.get('/fails', () => { throw failure; });
+    app.use(errorHandler);
+    const errors = vi.spyOn(console, 'error').mockImplementation(() => undefined);
+    try {
+      const res = await request(app).get('/fails');
+      expect(res.status).toBe(500);
+      const logged = errors.mock.calls.map((c) => c.map(String).join(' ')).join('\n');
+      expect(logged).toMatch(/Unexpected error on GET \/fails/);
+      expect(logged).not.toContain(secret);
+      expect(logged).not.toMatch(/UPDATE|parameters/);
+    } finally {
+      errors.mockRestore();
+    }
   });
 });

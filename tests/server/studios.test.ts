@@ -67,3 +67,52 @@ describe('studios', () => {
     expect(res.body.error.fields.role).toBeTruthy();
   });
 });
+
+describe('drafts made in a studio belong to the studio', () => {
+  /** An editor who made a draft in the studio, and the studio's owner, both signed in. */
+  async function authorAndOwner() {
+    const { client: author, user, studioId, ownerId } = await server.signInWithRole('editor');
+    const owner = server.client();
+    await owner.signIn((await server.ctx.models.User.findByPk(ownerId))!.email);
+    const made = await author.post('/api/drafts', { name: 'Studio scarf', studioId });
+    expect(made.status).toBe(201);
+    const draftId = made.body.draft.id as number;
+    expect((await author.post(`/api/drafts/${draftId}/comments`, { text: 'Sley 2 per dent' })).status).toBe(201);
+    return { author, user, owner, studioId, draftId };
+  }
+  const libraryIds = async (client: ReturnType<TestServer['client']>) =>
+    ((await client.get('/api/drafts?pageSize=100')).body.items as { id: number }[]).map((d) => d.id);
+
+  it('finding 1: a removed member loses every right on the studio drafts they created, and the drafts stay with the studio', async () => {
+    const { author, user, owner, studioId, draftId } = await authorAndOwner();
+    expect((await owner.delete(`/api/studios/${studioId}/members/${user.id}`)).status).toBe(200);
+
+    expect((await author.get(`/api/drafts/${draftId}`)).status).toBe(404);
+    expect((await author.get(`/api/drafts/${draftId}/comments`)).status).toBe(404);
+    expect((await author.post(`/api/drafts/${draftId}/share`)).status).toBe(404);
+    expect((await author.delete(`/api/drafts/${draftId}`)).status).toBe(404);
+    expect(await libraryIds(author)).not.toContain(draftId);
+
+    // Still the studio's, with its history, and still naming who made it.
+    const kept = await owner.get(`/api/drafts/${draftId}`);
+    expect(kept.status).toBe(200);
+    expect(kept.body.draft).toMatchObject({ studioId, ownerName: 'Test editor' });
+    expect((await owner.get(`/api/drafts/${draftId}/versions`)).status).toBe(200);
+    expect(await libraryIds(owner)).toContain(draftId);
+  });
+
+  it('finding 1: a demoted author has the studio role they hold now, not owner rights on their own drafts', async () => {
+    const { author, user, owner, studioId, draftId } = await authorAndOwner();
+    // As an editor the author edits but, like every editor, may not delete the studio's draft.
+    expect((await author.patch(`/api/drafts/${draftId}`, { tags: ['wool'] })).status).toBe(200);
+    expect((await author.delete(`/api/drafts/${draftId}`)).status).toBe(403);
+    expect((await author.get(`/api/drafts/${draftId}`)).body.draft.role).toBe('editor');
+
+    expect((await owner.patch(`/api/studios/${studioId}/members/${user.id}`, { role: 'viewer' })).status).toBe(200);
+    expect((await author.get(`/api/drafts/${draftId}`)).body.draft.role).toBe('viewer');
+    expect((await author.post(`/api/drafts/${draftId}/share`)).status).toBe(403);
+    expect((await author.patch(`/api/drafts/${draftId}`, { name: 'Mine now' })).status).toBe(403);
+    expect((await author.delete(`/api/drafts/${draftId}`)).status).toBe(403);
+    expect((await owner.get(`/api/drafts/${draftId}`)).status).toBe(200);
+  });
+});

@@ -13,7 +13,7 @@ export function MailList() {
   if (mails.isPending) return <Spinner label="Loading mails…" />;
   if (mails.isError) {
     if (isApiError(mails.error, 403, 404)) {
-      return <ErrorNotice title="Not available" message="Captured mails are shown to site admins, and to everyone when the server runs in development mode." />;
+      return <ErrorNotice title="Not available" message="Captured mails are a tool for developers: they are shown only when the server runs in development mode." />;
     }
     return <ErrorNotice title="Could not load mails" error={mails.error} onRetry={() => void mails.refetch()} />;
   }
