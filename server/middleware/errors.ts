@@ -12,6 +12,7 @@ import { HttpError, notFound, validationError } from '../http/errors';
 const CONNECTION_LOST = new Set([
   'ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT', 'PROTOCOL_CONNECTION_LOST', 'ER_SOCKET_UNEXPECTED_CLOSE',
   'ER_CONNECTION_ALREADY_CLOSED', 'ER_CONNECTION_TIMEOUT', 'ER_GET_CONNECTION_TIMEOUT', 'ER_SERVER_SHUTDOWN', 'ER_CONNECTION_KILLED',
+  'ER_SOCKET_TIMEOUT',
 ]);
 
 /** True for failures that come from the database being unreachable (stopped, restarting, network). */

@@ -1,5 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -18,6 +18,13 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Longest a request may take to answer while MariaDB is down: the 3 s connect timeout plus slack. */
 const DOWN_ANSWER_BOUND_MS = 4000;
+/**
+ * Longest a request may take while MariaDB is frozen: "about 5 s" (the 4 s socket timeout, or the
+ * 5 s wait for a pooled connection), with slack for a loaded machine; and how long the test's client
+ * waits before it calls a request hung.
+ */
+const FROZEN_ANSWER_BOUND_MS = 8000;
+const FROZEN_CLIENT_PATIENCE_MS = 20_000;
 
 let db: MariaDB;
 let dbPort = 0;
@@ -163,6 +170,48 @@ describe('MariaDB stops while the app serves saves', () => {
     const slowest = Math.max(...downAnswers.map((a) => a.ms));
     console.log(`faults: ${downAnswers.length} reads while down, all 503, slowest ${slowest} ms; recovered ${recoveredMs} ms after restart; `
       + `saves acknowledged ${writers.map((w) => w.acknowledged.size).join('/')}, answers ${writers.map((w) => w.statuses.length).join('/')}`);
+  });
+});
+
+describe('MariaDB freezes (the process stopped, its connections left open)', () => {
+  it('finding 7: a frozen database answers 503 within about 5 s, and the app recovers by itself when it thaws', async () => {
+    const user = await server.createUser({ name: 'Frozen weaver' });
+    const client = server.client();
+    await client.signIn(user.email);
+    const [draftId] = await draftsFor(user.id, 1);
+    const document = straightTwillTrial();
+    // Connections in the pool, open and idle, as a busy app has them when the database stalls.
+    await Promise.all(Array.from({ length: 6 }, () => client.get(`/api/drafts/${draftId}`)));
+    const token = await client.csrf();
+    const mariadbPid = Number(readFileSync(join(dbDir, 'mariadb.pid'), 'utf8').trim());
+
+    process.kill(mariadbPid, 'SIGSTOP');
+    let answers: { status: number; code?: string; ms: number }[];
+    try {
+      const started = Date.now();
+      // Without timeouts these wait for as long as the database is frozen: the client gives up long after the bound.
+      answers = await Promise.all([
+        ...Array.from({ length: 6 }, () => client.agent.get(`/api/drafts/${draftId}`).timeout(FROZEN_CLIENT_PATIENCE_MS)),
+        ...Array.from({ length: 3 }, () => client.agent.put(`/api/drafts/${draftId}`).set('x-csrf-token', token)
+          .send({ document, baseVersion: 1 }).timeout(FROZEN_CLIENT_PATIENCE_MS)),
+        client.agent.get('/api/drafts').timeout(FROZEN_CLIENT_PATIENCE_MS),
+      ].map((req) => req.then(
+        (res) => ({ status: res.status, code: res.body?.error?.code as string | undefined, ms: Date.now() - started }),
+        (err: { timeout?: number }) => ({ status: err.timeout ? 0 : -1, ms: Date.now() - started }),
+      )));
+    } finally {
+      process.kill(mariadbPid, 'SIGCONT');
+    }
+    for (const a of answers) {
+      expect(a).toMatchObject({ status: 503, code: 'database_unavailable' });
+      expect(a.ms).toBeLessThan(FROZEN_ANSWER_BOUND_MS);
+    }
+    // Thawed: the next requests work again without a restart of the app.
+    const recoveredMs = await until('a read to succeed after the thaw', async () => (await client.get(`/api/drafts/${draftId}`)).status === 200, 15_000);
+    // A save answered 503 may still have committed once the database woke (as when MariaDB stops): build on what it holds.
+    const { version } = (await client.get(`/api/drafts/${draftId}`)).body.draft as { version: number };
+    expect((await client.send('put', `/api/drafts/${draftId}`, { document, baseVersion: version })).status).toBe(200);
+    console.log(`faults: frozen database, ${answers.length} requests all 503 within ${Math.max(...answers.map((a) => a.ms))} ms; recovered ${recoveredMs} ms after the thaw`);
   });
 });
 
