@@ -1,7 +1,22 @@
 import type Konva from 'konva';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Image as KonvaImage, Layer, Stage } from 'react-konva';
-import { computeDrawdown, expandProfile, maxBlocks, PROFILE_UNITS, profileUnit, renderCloth, type Draft, type Profile, type ProfileUnitId } from '../../../../shared/weave';
+import {
+  applyProfile,
+  colourName,
+  computeDrawdown,
+  expandProfile,
+  MAX_PROFILE_COLUMNS,
+  MAX_PROFILE_ROWS,
+  maxBlocks,
+  PROFILE_UNITS,
+  profileUnit,
+  renderCloth,
+  type BlockDesign,
+  type Draft,
+  type DraftYarn,
+  type ProfileUnitId,
+} from '../../../../shared/weave';
 import { GridBitmap } from '../canvas/bitmap';
 import { paintCloth } from '../canvas/paint';
 import { useStore } from '../store/create-store';
@@ -10,64 +25,103 @@ import { useEditorContext } from './editor-context';
 
 const PREVIEW = 260;
 
-interface BlockDesign {
-  unit: ProfileUnitId;
-  blocks: number;
-  /** Block per profile column. */
-  threading: number[];
-  /** Blocks showing the pattern, per profile row. */
-  treadling: number[][];
-  /** Palette index per warp set and per weft set of the unit. */
-  warpColors: number[];
-  weftColors: number[];
-}
-
+/** A fresh design: two blocks side by side, trading places every two rows. */
 const START: BlockDesign = {
   unit: 'double-weave',
-  blocks: 2,
   threading: [1, 1, 2, 2, 1, 1, 2, 2],
   treadling: [[1], [1], [2], [2], [1], [1], [2], [2]],
-  warpColors: [0, 1],
-  weftColors: [0, 1],
+  warpColors: [[0], [1]],
+  weftColors: [[0], [1]],
 };
 
-/** Block design: a profile (block threading and treadling) expanded live with a unit from the engine. */
+/** Blocks the design uses or names. */
+const blocksIn = (d: BlockDesign) => Math.max(1, ...d.threading, ...d.treadling.flat());
+
+const clamp = (v: number, lo: number, hi: number) => Math.max(lo, Math.min(hi, Math.round(v) || lo));
+
+/** One colour order per set, each colour kept inside the palette. */
+function fitOrders(orders: readonly number[][], sets: number, paletteSize: number): number[][] {
+  return Array.from({ length: sets }, (_, i) => (orders[i]?.length ? orders[i] : [i % paletteSize]).map((c) => Math.min(c, paletteSize - 1)));
+}
+
+/**
+ * The block design: a profile (block threading and block lift plan) with a unit and colour orders
+ * per layer, expanded live. It opens on the design kept with the draft, and "Use as the draft"
+ * expands it into the draft (keeping palette, yarns and what was drawn around it) and keeps it.
+ */
 export function ProfilePanel() {
   const { editor } = useEditorContext();
   const palette = useStore(editor.doc, (s) => s.draft.palette);
-  const [design, setDesign] = useState<BlockDesign>(START);
+  const yarns = useStore(editor.doc, (s) => s.draft.yarns);
+  const stored = useStore(editor.doc, (s) => s.draft.profile);
+  const [design, setDesign] = useState<BlockDesign>(stored ?? START);
+  const [blocks, setBlocks] = useState(() => blocksIn(stored ?? START));
+  const [summary, setSummary] = useState('');
+  // The design kept with the draft changed (used, undone, restored): open that one.
+  const [seen, setSeen] = useState(stored);
+  if (seen !== stored) {
+    setSeen(stored);
+    if (stored) {
+      setDesign(stored);
+      setBlocks(blocksIn(stored));
+    }
+  }
   const unit = profileUnit(design.unit);
-  const most = Math.min(8, maxBlocks(unit));
+  const most = maxBlocks(unit);
 
+  const fitted = useMemo(
+    (): BlockDesign => ({
+      ...design,
+      warpColors: fitOrders(design.warpColors, unit.warpSets.length, palette.length),
+      weftColors: fitOrders(design.weftColors, unit.weftSets.length, palette.length),
+      blockWarpColors: design.blockWarpColors?.map((o) => (o.length > 0 ? fitOrders(o, unit.warpSets.length, palette.length) : [])),
+    }),
+    [design, unit, palette.length],
+  );
   const expanded = useMemo((): { draft: Draft } | { error: string } => {
-    const setColour = (list: number[], sets: number) => Array.from({ length: sets }, (_, i) => [Math.min(list[i] ?? 0, palette.length - 1)]);
-    const profile: Profile = {
-      threading: design.threading,
-      treadling: design.treadling,
-      palette,
-      warpColors: setColour(design.warpColors, unit.warpSets.length),
-      weftColors: setColour(design.weftColors, unit.weftSets.length),
-    };
     try {
-      return { draft: expandProfile(profile, design.unit) };
+      return { draft: expandProfile({ ...fitted, palette }, fitted.unit) };
     } catch (e) {
       return { error: e instanceof Error ? e.message : String(e) };
     }
-  }, [design, palette, unit]);
+  }, [fitted, palette]);
 
   const update = (patch: Partial<BlockDesign>) => setDesign((d) => ({ ...d, ...patch }));
-  const cols = design.threading.length;
-  const blockRows = Array.from({ length: design.blocks }, (_, b) => design.blocks - b);
+  const setBlockCount = (n: number) => {
+    const b = clamp(n, 1, most);
+    setBlocks(b);
+    update({ threading: design.threading.map((x) => Math.min(x, b)), treadling: design.treadling.map((row) => row.filter((x) => x <= b)), blockWarpColors: design.blockWarpColors?.slice(0, b) });
+  };
+  const use = () => {
+    try {
+      const result = applyProfile(editor.doc.get().draft, fitted);
+      editor.doc.apply(replaceDraft, { draft: result.draft });
+      setSummary(result.summary);
+      editor.setView({ message: result.summary });
+    } catch (e) {
+      setSummary(e instanceof Error ? e.message : String(e));
+    }
+  };
 
+  const blockNumbers = Array.from({ length: blocks }, (_, b) => b + 1);
   return (
-    <section aria-labelledby="profile-heading" className="flex flex-col gap-2 text-xs">
+    <section aria-labelledby="profile-heading" className="flex flex-col gap-2 text-xs" data-testid="block-design">
       <h2 id="profile-heading" className="text-sm font-semibold">
-        Block design
+        Block design {stored && <span className="font-normal text-muted">(kept with this draft)</span>}
       </h2>
       <div className="flex flex-wrap items-center gap-2">
         <label className="flex items-center gap-1">
           Unit
-          <select value={design.unit} onChange={(e) => update({ unit: e.target.value as ProfileUnitId, blocks: Math.min(design.blocks, maxBlocks(profileUnit(e.target.value as ProfileUnitId))) })} className="rounded border border-field bg-surface px-1">
+          <select
+            value={design.unit}
+            onChange={(e) => {
+              const id = e.target.value as ProfileUnitId;
+              const next = profileUnit(id);
+              update({ unit: id, endsPerUnit: undefined, picksPerUnit: undefined });
+              if (blocks > maxBlocks(next)) setBlockCount(maxBlocks(next));
+            }}
+            className="rounded border border-field bg-surface px-1"
+          >
             {PROFILE_UNITS.map((u) => (
               <option key={u.id} value={u.id}>
                 {u.name}
@@ -75,83 +129,116 @@ export function ProfilePanel() {
             ))}
           </select>
         </label>
-        <label className="flex items-center gap-1">
-          Blocks
-          <input type="number" min={1} max={most} value={design.blocks} onChange={(e) => {
-              const n = Math.max(1, Math.min(most, Number(e.target.value) || 1));
-              update({ blocks: n, threading: design.threading.map((b) => Math.min(b, n)), treadling: design.treadling.map((row) => row.filter((b) => b <= n)) });
-            }} className="w-12 rounded border border-field bg-surface px-1" />
-        </label>
-        <label className="flex items-center gap-1">
-          Profile columns
-          <input
-            type="number"
-            min={1}
-            max={48}
-            value={cols}
-            onChange={(e) => {
-              const n = Math.max(1, Math.min(48, Number(e.target.value) || 1));
-              update({ threading: Array.from({ length: n }, (_, i) => design.threading[i] ?? 1), treadling: Array.from({ length: n }, (_, i) => design.treadling[i] ?? []) });
-            }}
-            className="w-12 rounded border border-field bg-surface px-1"
-          />
-        </label>
+        <NumberField label="Blocks" value={blocks} min={1} max={most} onChange={setBlockCount} />
+        <NumberField
+          label="Profile columns"
+          value={design.threading.length}
+          min={1}
+          max={MAX_PROFILE_COLUMNS}
+          onChange={(v) => {
+            const n = clamp(v, 1, MAX_PROFILE_COLUMNS);
+            update({ threading: Array.from({ length: n }, (_, i) => design.threading[i] ?? design.threading[i % design.threading.length] ?? 1) });
+          }}
+        />
+        <NumberField
+          label="Profile rows"
+          value={design.treadling.length}
+          min={1}
+          max={MAX_PROFILE_ROWS}
+          onChange={(v) => {
+            const n = clamp(v, 1, MAX_PROFILE_ROWS);
+            update({ treadling: Array.from({ length: n }, (_, i) => design.treadling[i] ?? design.treadling[i % Math.max(1, design.treadling.length)] ?? []) });
+          }}
+        />
+        <NumberField label="Ends per column" value={design.endsPerUnit ?? unit.width} min={unit.width} max={64} step={unit.width} onChange={(v) => update({ endsPerUnit: clamp(v / unit.width, 1, Math.floor(64 / unit.width)) * unit.width })} />
+        <NumberField label="Picks per row" value={design.picksPerUnit ?? unit.height} min={unit.height} max={64} step={unit.height} onChange={(v) => update({ picksPerUnit: clamp(v / unit.height, 1, Math.floor(64 / unit.height)) * unit.height })} />
       </div>
-      <p className="text-muted">{unit.description}</p>
-      <table className="border-collapse" aria-label="Profile threading: the block of each column">
-        <tbody>
-          {blockRows.map((b) => (
-            <tr key={b}>
-              <th scope="row" className="pr-1 text-right font-normal text-muted">
-                Block {b}
-              </th>
-              {design.threading.map((block, c) => (
-                <td key={c} className="p-0">
-                  <button
-                    type="button"
-                    aria-label={`Column ${c + 1}, block ${b}`}
-                    aria-pressed={block === b}
-                    onClick={() => update({ threading: design.threading.map((x, i) => (i === c ? b : x)) })}
-                    className="block h-4 w-4 border border-line bg-surface aria-pressed:bg-ink"
-                  />
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      <table className="border-collapse" aria-label="Profile treadling: the blocks showing the pattern in each row">
-        <tbody>
-          {design.treadling.map((row, r) => (
-            <tr key={r}>
-              <th scope="row" className="pr-1 text-right font-normal text-muted">
-                Row {r + 1}
-              </th>
-              {Array.from({ length: design.blocks }, (_, b) => b + 1).map((b) => (
-                <td key={b} className="p-0">
-                  <button
-                    type="button"
-                    aria-label={`Row ${r + 1}, block ${b} shows the pattern`}
-                    aria-pressed={row.includes(b)}
-                    onClick={() =>
-                      update({ treadling: design.treadling.map((x, i) => (i !== r ? x : x.includes(b) ? x.filter((v) => v !== b) : [...x, b].sort((p, q) => p - q))) })
-                    }
-                    className="block h-4 w-4 border border-line bg-surface aria-pressed:bg-ink"
-                  />
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      <div className="flex flex-wrap gap-2">
+      <p className="text-muted">
+        {unit.description} Up to {most} blocks on 32 shafts.
+      </p>
+
+      <div className="overflow-x-auto">
+        <table className="border-collapse" aria-label="Profile threading: the block of each column">
+          <tbody>
+            {[...blockNumbers].reverse().map((b) => (
+              <tr key={b}>
+                <th scope="row" className="sticky left-0 bg-surface pr-1 text-right font-normal whitespace-nowrap text-muted">
+                  Block {b}
+                </th>
+                {design.threading.map((block, c) => (
+                  <td key={c} className="p-0">
+                    <button
+                      type="button"
+                      aria-label={`Column ${c + 1}, block ${b}`}
+                      aria-pressed={block === b}
+                      onClick={() => update({ threading: design.threading.map((x, i) => (i === c ? b : x)) })}
+                      className="block h-4 w-4 border border-line bg-surface aria-pressed:bg-ink"
+                    />
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <FillColumns columns={design.threading.length} blocks={blocks} onFill={(from, to, b) => update({ threading: design.threading.map((x, i) => (i >= from && i <= to ? b : x)) })} />
+
+      <div className="max-h-64 overflow-auto">
+        <table className="border-collapse" aria-label="Profile rows: the blocks showing the pattern (layer 1 on top) in each row">
+          <tbody>
+            {design.treadling.map((row, r) => (
+              <tr key={r}>
+                <th scope="row" className="pr-1 text-right font-normal whitespace-nowrap text-muted">
+                  Row {r + 1}
+                </th>
+                {blockNumbers.map((b) => (
+                  <td key={b} className="p-0">
+                    <button
+                      type="button"
+                      aria-label={`Row ${r + 1}, block ${b} shows the pattern`}
+                      aria-pressed={row.includes(b)}
+                      onClick={() => update({ treadling: design.treadling.map((x, i) => (i !== r ? x : toggled(x, b))) })}
+                      className="block h-4 w-4 border border-line bg-surface aria-pressed:bg-ink"
+                    />
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <FillRows rows={design.treadling.length} blocks={blocks} onFill={(from, to, b, show) => update({ treadling: design.treadling.map((x, i) => (i < from || i > to ? x : show === x.includes(b) ? x : toggled(x, b))) })} />
+
+      <fieldset className="flex flex-col gap-1">
+        <legend className="font-medium">Colour orders (each repeats over its layer’s threads)</legend>
         {unit.warpSets.map((set, i) => (
-          <ColourChoice key={`w${i}`} label={`Warp, ${set}`} palette={palette} value={design.warpColors[i] ?? 0} onChange={(v) => update({ warpColors: Object.assign([...design.warpColors], { [i]: v }) })} />
+          <ColourOrder key={`w${i}`} label={`Warp, ${set}`} palette={palette} yarns={yarns} order={fitted.warpColors[i]} onChange={(o) => update({ warpColors: replaced(fitted.warpColors, i, o) })} />
         ))}
         {unit.weftSets.map((set, i) => (
-          <ColourChoice key={`f${i}`} label={`Weft, ${set}`} palette={palette} value={design.weftColors[i] ?? 0} onChange={(v) => update({ weftColors: Object.assign([...design.weftColors], { [i]: v }) })} />
+          <ColourOrder key={`f${i}`} label={`Weft, ${set}`} palette={palette} yarns={yarns} order={fitted.weftColors[i]} onChange={(o) => update({ weftColors: replaced(fitted.weftColors, i, o) })} />
         ))}
-      </div>
+        {blockNumbers.map((b) => {
+          const own = fitted.blockWarpColors?.[b - 1] ?? [];
+          const setOwn = (orders: number[][]) => {
+            const list = Array.from({ length: blocks }, (_, i) => fitted.blockWarpColors?.[i] ?? []);
+            list[b - 1] = orders;
+            update({ blockWarpColors: list.some((o) => o.length > 0) ? list : undefined });
+          };
+          return (
+            <div key={b} className="flex flex-col gap-1">
+              <label className="flex items-center gap-1">
+                <input type="checkbox" checked={own.length > 0} onChange={(e) => setOwn(e.target.checked ? fitted.warpColors.map((o) => [...o]) : [])} />
+                Block {b} has its own warp colours
+              </label>
+              {own.length > 0 &&
+                unit.warpSets.map((set, i) => (
+                  <ColourOrder key={i} label={`Block ${b} warp, ${set}`} palette={palette} yarns={yarns} order={own[i]} onChange={(o) => setOwn(replaced(own, i, o))} />
+                ))}
+            </div>
+          );
+        })}
+      </fieldset>
+
       {'error' in expanded ? (
         <p role="alert" className="flex gap-1 font-medium text-danger">
           <span aria-hidden="true">⚠</span>
@@ -161,29 +248,94 @@ export function ProfilePanel() {
         <>
           <ExpandedPreview draft={expanded.draft} />
           <p className="text-muted">
-            {expanded.draft.threading.length} ends, {expanded.draft.liftplan.length || expanded.draft.treadling.length} picks on {expanded.draft.shafts} shafts.
+            {expanded.draft.threading.length} ends, {expanded.draft.liftplan.length} picks on {expanded.draft.shafts} shafts.
           </p>
-          <button type="button" className="self-start rounded-md bg-accent px-3 py-1.5 font-medium text-white hover:bg-accent-strong" onClick={() => editor.doc.apply(replaceDraft, { draft: { ...expanded.draft, name: editor.doc.get().draft.name } })}>
+          <button type="button" className="self-start rounded-md bg-accent px-3 py-1.5 font-medium text-white hover:bg-accent-strong" onClick={use}>
             Use as the draft
           </button>
         </>
       )}
+      <p role="status" className="text-muted" data-testid="block-design-summary">
+        {summary}
+      </p>
     </section>
   );
 }
 
-function ColourChoice({ label, palette, value, onChange }: { label: string; palette: readonly string[]; value: number; onChange: (v: number) => void }) {
+const toggled = (row: readonly number[], b: number) => (row.includes(b) ? row.filter((v) => v !== b) : [...row, b].sort((p, q) => p - q));
+const replaced = <T,>(list: readonly T[], i: number, value: T): T[] => list.map((v, k) => (k === i ? value : v));
+
+function NumberField({ label, value, min, max, step = 1, onChange }: { label: string; value: number; min: number; max: number; step?: number; onChange: (v: number) => void }) {
   return (
     <label className="flex items-center gap-1">
       {label}
-      <select value={value} onChange={(e) => onChange(Number(e.target.value))} className="rounded border border-field bg-surface px-1">
-        {palette.map((hex, i) => (
-          <option key={i} value={i}>
-            Colour {i + 1} ({hex})
-          </option>
-        ))}
-      </select>
+      <input type="number" min={min} max={max} step={step} value={value} onChange={(e) => onChange(Number(e.target.value))} className="w-14 rounded border border-field bg-surface px-1" />
     </label>
+  );
+}
+
+/** Fills a range of profile columns with one block. */
+function FillColumns({ columns, blocks, onFill }: { columns: number; blocks: number; onFill: (from: number, to: number, block: number) => void }) {
+  const [range, setRange] = useState({ from: 1, to: columns, block: 1 });
+  const r = { from: clamp(range.from, 1, columns), to: clamp(range.to, 1, columns), block: clamp(range.block, 1, blocks) };
+  return (
+    <div className="flex flex-wrap items-center gap-1" role="group" aria-label="Fill profile columns">
+      <NumberField label="Columns" value={r.from} min={1} max={columns} onChange={(from) => setRange({ ...r, from })} />
+      <NumberField label="to" value={r.to} min={1} max={columns} onChange={(to) => setRange({ ...r, to })} />
+      <NumberField label="block" value={r.block} min={1} max={blocks} onChange={(block) => setRange({ ...r, block })} />
+      <button type="button" className="rounded border border-field px-2 hover:bg-sunken" onClick={() => onFill(Math.min(r.from, r.to) - 1, Math.max(r.from, r.to) - 1, r.block)}>
+        Fill columns
+      </button>
+    </div>
+  );
+}
+
+/** Shows or hides the pattern of one block over a range of profile rows. */
+function FillRows({ rows, blocks, onFill }: { rows: number; blocks: number; onFill: (from: number, to: number, block: number, show: boolean) => void }) {
+  const [range, setRange] = useState({ from: 1, to: rows, block: 1 });
+  const r = { from: clamp(range.from, 1, rows), to: clamp(range.to, 1, rows), block: clamp(range.block, 1, blocks) };
+  const fill = (show: boolean) => onFill(Math.min(r.from, r.to) - 1, Math.max(r.from, r.to) - 1, r.block, show);
+  return (
+    <div className="flex flex-wrap items-center gap-1" role="group" aria-label="Fill profile rows">
+      <NumberField label="Rows" value={r.from} min={1} max={rows} onChange={(from) => setRange({ ...r, from })} />
+      <NumberField label="to" value={r.to} min={1} max={rows} onChange={(to) => setRange({ ...r, to })} />
+      <NumberField label="block" value={r.block} min={1} max={blocks} onChange={(block) => setRange({ ...r, block })} />
+      <button type="button" className="rounded border border-field px-2 hover:bg-sunken" onClick={() => fill(true)}>
+        Show
+      </button>
+      <button type="button" className="rounded border border-field px-2 hover:bg-sunken" onClick={() => fill(false)}>
+        Hide
+      </button>
+    </div>
+  );
+}
+
+/** A repeating colour order: one choice per place, with places added and taken away. */
+function ColourOrder({ label, palette, yarns, order, onChange }: { label: string; palette: readonly string[]; yarns: readonly DraftYarn[]; order: number[]; onChange: (order: number[]) => void }) {
+  return (
+    <div className="flex flex-wrap items-center gap-1" role="group" aria-label={`${label}: colour order`}>
+      <span className="min-w-24">{label}</span>
+      {order.map((c, i) => (
+        <span key={i} className="flex items-center">
+          <span aria-hidden="true" className="inline-block h-3 w-3 rounded-sm border border-line" style={{ background: palette[c] }} />
+          <select aria-label={`${label}, place ${i + 1}`} value={c} onChange={(e) => onChange(replaced(order, i, Number(e.target.value)))} className="max-w-28 rounded border border-field bg-surface px-0.5">
+            {palette.map((_, k) => (
+              <option key={k} value={k}>
+                {colourName({ yarns }, k)}
+              </option>
+            ))}
+          </select>
+        </span>
+      ))}
+      <button type="button" aria-label={`${label}: add a place`} className="rounded border border-field px-1 hover:bg-sunken" onClick={() => onChange([...order, order[order.length - 1] ?? 0])}>
+        +
+      </button>
+      {order.length > 1 && (
+        <button type="button" aria-label={`${label}: remove the last place`} className="rounded border border-field px-1 hover:bg-sunken" onClick={() => onChange(order.slice(0, -1))}>
+          −
+        </button>
+      )}
+    </div>
   );
 }
 
