@@ -14,5 +14,6 @@ export * from './check-threading';
 export * from './colour-names';
 export * from './checks';
 export * from './words';
+export * from './layer-lists';
 export * from './compare';
 export * from './text';

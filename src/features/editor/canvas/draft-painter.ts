@@ -2,7 +2,7 @@ import type { Draft, Drawdown } from '../../../../shared/weave';
 import { GridBitmap, pixel } from './bitmap';
 import type { Derived } from './derived';
 import { GROW_MARGIN, type RegionId } from './layout';
-import { paintCloth, paintColorOrder, paintPickRows, paintShaftColumns, paintStructure, TONES } from './paint';
+import { paintCloth, paintColorOrder, paintLayerRow, paintPickRows, paintShaftColumns, paintStructure, TONES } from './paint';
 
 export interface PaintSettings {
   shaftsFromTop: boolean;
@@ -71,6 +71,12 @@ export class DraftPainter {
     }
     if (this.changed('weftColors', [draft.weftColors, draft.palette])) {
       if (this.bitmap('weftColors').paint(1, picks + GROW_MARGIN, (out) => paintColorOrder(out, draft.weftColors, draft.palette))) done.add('weftColors');
+    }
+    if (this.changed('warpLayers', [draft.warpLayers, ends])) {
+      if (this.bitmap('warpLayers').paint(ends + GROW_MARGIN, 1, (out) => paintLayerRow(out, draft.warpLayers, ends))) done.add('warpLayers');
+    }
+    if (this.changed('weftLayers', [draft.weftLayers, picks])) {
+      if (this.bitmap('weftLayers').paint(1, picks + GROW_MARGIN, (out) => paintLayerRow(out, draft.weftLayers, picks))) done.add('weftLayers');
     }
     const dd = this.derived.drawdown(draft);
     const colourKeys = drawdownView === 'colour' ? [draft.palette, draft.warpColors, draft.weftColors, drawdownView] : [drawdownView];

@@ -53,6 +53,8 @@ export function computeLayout(
   cell: number,
   stageWidth: number,
   stageHeight: number,
+  /** Show the warp and weft layer rows, beside the colour rows on the outside. */
+  layerRows = false,
 ): Layout {
   const liftplan = draft.control === 'liftplan';
   const ends = draft.threading.length;
@@ -62,16 +64,18 @@ export function computeLayout(
   const sideCols = liftplan ? draft.shafts : Math.max(1, draft.treadles);
   const shaftRows = draft.shafts;
 
-  // Fixed strips across: ruler, weft colours, pick list (in cells), drawdown takes the rest.
-  const fixedW = RULER_WIDTH + cell + sideCols * cell + 3 * GAP;
-  const fixedH = RULER_HEIGHT + cell + shaftRows * cell + 3 * GAP;
+  // Fixed strips across: ruler, weft colours (and layers), pick list (in cells), drawdown takes the rest.
+  const layerStrip = layerRows ? cell + GAP : 0;
+  const fixedW = RULER_WIDTH + cell + sideCols * cell + 3 * GAP + layerStrip;
+  const fixedH = RULER_HEIGHT + cell + shaftRows * cell + 3 * GAP + layerStrip;
   const ddW = Math.max(cell, Math.min(endCols * cell, stageWidth - fixedW));
   const ddH = Math.max(cell, Math.min(pickRows * cell, stageHeight - fixedH));
 
   // Columns left to right and rows top to bottom, in the weaver's arrangement.
   const { treadlingLeft, threadingBelow } = arrangement;
-  const across = stack(treadlingLeft ? ['ruler', 'weft', 'side', 'dd'] : ['dd', 'side', 'weft', 'ruler'], { ruler: RULER_WIDTH, weft: cell, side: sideCols * cell, dd: ddW });
-  const down = stack(threadingBelow ? ['dd', 'shafts', 'warp', 'ruler'] : ['ruler', 'warp', 'shafts', 'dd'], { ruler: RULER_HEIGHT, warp: cell, shafts: shaftRows * cell, dd: ddH });
+  const shown = <K extends string>(order: K[]) => (layerRows ? order : order.filter((k) => k !== 'layers'));
+  const across = stack(shown(treadlingLeft ? ['ruler', 'layers', 'weft', 'side', 'dd'] : ['dd', 'side', 'weft', 'layers', 'ruler']), { ruler: RULER_WIDTH, layers: cell, weft: cell, side: sideCols * cell, dd: ddW });
+  const down = stack(shown(threadingBelow ? ['dd', 'shafts', 'warp', 'layers', 'ruler'] : ['ruler', 'layers', 'warp', 'shafts', 'dd']), { ruler: RULER_HEIGHT, layers: cell, warp: cell, shafts: shaftRows * cell, dd: ddH });
   const colX = across.at;
   const rowY = down.at;
   const x = across.total;
@@ -87,6 +91,12 @@ export function computeLayout(
     region(liftplan ? 'liftplan' : 'treadling', colX.side, rowY.dd, sideCols * cell, ddH, sideCols, pickRows, false, true),
     region('weftColors', colX.weft, rowY.dd, cell, ddH, 1, pickRows, false, true),
   ];
+  if (layerRows) {
+    regions.push(
+      region('warpLayers', colX.dd, rowY.layers, ddW, cell, endCols, 1, true, false),
+      region('weftLayers', colX.layers, rowY.dd, cell, ddH, 1, pickRows, false, true),
+    );
+  }
   if (!liftplan) regions.push(region('tieup', colX.side, rowY.shafts, sideCols * cell, shaftRows * cell, sideCols, shaftRows, false, false));
 
   return {
@@ -138,8 +148,10 @@ export function cellPosition(ref: CellRef, draftShafts: number, fromTop: boolean
     case 'liftplan':
       return { col: ref.value - 1, row: ref.index };
     case 'warpColors':
+    case 'warpLayers':
       return { col: ref.index, row: 0 };
     case 'weftColors':
+    case 'weftLayers':
       return { col: 0, row: ref.index };
     case 'drawdown':
       return { col: ref.index, row: ref.value };
@@ -156,8 +168,10 @@ export function refAt(grid: RegionId, col: number, row: number, shafts: number, 
     case 'liftplan':
       return { grid, index: row, value: col + 1 };
     case 'warpColors':
+    case 'warpLayers':
       return { grid, index: col, value: 0 };
     case 'weftColors':
+    case 'weftLayers':
       return { grid, index: row, value: 0 };
     case 'drawdown':
       return { grid, index: col, value: row };

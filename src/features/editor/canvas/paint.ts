@@ -38,6 +38,18 @@ export function paintColorOrder(out: Uint32Array, order: readonly number[], pale
   for (let i = 0; i < order.length && i < out.length; i++) out[i] = words[order[i]] ?? TONES.empty;
 }
 
+/**
+ * Layer tones for the layer rows: dark and light in turn (1 dark blue, 2 light blue, 3 dark green,
+ * 4 light green …), so neighbouring layers differ in lightness, not only in hue.
+ */
+const LAYER_ROW_TONES = ['#2f44b0', '#a9b3e6', '#1f6a3b', '#a3cfb0', '#7a3b12', '#e3b98f', '#4b2a6b', '#c8b2de'].map(pixel);
+
+/** A layer row: one cell per end or pick in its layer's tone (an empty list is layer 1 throughout). */
+export function paintLayerRow(out: Uint32Array, layers: readonly number[], count: number): void {
+  out.fill(TONES.empty);
+  for (let i = 0; i < count && i < out.length; i++) out[i] = LAYER_ROW_TONES[((layers.length > 0 ? layers[i % layers.length] : 1) - 1) % LAYER_ROW_TONES.length];
+}
+
 /** The interlacement in two tones: warp over, weft over. */
 export function paintStructure(out: Uint32Array, dd: Drawdown, up = TONES.warpUp, down = TONES.weftUp): void {
   const { ends, picks, stride, bits } = dd;

@@ -8,6 +8,7 @@ import { cellAt, cellPosition, computeLayout, regionOf, type Layout, type Region
 import { useStore } from '../store/create-store';
 import type { Editor, GridCell, ViewState } from '../store/editor';
 import type { RegionId } from '../canvas/layout';
+import { showsLayerRows } from '../store/grids';
 import { handleKey } from '../store/keys';
 import { scrolledBy, wheelPixels, zoomedAbout, zoomedCell } from '../canvas/wheel';
 import { useEditorContext } from './editor-context';
@@ -48,11 +49,13 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
   const scrollX = useStore(view, (v) => v.scrollX);
   const scrollY = useStore(view, (v) => v.scrollY);
   const rulerStep = useStore(view, (v) => v.rulerStep);
+  const layerRows = useStore(view, (v) => v.layerRows);
+  const layered = useStore(doc, (s) => showsLayerRows(s.draft, false));
 
   const layout = useMemo(() => {
     void sizes;
-    return computeLayout(doc.get().draft, arrangement, cell, size.width, size.height);
-  }, [doc, sizes, arrangement, cell, size.width, size.height]);
+    return computeLayout(doc.get().draft, arrangement, cell, size.width, size.height, layerRows || layered);
+  }, [doc, sizes, arrangement, cell, size.width, size.height, layerRows, layered]);
   // What the static layer's nodes were last drawn with, for redrawing part of it between renders.
   const drawn = useRef({ layout, scrollX, scrollY });
   useLayoutEffect(() => {
@@ -181,7 +184,7 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
         zoom = zoomedCell(zoom, wheelPixels(e, stage).dy);
         const cell = Math.round(zoom);
         if (cell === v.cell) return;
-        const after = computeLayout(doc.get().draft, v.arrangement, cell, stage.width, stage.height);
+        const after = computeLayout(doc.get().draft, v.arrangement, cell, stage.width, stage.height, showsLayerRows(doc.get().draft, v.layerRows));
         const box = el.getBoundingClientRect();
         editor.setView({ cell, ...zoomedAbout(shown, after, v, { x: e.clientX - box.left, y: e.clientY - box.top }) });
         return;
@@ -477,7 +480,7 @@ function OverlayLayer({ editor, layout }: { editor: Editor; layout: Layout }) {
   }
   if (highlight) {
     // A dashed band across every grid the end (or pick) runs through: a mark, not just a colour.
-    const ids: RegionId[] = highlight.axis === 'ends' ? ['warpColors', 'threading', 'drawdown'] : ['weftColors', 'treadling', 'liftplan', 'drawdown'];
+    const ids: RegionId[] = highlight.axis === 'ends' ? ['warpLayers', 'warpColors', 'threading', 'drawdown'] : ['weftLayers', 'weftColors', 'treadling', 'liftplan', 'drawdown'];
     for (const id of ids) {
       const r = regionOf(layout, id);
       if (!r) continue;

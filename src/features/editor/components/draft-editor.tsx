@@ -10,6 +10,7 @@ import { ClothViews } from './cloth-views';
 import { DraftCanvas } from './draft-canvas';
 import { EditorContext, type EditorContextValue } from './editor-context';
 import { KeysPanel } from './keys-panel';
+import { LayersPanel } from './layers-panel';
 import { PalettePanel } from './palette-panel';
 import { ProfilePanel } from './profile-panel';
 import { SaveStatus } from './save-status';
@@ -107,6 +108,7 @@ export function DraftEditor({ draft, version, draftId, readOnly = false, onSave 
           <aside className="flex w-80 shrink-0 flex-col gap-4 overflow-y-auto">
             {showKeys && <KeysPanel onClose={() => setShowKeys(false)} />}
             <PalettePanel readOnly={readOnly} />
+            <LayersPanel readOnly={readOnly} />
             <ChecksPanel />
             {!readOnly && <ProfilePanel />}
           </aside>

@@ -1,5 +1,5 @@
 import { useState, type ReactNode } from 'react';
-import { MAX_SHAFTS, MAX_TREADLES } from '../../../../shared/weave';
+import { MAX_SHAFTS, MAX_TREADLES, type RunChange } from '../../../../shared/weave';
 import { useStore } from '../store/create-store';
 import { setShafts, setTreadles } from '../store/edits';
 import type { Tool } from '../store/editor';
@@ -37,6 +37,7 @@ export function Toolbar({ readOnly = false, onShowKeys }: { readOnly?: boolean; 
   const control = useStore(editor.doc, (s) => s.draft.control);
   const ends = useStore(editor.doc, (s) => s.draft.threading.length);
   const [repeatTimes, setRepeatTimes] = useState(1);
+  const [change, setChange] = useState<RunChange>('reverse');
   const [asking, setAsking] = useState(false);
   const [loomTreadles, setLoomTreadles] = useState(treadles || 10);
   const [refusal, setRefusal] = useState<string | null>(null);
@@ -84,6 +85,13 @@ export function Toolbar({ readOnly = false, onShowKeys }: { readOnly?: boolean; 
                 ×
                 <input type="number" min={1} max={100} value={repeatTimes} onChange={(e) => setRepeatTimes(Math.max(1, Math.min(100, Number(e.target.value) || 1)))} className="w-12 rounded border border-field bg-surface px-1" aria-label="Repeat how many times" />
               </label>
+              <button type="button" className={btn} onClick={() => editor.repeatWithChange(repeatTimes, change)} title="The run × times, then changed × times, across the warp or weft">
+                Repeat with a change
+              </button>
+              <select value={change} onChange={(e) => setChange(e.target.value as RunChange)} aria-label="The change" className="rounded border border-field bg-surface px-1 text-xs">
+                <option value="reverse">reversed</option>
+                <option value="swap">two values swapped</option>
+              </select>
               <button type="button" className={btn} onClick={() => editor.mirror()} title="Mirror (M)">
                 Mirror
               </button>

@@ -1,4 +1,4 @@
-import type { Draft } from '../../../../shared/weave';
+import type { Draft, RunChange } from '../../../../shared/weave';
 import { GROW_MARGIN, refAt, type Arrangement } from '../canvas/layout';
 import { createStore, type Store } from './create-store';
 import { createDraftStore, type DraftStore, type EditGuard } from './draft-store';
@@ -13,6 +13,7 @@ import {
   paintColor,
   pasteClip,
   repeatRun,
+  repeatWithChangeRun,
   reverseRange,
   setCell,
   toLiftPlanEdit,
@@ -23,7 +24,7 @@ import {
   type RunKind,
 } from './edits';
 import { parseGoTo } from './go-to';
-import { axisOf, GRID_LABELS, isListGrid, visibleGrids, type GridId } from './grids';
+import { axisOf, GRID_LABELS, isListGrid, isThreadRow, visibleGrids, type GridId } from './grids';
 
 export type Tool = 'draw' | 'erase' | 'select';
 
@@ -58,6 +59,10 @@ export interface ViewState {
   selection: Selection | null;
   /** Palette index painted into the colour orders. */
   color: number;
+  /** Layer painted into the layer rows. */
+  layer: number;
+  /** Show the warp and weft layer rows even while the draft has no layers. */
+  layerRows: boolean;
   /** Pixels per cell: zoom. */
   cell: number;
   arrangement: Arrangement;
@@ -97,6 +102,8 @@ export interface Editor {
   toggleAtCursor(options?: { add?: boolean }): void;
   fill(kind: RunKind): void;
   repeatSelection(times: number): void;
+  /** Repeat with a change on the selected run of the threading or a colour or layer row. */
+  repeatWithChange(times: number, change: RunChange): void;
   mirror(): void;
   reverse(): void;
   flip(): void;
@@ -121,6 +128,8 @@ export const DEFAULT_VIEW: ViewState = {
   cursor: { grid: 'threading', col: 0, row: 0 },
   selection: null,
   color: 0,
+  layer: 2,
+  layerRows: false,
   cell: 14,
   arrangement: { threadingBelow: false, treadlingLeft: false, shaftsFromTop: false },
   rulerStep: 4,
@@ -152,7 +161,10 @@ export function gridSize(draft: Draft, grid: GridId): { cols: number; rows: numb
     case 'liftplan':
       return { cols: draft.shafts, rows: picks + GROW_MARGIN };
     case 'weftColors':
+    case 'weftLayers':
       return { cols: 1, rows: picks + GROW_MARGIN };
+    case 'warpLayers':
+      return { cols: draft.threading.length + GROW_MARGIN, rows: 1 };
   }
 }
 
@@ -220,8 +232,9 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {},
 
   const drawCell = (c: GridCell, on: boolean, add: boolean) => {
     const { index, value } = refOf(c);
-    if (c.grid === 'warpColors' || c.grid === 'weftColors') {
-      if (on) doc.apply(paintColor, { grid: c.grid, from: index, to: index, color: view.get().color });
+    if (isThreadRow(c.grid)) {
+      const layers = c.grid === 'warpLayers' || c.grid === 'weftLayers';
+      if (on) doc.apply(paintColor, { grid: c.grid, from: index, to: index, color: layers ? view.get().layer : view.get().color });
       return;
     }
     // One shaft per end and one treadle per pick unless the weaver asks to add (alt/option).
@@ -273,7 +286,7 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {},
         return;
       }
       setView({ cursor: cell, selection: null });
-      const on = v.tool === 'draw' && (cell.grid === 'warpColors' || cell.grid === 'weftColors' || !isMarked(cell));
+      const on = v.tool === 'draw' && (isThreadRow(cell.grid) || !isMarked(cell));
       doc.beginGesture(v.tool === 'erase' ? 'Erase' : 'Draw');
       drag = { grid: cell.grid, on, last: cell, add, select: false };
       drawCell(cell, on, add);
@@ -312,7 +325,7 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {},
       say(describeCell(doc.get().draft, next.grid, index, value, isMarked(next)));
     },
     focusGrid(step) {
-      const grids = visibleGrids(doc.get().draft);
+      const grids = visibleGrids(doc.get().draft, view.get().layerRows);
       const at = grids.indexOf(view.get().cursor.grid);
       const grid = grids[(at + step + grids.length) % grids.length];
       setView({ cursor: clampCell({ grid, col: 0, row: 0 }), selection: null, revealCursor: view.get().revealCursor + 1 });
@@ -321,7 +334,7 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {},
     toggleAtCursor({ add = false } = {}) {
       const c = view.get().cursor;
       if (view.get().tool === 'erase') drawCell(c, false, add);
-      else drawCell(c, c.grid === 'warpColors' || c.grid === 'weftColors' || !isMarked(c), add);
+      else drawCell(c, isThreadRow(c.grid) || !isMarked(c), add);
       const { index, value } = refOf(c);
       say(describeCell(doc.get().draft, c.grid, index, value, isMarked(c)));
     },
@@ -340,6 +353,16 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {},
       const axis = axisOfTarget(t.grid);
       if (!axis) return say('Repeat works on ends or picks.');
       run(doc.apply(repeatRun, { axis, from: t.from, to: t.to, times }), `Repeated ${times} time${times === 1 ? '' : 's'}.`, 'Nothing changed.');
+    },
+    repeatWithChange(times, change) {
+      const t = target();
+      if (t.grid !== 'threading' && !isThreadRow(t.grid)) return say('Repeat with a change works on the threading and the colour and layer rows.');
+      if (!t.isSelection) return say('Select the run to repeat first (shift and arrows, or drag with Select).');
+      run(
+        doc.apply(repeatWithChangeRun, { grid: t.grid, from: t.from, to: t.to, times, change }),
+        `Repeated ${times} time${times === 1 ? '' : 's'}, then ${change === 'reverse' ? 'reversed' : 'with two values swapped'} ${times} time${times === 1 ? '' : 's'}, across the ${axisOf(t.grid) === 'ends' ? 'warp' : 'weft'}.`,
+        'Nothing changed.',
+      );
     },
     mirror() {
       const t = target();
@@ -464,5 +487,9 @@ export function describeCell(draft: Draft, grid: GridId, index: number, value: n
       return `Warp colours, end ${index + 1}: colour ${(draft.warpColors[index] ?? 0) + 1}.`;
     case 'weftColors':
       return `Weft colours, pick ${index + 1}: colour ${(draft.weftColors[index] ?? 0) + 1}.`;
+    case 'warpLayers':
+      return `Warp layers, end ${index + 1}: layer ${draft.warpLayers[index] ?? 1}.`;
+    case 'weftLayers':
+      return `Weft layers, pick ${index + 1}: layer ${draft.weftLayers[index] ?? 1}.`;
   }
 }

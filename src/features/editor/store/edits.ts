@@ -1,19 +1,26 @@
 import { isDraft, original, produce, type Draft as ImmerDraft } from 'immer';
 import type { Draft } from '../../../../shared/weave';
 import {
+  alternateLayers,
   brokenDraw,
+  layersByColour,
+  layersByShaft,
+  MAX_LAYERS,
   MAX_SHAFTS,
   MAX_TREADLES,
   mirror,
   pointDraw,
   repeat,
+  repeatWithChange,
+  resolveLayers,
   reverse,
   straightDraw,
   toLiftPlanDraft,
   toTreadlingDraft,
   treadleDraftAsDrawnIn,
+  type RunChange,
 } from '../../../../shared/weave';
-import { axisOf, type GridId, type ListGridId } from './grids';
+import { axisOf, isThreadRow, type GridId, type ListGridId, type ThreadRowId } from './grids';
 
 /**
  * The editor's edits. Each is written once as an immer recipe and exported two ways: as a pure
@@ -70,6 +77,34 @@ function pickLists(d: D): { list: number[]; fill: number }[] {
   if (d.weftLayers.length > 0) lists.push({ list: d.weftLayers, fill: d.weftLayers.at(-1) ?? 1 });
   if (d.blocks) lists.push({ list: d.blocks.weft, fill: 0 });
   return lists;
+}
+
+/**
+ * A colour or layer row to write into. A layer list left empty (all layer 1) is filled out first,
+ * so writing a layer never shortens the others' meaning.
+ */
+function threadRow(d: D, grid: ThreadRowId): number[] {
+  if (grid === 'warpColors') return d.warpColors;
+  if (grid === 'weftColors') return d.weftColors;
+  const list = grid === 'warpLayers' ? d.warpLayers : d.weftLayers;
+  const n = grid === 'warpLayers' ? d.threading.length : pickList(d).length;
+  if (list.length < n) list.push(...Array.from(resolveLayers(list, n)).slice(list.length));
+  return list;
+}
+
+/** A colour or layer row as it reads, whole (an empty layer list reads as all layer 1). */
+function readThreadRow(draft: Draft, grid: ThreadRowId): readonly number[] {
+  if (grid === 'warpColors') return draft.warpColors;
+  if (grid === 'weftColors') return draft.weftColors;
+  return grid === 'warpLayers' ? resolveLayerList(draft.warpLayers, draft.threading.length) : resolveLayerList(draft.weftLayers, picksIn(draft));
+}
+
+const resolveLayerList = (list: readonly number[], n: number) => Array.from(resolveLayers(list, n));
+const picksIn = (d: Draft) => (d.control === 'liftplan' ? d.liftplan.length : d.treadling.length);
+
+/** Whether a value belongs in a colour or layer row. */
+function fitsRow(d: Draft, grid: ThreadRowId, value: number): boolean {
+  return grid === 'warpColors' || grid === 'weftColors' ? value >= 0 && value < d.palette.length : value >= 1 && value <= MAX_LAYERS;
 }
 
 /** Inserts `count` empty ends (axis 'ends') or picks at `at`, keeping every per-thread list in step. */
@@ -146,20 +181,44 @@ export const setCell = edit<CellArgs>('Draw', (d, { grid, index, value, on, sing
 });
 
 export interface PaintArgs {
-  grid: 'warpColors' | 'weftColors';
+  grid: ThreadRowId;
   from: number;
   to: number;
+  /** A palette index for the colour rows, a 1-based layer for the layer rows. */
   color: number;
 }
 
-/** Paints a run of ends or picks in one palette colour, growing the draft if the run reaches past it. */
+/** Paints a run of ends or picks in one colour (or layer), growing the draft if the run reaches past it. */
 export const paintColor = edit<PaintArgs>('Paint', (d, { grid, from, to, color }) => {
-  if (color < 0 || color >= d.palette.length) return;
+  if (!fitsRow(d as Draft, grid, color)) return;
   const a = Math.max(0, Math.min(from, to));
   const b = Math.max(from, to);
   ensureIndex(d, grid, b);
-  const list = grid === 'warpColors' ? d.warpColors : d.weftColors;
+  const list = threadRow(d, grid);
   for (let i = a; i <= b; i++) if (list[i] !== color) list[i] = color;
+});
+
+export interface LayerFillArgs {
+  axis: 'ends' | 'picks';
+  /** How to fill: alternate layers 1, 2 over from..to; every thread of a colour; every end on shafts low..high. */
+  by: { kind: 'alternate'; from: number; to: number } | { kind: 'colour'; colour: number; layer: number } | { kind: 'shaft'; low: number; high: number; layer: number };
+}
+
+/** The layer rows' quick fills: alternate 1-2, by colour, by shaft (ends only). */
+export const fillLayers = edit<LayerFillArgs>('Layers', (d, { axis, by }) => {
+  const draft = original(d) as Draft;
+  const ends = axis === 'ends';
+  const count = ends ? draft.threading.length : picksIn(draft);
+  const current = ends ? draft.warpLayers : draft.weftLayers;
+  let next: number[];
+  if (by.kind === 'alternate') next = alternateLayers(current, count, by.from, by.to);
+  else if (by.kind === 'colour') next = layersByColour(current, ends ? draft.warpColors : draft.weftColors, by.colour, by.layer);
+  else if (ends) next = layersByShaft(current, draft.threading, by.low, by.high, by.layer);
+  else return;
+  const before = resolveLayerList(current, count);
+  if (current.length === count && next.every((v, i) => v === before[i])) return;
+  if (ends) d.warpLayers = next;
+  else d.weftLayers = next;
 });
 
 export interface RangeArgs {
@@ -170,7 +229,7 @@ export interface RangeArgs {
 
 /** Clears every cell of the entries from..to (colour orders are left as they are). */
 export const eraseRange = edit<RangeArgs>('Erase', (d, { grid, from, to }) => {
-  if (grid === 'warpColors' || grid === 'weftColors' || !editable(d, grid)) return;
+  if (isThreadRow(grid) || !editable(d, grid)) return;
   const list = listOf(d, grid);
   for (let i = Math.max(0, from); i <= Math.min(to, list.length - 1); i++) if (list[i].length > 0) list[i] = [];
 });
@@ -196,8 +255,7 @@ export const deleteThreadsEdit = edit<DeleteArgs>('Delete', (d, { axis, from, to
 /** Reverses the order of the entries from..to (a run read backwards). */
 export const reverseRange = edit<RangeArgs>('Reverse', (d, { grid, from, to }) => {
   if (!editable(d, grid)) return;
-  const list: unknown[] =
-    grid === 'warpColors' ? d.warpColors : grid === 'weftColors' ? d.weftColors : listOf(d, grid);
+  const list: unknown[] = isThreadRow(grid) ? threadRow(d, grid) : listOf(d, grid);
   const a = Math.max(0, from);
   const b = Math.min(to, list.length - 1);
   if (b <= a) return;
@@ -235,9 +293,8 @@ export type Clip = { kind: 'lists'; entries: number[][] } | { kind: 'colors'; en
 /** The entries from..to of a grid, to paste elsewhere. */
 export function copyRange(draft: Draft, { grid, from, to }: RangeArgs): Clip {
   const a = Math.max(0, from);
-  if (grid === 'warpColors' || grid === 'weftColors') {
-    const list = grid === 'warpColors' ? draft.warpColors : draft.weftColors;
-    return { kind: 'colors', entries: list.slice(a, to + 1) };
+  if (isThreadRow(grid)) {
+    return { kind: 'colors', entries: readThreadRow(draft, grid).slice(a, to + 1) };
   }
   const list =
     grid === 'threading' ? draft.threading : grid === 'tieup' ? draft.tieup : grid === 'treadling' ? draft.treadling : draft.liftplan;
@@ -257,12 +314,12 @@ export interface PasteArgs {
 export const pasteClip = edit<PasteArgs>('Paste', (d, { grid, at, clip }) => {
   if (clip.entries.length === 0 || at < 0 || !editable(d, grid)) return;
   const last = at + clip.entries.length - 1;
-  if (grid === 'warpColors' || grid === 'weftColors') {
+  if (isThreadRow(grid)) {
     if (clip.kind !== 'colors') return;
     ensureIndex(d, grid, last);
-    const list = grid === 'warpColors' ? d.warpColors : d.weftColors;
+    const list = threadRow(d, grid);
     clip.entries.forEach((c, i) => {
-      if (c < d.palette.length && list[at + i] !== c) list[at + i] = c;
+      if (fitsRow(d as Draft, grid, c) && list[at + i] !== c) list[at + i] = c;
     });
     return;
   }
@@ -463,6 +520,37 @@ export const repeatRun = edit<RepeatArgs>('Repeat', (d, { axis, from, to, times 
   const run = threadRun(d, axis, a, b);
   if ((run.entries[0]?.length ?? 0) === 0 || times < 1) return;
   writeRun(d, axis, b + 1, { entries: run.entries.map((list) => repeat(list, Math.min(times, 1000))) });
+});
+
+export interface ChangeRepeatArgs {
+  grid: 'threading' | ThreadRowId;
+  from: number;
+  to: number;
+  /** K: the run K times, then its change K times. */
+  times: number;
+  change: RunChange;
+}
+
+/**
+ * Repeat with a change, in one row (the threading, or a colour or layer row) from the run on: the
+ * run K times, its changed copy K times, and so on across the rest of the warp (or weft), at least
+ * once each. Other rows are left as they are.
+ */
+export const repeatWithChangeRun = edit<ChangeRepeatArgs>('Repeat with a change', (d, { grid, from, to, times, change }) => {
+  const a = Math.max(0, Math.min(from, to));
+  const b = Math.max(from, to);
+  const draft = original(d) as Draft;
+  const length = grid === 'threading' ? draft.threading.length : axisOf(grid) === 'ends' ? draft.threading.length : picksIn(draft);
+  const source: readonly unknown[] = grid === 'threading' ? draft.threading : readThreadRow(draft, grid);
+  const run = source.slice(a, Math.min(b, length - 1) + 1);
+  const k = Math.max(1, Math.min(times, 1000));
+  if (run.length === 0) return;
+  const pair = 2 * k * run.length;
+  const out = repeatWithChange(run, k, change, Math.max(1, Math.ceil((length - a) / pair)));
+  const total = Math.max(pair, Math.min(out.length, length - a));
+  ensureIndex(d, grid, a + total - 1);
+  const list: unknown[] = grid === 'threading' ? d.threading : threadRow(d, grid);
+  for (let i = 0; i < total; i++) if (list[a + i] !== out[i]) list[a + i] = out[i];
 });
 
 /** Follows ends (or picks) from..to with their mirror image, the last one shared as the centre (a point repeat). */
