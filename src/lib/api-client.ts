@@ -64,6 +64,8 @@ export interface RequestOptions {
   /** Added to the path as search params; null and undefined values are left out. */
   query?: Record<string, QueryValue>;
   signal?: AbortSignal;
+  /** Lets the request finish after the page has gone (a save as the weaver leaves); bodies must stay under 64 KiB. */
+  keepalive?: boolean;
 }
 
 // Kept in memory only: a token in storage would outlive the session it belongs to.
@@ -115,6 +117,7 @@ async function send<T>(method: Method, path: string, options: RequestOptions, to
       credentials: 'same-origin',
       body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
       signal: options.signal,
+      keepalive: options.keepalive,
     });
   } catch (cause) {
     if (options.signal?.aborted) throw cause;
@@ -154,7 +157,7 @@ export const api = {
   get: <T>(path: string, options?: Omit<RequestOptions, 'body'>) => apiRequest<T>('GET', path, options),
   post: <T>(path: string, body?: unknown) => apiRequest<T>('POST', path, { body }),
   patch: <T>(path: string, body?: unknown) => apiRequest<T>('PATCH', path, { body }),
-  put: <T>(path: string, body?: unknown) => apiRequest<T>('PUT', path, { body }),
+  put: <T>(path: string, body?: unknown, options?: Pick<RequestOptions, 'keepalive'>) => apiRequest<T>('PUT', path, { ...options, body }),
   /** Sends a multipart form (file uploads). */
   postForm: <T>(path: string, form: FormData) => apiRequest<T>('POST', path, { body: form }),
   delete: <T>(path: string) => apiRequest<T>('DELETE', path),

@@ -141,3 +141,79 @@ describe('wheel and trackpad', () => {
     await expect.poll(async () => Number(await zoom.inputValue())).toBeGreaterThan(before);
   });
 });
+
+const status = (page: Page) => page.getByTestId('save-status');
+
+/** The cell under the cursor in the editor's words, after a step right and back. */
+async function cursorCell(page: Page): Promise<string | null> {
+  await page.getByTestId('draft-canvas').focus();
+  await page.keyboard.press('ArrowRight');
+  await page.keyboard.press('ArrowLeft');
+  return message(page).textContent();
+}
+
+describe('never lose work', () => {
+  it('a cell painted just before going to another page is on the server after a reload', async () => {
+    const { page } = app.browser;
+    const id = await openNewDraft(page, 'Leave at once');
+    const draftUrl = page.url();
+    // The cursor starts on end 1, top row (shaft 8); the draft has end 1 on shaft 1. Mark it and
+    // follow a link in the same task: well within 100 ms, and before any autosave pause is over.
+    await page.evaluate(() => {
+      document.querySelector('[data-testid="draft-canvas"]')!.dispatchEvent(new KeyboardEvent('keydown', { key: ' ', bubbles: true }));
+      [...document.querySelectorAll('a')].find((a) => a.textContent === 'Plan')!.click();
+    });
+    await page.waitForURL(/\/plan$/);
+    await page.goto(draftUrl);
+    await page.getByTestId('draft-canvas').waitFor();
+    await expect.poll(async () => (await serverDraft(page, id)).document.threading[0]).toEqual([8]);
+    expect(await cursorCell(page)).toBe('Threading, end 1, shaft 8: marked.');
+  });
+
+  it('an edit made offline survives a reload without network, says so, and is saved when the network returns', async () => {
+    const { page, context } = app.browser;
+    const id = await openNewDraft(page, 'Offline edit');
+    // The app itself comes from the service worker's cache when offline: let it take the page first.
+    await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
+    await page.reload();
+    await page.getByTestId('draft-canvas').waitFor();
+    await context.setOffline(true);
+    await page.getByTestId('draft-canvas').focus();
+    await page.keyboard.press('Space');
+    await status(page).getByText('Offline — edits kept on this device').waitFor({ timeout: 20_000 });
+
+    // Reloading with edits that cannot be sent asks first.
+    const asked: string[] = [];
+    const answer = (d: Dialog) => {
+      asked.push(d.type());
+      void d.accept();
+    };
+    page.on('dialog', answer);
+    await page.reload();
+    await page.getByTestId('draft-canvas').waitFor();
+    page.off('dialog', answer);
+    expect(asked).toEqual(['beforeunload']);
+    await page.getByTestId('restored-notice').waitFor();
+    expect(await cursorCell(page)).toBe('Threading, end 1, shaft 8: marked.');
+    await screenshot(page, 'editor-restored-offline');
+
+    await context.setOffline(false);
+    await status(page).getByText('Saved').waitFor({ timeout: 30_000 });
+    const saved = await serverDraft(page, id);
+    expect(saved.document.threading[0]).toEqual([8]);
+  });
+
+  it('undo works after a reload', async () => {
+    const { page } = app.browser;
+    const id = await openNewDraft(page, 'Undo after reload');
+    await page.keyboard.press('Space');
+    await status(page).getByText('Saved').waitFor({ timeout: 20_000 });
+    await page.reload();
+    await page.getByTestId('draft-canvas').waitFor();
+    await page.getByRole('button', { name: /^Undo draw/ }).waitFor();
+    await page.getByTestId('draft-canvas').focus();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => message(page).textContent()).toBe('Undid draw.');
+    await expect.poll(async () => (await serverDraft(page, id)).document.threading[0], { timeout: 20_000 }).toEqual([1]);
+  });
+});

@@ -34,6 +34,7 @@ export function DraftEditorRegion({ draft }: { draft: DraftDetail }) {
           draftId={String(draft.id)}
           readOnly={readOnly}
           onSave={readOnly ? undefined : save}
+          guardNavigation
         />
       </section>
       <DraftPrintSection draftId={draft.id} draft={parsed.document} />

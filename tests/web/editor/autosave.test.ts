@@ -1,24 +1,10 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { Draft } from '../../../shared/weave';
-import { createAutosave, findLocalCopy, type SaveResult } from '../../../src/features/editor/store/autosave';
+import { memoryLocalStore, unsavedKey, type UnsavedCopy } from '../../../src/lib/local-drafts';
+import { createAutosave, type SaveResult } from '../../../src/features/editor/store/autosave';
 import { createDraftStore } from '../../../src/features/editor/store/draft-store';
-import { setCell, setShafts } from '../../../src/features/editor/store/edits';
+import { deleteThreadsEdit, setCell, setShafts } from '../../../src/features/editor/store/edits';
 import { twill } from './fixtures';
-
-/** A Storage stand-in (a Map), so each test starts with an empty device. */
-function memoryStorage() {
-  const map = new Map<string, string>();
-  return {
-    map,
-    get length() {
-      return map.size;
-    },
-    key: (i: number) => [...map.keys()][i] ?? null,
-    getItem: (k: string) => map.get(k) ?? null,
-    setItem: (k: string, v: string) => void map.set(k, v),
-    removeItem: (k: string) => void map.delete(k),
-  };
-}
 
 /** window stand-in for the `online` event. */
 function eventTarget() {
@@ -42,8 +28,8 @@ describe('autosave', () => {
   it('waits for a pause, sends one snapshot with its base version, then shows Saved', async () => {
     const doc = createDraftStore(twill());
     const onSave = vi.fn(async (_d: Draft, base: number): Promise<SaveResult> => ({ version: base + 1 }));
-    const storage = memoryStorage();
-    const saver = createAutosave({ doc, draftId: '7', version: 4, onSave, delay: 1000, storage });
+    const local = memoryLocalStore();
+    const saver = createAutosave({ doc, draftId: '7', version: 4, onSave, delay: 1000, local });
     doc.apply(setShafts, { shafts: 5 });
     doc.apply(setShafts, { shafts: 6 });
     expect(saver.get().status).toBe('saving');
@@ -56,7 +42,7 @@ describe('autosave', () => {
     expect(onSave.mock.calls[0][1]).toBe(4);
     expect(saver.get()).toMatchObject({ status: 'saved', version: 5 });
     // Once the server has it, the copy on the device is dropped.
-    expect(storage.map.size).toBe(0);
+    expect(local.map.size).toBe(0);
     saver.dispose();
   });
 
@@ -67,16 +53,16 @@ describe('autosave', () => {
       if (!online) throw new TypeError('Failed to fetch');
       return { version: base + 1 };
     });
-    const storage = memoryStorage();
+    const local = memoryLocalStore();
     const events = eventTarget();
-    const saver = createAutosave({ doc, draftId: '9', version: 2, onSave, delay: 500, storage, events });
+    const saver = createAutosave({ doc, draftId: '9', version: 2, onSave, delay: 500, local, events });
     doc.apply(setCell, { grid: 'threading', index: 0, value: 4, on: true, single: true });
     await vi.advanceTimersByTimeAsync(500);
     await flush();
     expect(saver.get().status).toBe('offline');
-    // Kept under the draft id and the version the edits are based on.
-    expect([...storage.map.keys()]).toEqual(['shedwright:unsaved:9:2']);
-    expect(findLocalCopy(storage, '9')?.document.threading[0]).toEqual([4]);
+    // Kept under the draft id, with the version the edits are based on.
+    expect([...local.map.keys()]).toEqual([unsavedKey('9')]);
+    expect(local.map.get(unsavedKey('9'))).toMatchObject({ baseVersion: 2, document: { threading: expect.arrayContaining([[4]]) } });
     // Retries back off: 1 s, then 2 s.
     await vi.advanceTimersByTimeAsync(1000);
     await flush();
@@ -89,7 +75,7 @@ describe('autosave', () => {
     await flush();
     expect(onSave).toHaveBeenCalledTimes(3);
     expect(saver.get()).toMatchObject({ status: 'saved', version: 3 });
-    expect(storage.map.size).toBe(0);
+    expect(local.map.size).toBe(0);
     saver.dispose();
   });
 
@@ -100,7 +86,7 @@ describe('autosave', () => {
       .fn<(d: Draft, base: number) => Promise<SaveResult>>()
       .mockResolvedValueOnce({ conflict: { version: 8, document: theirs } })
       .mockResolvedValueOnce({ version: 9 });
-    const saver = createAutosave({ doc, draftId: '3', version: 7, onSave, delay: 100, storage: memoryStorage() });
+    const saver = createAutosave({ doc, draftId: '3', version: 7, onSave, delay: 100, local: memoryLocalStore() });
     doc.apply(setShafts, { shafts: 6 });
     await vi.advanceTimersByTimeAsync(100);
     await flush();
@@ -123,7 +109,7 @@ describe('autosave', () => {
     const doc = createDraftStore(twill());
     const theirs = twill({ name: 'Their edit' });
     const onSave = vi.fn(async (): Promise<SaveResult> => ({ conflict: { version: 12, document: theirs } }));
-    const saver = createAutosave({ doc, draftId: '4', version: 11, onSave, delay: 100, storage: memoryStorage() });
+    const saver = createAutosave({ doc, draftId: '4', version: 11, onSave, delay: 100, local: memoryLocalStore() });
     doc.apply(setShafts, { shafts: 6 });
     await vi.advanceTimersByTimeAsync(100);
     await flush();
@@ -140,7 +126,7 @@ describe('autosave', () => {
     const doc = createDraftStore(twill());
     let resolve: (r: SaveResult) => void = () => {};
     const onSave = vi.fn((_d: Draft, base: number) => new Promise<SaveResult>((r) => (resolve = () => r({ version: base + 1 }))));
-    const saver = createAutosave({ doc, draftId: '5', version: 1, onSave, delay: 100, storage: memoryStorage() });
+    const saver = createAutosave({ doc, draftId: '5', version: 1, onSave, delay: 100, local: memoryLocalStore() });
     doc.apply(setShafts, { shafts: 5 });
     await vi.advanceTimersByTimeAsync(100);
     doc.apply(setShafts, { shafts: 6 });
@@ -154,6 +140,82 @@ describe('autosave', () => {
     resolve({ version: 3 });
     await flush();
     expect(saver.get()).toMatchObject({ status: 'saved', version: 3 });
+    saver.dispose();
+  });
+
+  it('writes the copy on the device a moment after an edit, before the save is due', async () => {
+    const doc = createDraftStore(twill());
+    const local = memoryLocalStore();
+    const onSave = vi.fn(async (_d: Draft, base: number): Promise<SaveResult> => ({ version: base + 1 }));
+    const saver = createAutosave({ doc, draftId: '6', version: 1, onSave, delay: 1000, keepDelay: 150, local });
+    doc.apply(setShafts, { shafts: 6 });
+    await vi.advanceTimersByTimeAsync(150);
+    expect(onSave).not.toHaveBeenCalled();
+    expect((local.map.get(unsavedKey('6')) as UnsavedCopy).document.shafts).toBe(6);
+    saver.dispose();
+  });
+
+  it('leaving sends unsent edits at once, in a request that outlives the page', async () => {
+    const doc = createDraftStore(twill());
+    const local = memoryLocalStore();
+    const onSave = vi.fn(async (_d: Draft, base: number, _o?: { keepalive?: boolean }): Promise<SaveResult> => ({ version: base + 1 }));
+    const saver = createAutosave({ doc, draftId: '8', version: 1, onSave, delay: 1000, local });
+    doc.apply(setShafts, { shafts: 6 });
+    // Unmounting (another section, another page) leaves: nothing waits for the pause.
+    saver.dispose();
+    expect(onSave).toHaveBeenCalledTimes(1);
+    expect(onSave.mock.calls[0][2]).toEqual({ keepalive: true });
+    expect((local.map.get(unsavedKey('8')) as UnsavedCopy).document.shafts).toBe(6);
+    await flush();
+    // The answer still clears the copy on the device, though the editor has gone.
+    expect(local.map.size).toBe(0);
+  });
+
+  it('a conflict with the very draft sent is no conflict: an earlier send arrived without its answer', async () => {
+    const doc = createDraftStore(twill());
+    const onSave = vi.fn(async (d: Draft): Promise<SaveResult> => ({ conflict: { version: 5, document: structuredClone(d) } }));
+    const saver = createAutosave({ doc, draftId: '10', version: 4, onSave, delay: 100, local: memoryLocalStore() });
+    saver.forceSave();
+    await flush();
+    expect(saver.get()).toMatchObject({ status: 'saved', version: 5, conflict: null });
+    saver.dispose();
+  });
+
+  it('never sends a draft without ends or picks, and says why; the copy stays on the device', async () => {
+    const doc = createDraftStore(twill());
+    const local = memoryLocalStore();
+    const onSave = vi.fn(async (_d: Draft, base: number): Promise<SaveResult> => ({ version: base + 1 }));
+    const saver = createAutosave({ doc, draftId: '11', version: 1, onSave, delay: 100, local });
+    doc.apply(deleteThreadsEdit, { axis: 'ends', from: 0, to: 7 });
+    await vi.advanceTimersByTimeAsync(100);
+    await flush();
+    expect(onSave).not.toHaveBeenCalled();
+    expect(saver.get().status).toBe('incomplete');
+    expect(saver.cannotSendOnLeave()).toBe(true);
+    expect((local.map.get(unsavedKey('11')) as UnsavedCopy).document.threading).toEqual([]);
+    // Drawing an end again makes it saveable.
+    doc.apply(setCell, { grid: 'threading', index: 0, value: 1, on: true, single: true });
+    await vi.advanceTimersByTimeAsync(100);
+    await flush();
+    expect(onSave).toHaveBeenCalledTimes(1);
+    expect(saver.get().status).toBe('saved');
+    saver.dispose();
+  });
+
+  it('asks before the page closes only when the edits cannot go with it', async () => {
+    const doc = createDraftStore(twill());
+    const onSave = vi.fn(async (): Promise<SaveResult> => {
+      throw new TypeError('Failed to fetch');
+    });
+    const saver = createAutosave({ doc, draftId: '12', version: 1, onSave, delay: 100, local: memoryLocalStore() });
+    expect(saver.cannotSendOnLeave({ pageClosing: true })).toBe(false);
+    doc.apply(setShafts, { shafts: 6 });
+    // Not yet tried: it can still go with the page.
+    expect(saver.cannotSendOnLeave({ pageClosing: true })).toBe(false);
+    await vi.advanceTimersByTimeAsync(100);
+    await flush();
+    expect(saver.get().status).toBe('offline');
+    expect(saver.cannotSendOnLeave({ pageClosing: true })).toBe(true);
     saver.dispose();
   });
 });

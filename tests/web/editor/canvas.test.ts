@@ -92,7 +92,8 @@ describe('painter', () => {
       }),
       { numRuns: 60 },
     );
-  });
+    // Some seconds of work: under a loaded machine it needs room past the default 5 s.
+  }, 60_000);
 
   it('repaints only the grids whose lists changed', () => {
     const store = createDraftStore(twill());

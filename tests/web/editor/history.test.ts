@@ -25,6 +25,8 @@ import {
   treadleAsDrawnInEdit,
   type Edit,
 } from '../../../src/features/editor/store/edits';
+import { keepHistory, restoreKeptHistory } from '../../../src/features/editor/store/kept-history';
+import { memoryLocalStore } from '../../../src/lib/local-drafts';
 import { twill } from './fixtures';
 
 const clone = (d: Draft): Draft => JSON.parse(JSON.stringify(d)) as Draft;
@@ -138,5 +140,36 @@ describe('undo property', () => {
       ),
       { numRuns: 200 },
     );
+  });
+});
+
+describe('undo history kept on the device', () => {
+  it('comes back after a reload, 250 steps deep, and undoes to the original', async () => {
+    const local = memoryLocalStore();
+    const original = twill();
+    const first = createDraftStore(original);
+    const keeper = keepHistory(local, '42', first, 10);
+    for (let i = 0; i < 250; i++) first.apply(setShafts, { shafts: 5 + (i % 2) });
+    first.undo();
+    keeper.dispose();
+    // The reload: a new store opening the draft as it was left.
+    const second = createDraftStore(clone(first.get().draft));
+    expect(await restoreKeptHistory(local, '42', second)).toBe(249);
+    expect(second.get().undoLabel).toBe(first.get().undoLabel);
+    expect(second.redo()).toBe(true);
+    expect(second.undo()).toBe(true);
+    while (second.undo());
+    expect(second.get().draft).toEqual(original);
+  });
+
+  it('is not used for a draft that has changed since (patches would undo the wrong things)', async () => {
+    const local = memoryLocalStore();
+    const first = createDraftStore(twill());
+    const keeper = keepHistory(local, '43', first, 10);
+    first.apply(setShafts, { shafts: 6 });
+    keeper.dispose();
+    const second = createDraftStore(twill({ name: 'Changed elsewhere' }));
+    expect(await restoreKeptHistory(local, '43', second)).toBe(0);
+    expect(second.undo()).toBe(false);
   });
 });

@@ -1,7 +1,7 @@
 import { useStore } from '../store/create-store';
 import { SAVE_STATUS_TEXT, type Autosave } from '../store/autosave';
 
-const MARKS = { saved: '✓', saving: '…', offline: '⚠', conflict: '⚠' } as const;
+const MARKS = { saved: '✓', saving: '…', offline: '⚠', conflict: '⚠', incomplete: '⚠' } as const;
 
 /** "Saved / Saving… / Offline — edits kept on this device / Conflict", and the conflict choices. */
 export function SaveStatus({ autosave }: { autosave: Autosave }) {
@@ -11,7 +11,7 @@ export function SaveStatus({ autosave }: { autosave: Autosave }) {
     <div className="flex flex-col items-end gap-1">
       <p role="status" aria-live="polite" className="flex items-center gap-1 text-sm" data-testid="save-status">
         <span aria-hidden="true">{MARKS[status]}</span>
-        <span className={status === 'offline' || status === 'conflict' ? 'font-medium text-danger' : 'text-muted'}>{SAVE_STATUS_TEXT[status]}</span>
+        <span className={status === 'offline' || status === 'conflict' || status === 'incomplete' ? 'font-medium text-danger' : 'text-muted'}>{SAVE_STATUS_TEXT[status]}</span>
       </p>
       {conflict && (
         <div role="alertdialog" aria-labelledby="conflict-title" aria-describedby="conflict-text" className="max-w-sm rounded-md border-2 border-danger bg-danger-soft p-3 text-sm">

@@ -5,8 +5,8 @@ import type { Edit } from './edits';
 
 enablePatches();
 
-/** One undo step: everything one gesture changed. */
-interface Step {
+/** One undo step: everything one gesture changed (plain data, so it can be kept on the device). */
+export interface Step {
   label: string;
   patches: Patch[];
   inverse: Patch[];
@@ -41,6 +41,10 @@ export interface DraftStore extends Store<DraftState> {
   redo(): boolean;
   /** Replaces the draft from outside (server copy, conflict choice): not an undo step, and history is cleared. */
   load(draft: Draft): void;
+  /** The undo and redo steps, oldest first, to keep them through a reload. */
+  history(): { past: Step[]; future: Step[] };
+  /** Takes back steps kept by {@link history}; they must end at the current draft. */
+  restoreHistory(steps: { past: Step[]; future: Step[] }): void;
 }
 
 /** The open draft and its undo history, as immer patches (tldraw/excalidraw style marks per gesture). */
@@ -120,6 +124,14 @@ export function createDraftStore(initial: Draft, guard: EditGuard = () => true):
       future = [];
       gesture = null;
       publish(draft);
+    },
+    history: () => ({ past, future }),
+    restoreHistory(steps) {
+      past = steps.past.slice(-HISTORY_LIMIT);
+      future = steps.future.slice();
+      gesture = null;
+      // Labels change, the draft does not: the revision stays, so nothing is taken for an edit.
+      store.set((s) => ({ ...s, undoLabel: past.at(-1)?.label ?? null, redoLabel: future.at(-1)?.label ?? null }));
     },
   };
 }
