@@ -9,3 +9,4 @@ export * from './loom-lists';
 export * from './plan-schema';
 export * from './compute-plan';
 export * from './picks';
+export * from './thread-sizes';

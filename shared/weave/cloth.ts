@@ -24,8 +24,8 @@ export function rgbToHex(r: number, g: number, b: number): string {
 
 const littleEndian = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
 
-/** Palette entry as a 32-bit word whose bytes in memory are R, G, B, 255. */
-function packedRgba(hex: string): number {
+/** '#rrggbb' as a 32-bit pixel word whose bytes in memory are R, G, B, 255 (for writing ImageData as words). */
+export function packedRgba(hex: string): number {
   const [r, g, b] = hexToRgb(hex);
   return (littleEndian ? ((255 << 24) | (b << 16) | (g << 8) | r) : ((r << 24) | (g << 16) | (b << 8) | 255)) >>> 0;
 }

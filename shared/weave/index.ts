@@ -17,3 +17,5 @@ export * from './words';
 export * from './layer-lists';
 export * from './compare';
 export * from './text';
+export * from './picture';
+export * from './threads';

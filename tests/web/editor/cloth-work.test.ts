@@ -3,9 +3,9 @@
 // (what postMessage does), and the page-side client that sends requests one at a time.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { computeDrawdown, expandProfile, findFloats, renderCloth, simulateLayers, type Draft } from '../../../shared/weave';
-import { pixel } from '../../../src/features/editor/canvas/bitmap';
-import { createClothWorker, MAX_TILED_CELLS, transferablesOf, type ClothRequest, type ClothResult } from '../../../src/features/editor/canvas/cloth-work';
+import { threadSizesFor } from '../../../shared/plan';
+import { computeDrawdown, expandProfile, findFloats, renderThreads, simulateLayers, type Draft } from '../../../shared/weave';
+import { createClothWorker, MAX_UNFRAMED, transferablesOf, type ClothRequest, type ClothResult } from '../../../src/features/editor/canvas/cloth-work';
 import { TONES } from '../../../src/features/editor/canvas/paint';
 import { createClothResults, pageRunner, type ClothRunner, type StartRunner } from '../../../src/features/editor/store/cloth-results';
 import { createDraftStore } from '../../../src/features/editor/store/draft-store';
@@ -45,15 +45,16 @@ describe('cloth work (what the worker runs)', () => {
       fc.property(arbitraryDraft, fc.integer({ min: 1, max: 6 }), (draft, floatLimit) => {
         const result = createClothWorker()(request(draft, { floatLimit }));
         const dd = computeDrawdown(draft);
-        const cloth = renderCloth(draft, dd);
         const { structure, colour, floats } = result.pictures;
-        for (const p of [structure, colour, floats]) expect(p && [p.width, p.height, p.repeats]).toEqual([dd.ends, dd.picks, 1]);
+        for (const p of [structure, floats]) expect(p && [p.width, p.height, p.repeats, p.zoom]).toEqual([dd.ends, dd.picks, 1, 1]);
         for (let y = 0; y < dd.picks; y++) {
-          for (let x = 0; x < dd.ends; x++) {
-            expect(structure!.pixels[y * dd.ends + x]).toBe(dd.isUp(x, y) ? TONES.warpUp : TONES.weftUp);
-            expect(colour!.pixels[y * dd.ends + x]).toBe(pixel(cloth.colorAt(x, y)));
-          }
+          for (let x = 0; x < dd.ends; x++) expect(structure!.pixels[y * dd.ends + x]).toBe(dd.isUp(x, y) ? TONES.warpUp : TONES.weftUp);
         }
+        // The colour view is the cloth thread by thread, a pixel per end.
+        const sizes = threadSizesFor(draft);
+        const drawn = renderThreads({ draft, drawdown: dd, sizes }, { face: 'colour', pixelsPerInch: sizes.endsPerInch });
+        expect([colour!.width, colour!.height, colour!.pixelsPerInch]).toEqual([drawn.width, drawn.height, sizes.endsPerInch]);
+        expect([...colour!.pixels]).toEqual([...new Uint32Array(drawn.rgba.buffer)]);
         const overLimit = findFloats(draft, { limit: floatLimit }).overLimit;
         expect(result.floatsOverLimit).toBe(overLimit.length);
         // Every float over the limit is hatched where it starts; with none, the floats view is the dimmed structure.
@@ -76,44 +77,64 @@ describe('cloth work (what the worker runs)', () => {
   it('shows both faces and the layer map of a double weave, and none for a single layer', () => {
     const layered = expandProfile(doubleWeaveProfile(), 'double-weave');
     const result = createClothWorker()(request(layered));
-    const sim = simulateLayers(layered);
-    const front = result.pictures.front!;
-    expect([front.width, front.height]).toEqual([sim.front.width, sim.front.height]);
-    for (let y = 0; y < front.height; y++) {
-      for (let x = 0; x < front.width; x++) {
-        expect(front.pixels[y * front.width + x]).toBe(pixel(layered.palette[sim.front.colorAt(x, y)]));
-        expect(result.pictures.back!.pixels[y * front.width + x]).toBe(pixel(layered.palette[sim.back.colorAt(x, y)]));
-      }
+    const dd = computeDrawdown(layered);
+    const layers = simulateLayers(layered);
+    const sizes = threadSizesFor(layered);
+    for (const face of ['front', 'back'] as const) {
+      const drawn = renderThreads({ draft: layered, drawdown: dd, layers, sizes }, { face, pixelsPerInch: sizes.endsPerInch });
+      const shown = result.pictures[face]!;
+      expect([shown.width, shown.height]).toEqual([drawn.width, drawn.height]);
+      expect([...shown.pixels]).toEqual([...new Uint32Array(drawn.rgba.buffer)]);
     }
-    expect(result.pictures.layers).not.toBeNull();
+    const map = result.pictures.layers!;
+    for (let y = 0; y < dd.picks; y++) {
+      for (let x = 0; x < dd.ends; x++) expect(map.pixels[y * dd.ends + x]).not.toBe(0);
+    }
 
     const flat = createClothWorker()(request(twill()));
     expect([flat.pictures.front, flat.pictures.back, flat.pictures.layers]).toEqual([null, null, null]);
     expect(flat.pictures.structure).not.toBeNull();
   });
 
-  it('tiles the repeat as asked, fewer times when the picture would be too large', () => {
+  it('tiles the repeat as asked and draws only the framed window of it', () => {
     fc.assert(
-      fc.property(arbitraryDraft, fc.integer({ min: 1, max: 4 }), (draft, tiles) => {
+      fc.property(arbitraryDraft, fc.integer({ min: 1, max: 4 }), fc.integer({ min: 1, max: 3 }), (draft, tiles, zoom) => {
         const work = createClothWorker();
-        const one = work(request(draft, { views: ['colour'] })).pictures.colour!;
-        const tiled = work(request(draft, { views: ['colour'], tiles, id: 2 })).pictures.colour!;
+        const one = work(request(draft, { views: ['structure'], frames: { structure: { zoom, x: 0, y: 0, width: 4000, height: 4000 } } })).pictures.structure!;
+        const tiled = work(request(draft, { views: ['structure'], tiles, id: 2, frames: { structure: { zoom, x: 0, y: 0, width: 4000, height: 4000 } } })).pictures.structure!;
         expect(tiled.repeats).toBe(tiles);
         expect([tiled.width, tiled.height]).toEqual([one.width * tiles, one.height * tiles]);
-        for (let y = 0; y < tiled.height; y++) {
-          for (let x = 0; x < tiled.width; x++) expect(tiled.pixels[y * tiled.width + x]).toBe(one.pixels[(y % one.height) * one.width + (x % one.width)]);
-        }
+        const repeated = Array.from({ length: tiled.width * tiled.height }, (_, i) => one.pixels[(Math.floor(i / tiled.width) % one.height) * one.width + ((i % tiled.width) % one.width)]);
+        expect([...tiled.pixels]).toEqual(repeated);
+        // A window is the same pixels as that part of the whole.
+        const win = { x: 3, y: 2, width: 7, height: 5 };
+        const part = work(request(draft, { views: ['structure'], tiles, id: 3, frames: { structure: { zoom, ...win } } })).pictures.structure!;
+        const cut = Array.from({ length: part.width * part.height }, (_, i) => tiled.pixels[(Math.floor(i / part.width) + part.y) * tiled.width + (i % part.width) + part.x]);
+        expect([...part.pixels]).toEqual(cut);
       }),
-      { numRuns: 40 },
+      { numRuns: 25 },
     );
-    // 1000 × 1000 cells: a second repeat would pass the cap, so one is shown.
+    // Unframed, a large draft is drawn up to MAX_UNFRAMED pixels a side.
     const big = twill({
       threading: Array.from({ length: 1000 }, (_, i) => [(i % 4) + 1]),
       treadling: Array.from({ length: 1000 }, (_, i) => [(i % 4) + 1]),
     });
-    const picture = createClothWorker()(request(big, { views: ['structure'], tiles: 2 })).pictures.structure!;
-    expect(4 * 1000 * 1000).toBeGreaterThan(MAX_TILED_CELLS);
-    expect([picture.repeats, picture.width, picture.height]).toEqual([1, 1000, 1000]);
+    const picture = createClothWorker()(request(big, { views: ['structure'], tiles: 3 })).pictures.structure!;
+    expect([picture.repeats, picture.width, picture.height, picture.wholeWidth]).toEqual([3, MAX_UNFRAMED, MAX_UNFRAMED, 3000]);
+  });
+
+  it('fits the whole picture in the frame, or shows the cloth at its actual size on the screen', () => {
+    const draft = twill({ threading: Array.from({ length: 40 }, (_, i) => [(i % 4) + 1]), treadling: Array.from({ length: 20 }, (_, i) => [(i % 4) + 1]) });
+    const frame = { x: 0, y: 0, width: 300, height: 300 };
+    const sett = { ...draft, sett: { warp: 20, weft: 10, unit: 'inch' as const } };
+    const fit = createClothWorker()(request(sett, { views: ['colour', 'structure'], frames: { colour: { zoom: 'fit', ...frame }, structure: { zoom: 'fit', ...frame } } }));
+    // 40 ends at 20 per inch: 2 inches across; 20 picks at 10 per inch: 2 inches down. Both fit 300 pixels.
+    expect([fit.pictures.colour!.wholeWidth, fit.pictures.colour!.wholeHeight]).toEqual([300, 300]);
+    expect([fit.pictures.structure!.wholeWidth, fit.pictures.structure!.zoom]).toEqual([300, 7.5]);
+    // Actual size at 192 device pixels per inch (96 CSS pixels per inch at a device pixel ratio of 2).
+    const actual = createClothWorker()(request(sett, { views: ['colour'], frames: { colour: { zoom: 'actual', screenPixelsPerInch: 192, ...frame } } }));
+    expect([actual.pictures.colour!.pixelsPerInch, actual.pictures.colour!.wholeWidth, actual.pictures.colour!.wholeHeight]).toEqual([192, 384, 384]);
+    expect([actual.pictures.colour!.width, actual.pictures.colour!.height]).toEqual([300, 300]);
   });
 
   it('keeps working on the draft of a revision it has seen, and takes the new draft of a new revision', () => {
@@ -147,7 +168,7 @@ describe('cloth work (what the worker runs)', () => {
         const received = structuredClone(result, { transfer: buffers });
         expect(received).toEqual(expected);
         // Handed over, not copied: the worker's buffers are detached.
-        expect(buffers.every((b) => b.byteLength === 0)).toBe(true);
+        expect(buffers.every((b) => (b as ArrayBuffer).byteLength === 0)).toBe(true);
       }),
       { numRuns: 15 },
     );

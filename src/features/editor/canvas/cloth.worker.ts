@@ -1,6 +1,6 @@
 // The cloth views' and Checks' work off the page's main thread, so drawing stays smooth while a
 // large draft's views are worked out. Messages: a ClothRequest in, its ClothResult out.
-import { createClothWorker, transferablesOf, type ClothRequest, type ClothResult } from './cloth-work';
+import { createClothWorker, transferablesOf, withBitmaps, type ClothRequest, type ClothResult } from './cloth-work';
 
 interface WorkerScope {
   onmessage: ((event: MessageEvent<ClothRequest>) => void) | null;
@@ -11,6 +11,6 @@ const scope = self as unknown as WorkerScope;
 const work = createClothWorker();
 
 scope.onmessage = (event) => {
-  const result = work(event.data);
+  const result = withBitmaps(work(event.data));
   scope.postMessage(result, transferablesOf(result));
 };

@@ -1,3 +1,4 @@
+import { threadSizesFor, type ClothThreadSizes } from '../../../../shared/plan';
 import {
   computeDrawdown,
   findFloats,
@@ -38,6 +39,10 @@ export interface Derived {
   cloth(draft: Draft): Cloth;
   floats(draft: Draft, limit: number): FloatReport;
   layers(draft: Draft): LayerSimulation;
+  /** Thread sizes and spacing for the thread-by-thread views. */
+  sizes(draft: Draft): ClothThreadSizes;
+  /** What Checks lists for a float limit, worked out by `compute` when the limit changed. */
+  checks<T>(floatLimit: number, compute: () => T): T;
 }
 
 export function createDerived(): Derived {
@@ -45,6 +50,8 @@ export function createDerived(): Derived {
   const cl = lastResult<Cloth>();
   const fl = lastResult<FloatReport>();
   const ly = lastResult<LayerSimulation>();
+  const sz = lastResult<ClothThreadSizes>();
+  const ch = lastResult<unknown>();
   const drawdown = (d: Draft) => dd([d.threading, d.tieup, d.treadling, d.liftplan, d.shed, d.control], () => computeDrawdown(d));
   return {
     drawdown,
@@ -60,5 +67,8 @@ export function createDerived(): Derived {
       const down = drawdown(d);
       return ly([down, d.warpLayers, d.weftLayers, d.warpColors, d.weftColors, d.palette, d.blocks], () => simulateLayers(d, undefined, { drawdown: down, maxProblems: MAX_LAYER_PROBLEMS }));
     },
+    sizes: (d) => sz([d.threading.length, d.treadling.length, d.liftplan.length, d.control, d.warpColors, d.weftColors, d.yarns, d.sett], () => threadSizesFor(d)),
+    // Checks read the whole draft: kept only while the draft (this object's lifetime) and the limit stay.
+    checks: <T,>(limit: number, compute: () => T) => ch([limit], compute) as T,
   };
 }

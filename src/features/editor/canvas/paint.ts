@@ -1,4 +1,4 @@
-import type { Cloth, Drawdown, FaceImage, Float } from '../../../../shared/weave';
+import type { Cloth, Drawdown, Float } from '../../../../shared/weave';
 import { rowOfShaft } from './layout';
 import { pixel } from './bitmap';
 
@@ -85,22 +85,14 @@ export function paintFloats(out: Uint32Array, dd: Drawdown, floats: readonly Flo
   }
 }
 
-/** Copies a width × height picture `across` × `down` times into `out` (tiling the repeat). */
-export function tile(out: Uint32Array, src: Uint32Array, width: number, height: number, across: number, down: number): void {
-  const outWidth = width * across;
-  for (let y = 0; y < height * down; y++) {
-    const from = (y % height) * width;
-    for (let t = 0; t < across; t++) out.set(src.subarray(from, from + width), y * outWidth + t * width);
-  }
-}
+/** The layer map's tones, layer 1 first; even layers are light and carry a diagonal stripe. */
+const LAYER_TONES = ['#2f44b0', '#e9ecfa', '#1f6a3b', '#f3efe6'];
+const LAYER_WORDS = LAYER_TONES.map(pixel);
 
-/** A face of layered cloth (front, or back already mirrored by the engine) in palette colours. */
-export function paintFace(out: Uint32Array, face: FaceImage, palette: readonly string[]): void {
-  const words = palette.map(pixel);
-  for (let i = 0; i < face.indices.length; i++) out[i] = words[face.indices[i]] ?? TONES.empty;
+/** How layer n (1-based) looks in the layer map: its tone, and whether it is striped. */
+export function layerLook(layer: number): { tone: string; striped: boolean } {
+  return { tone: LAYER_TONES[(layer - 1) % LAYER_TONES.length], striped: layer % 2 === 0 };
 }
-
-const LAYER_TONES = ['#2f44b0', '#e9ecfa', '#1f6a3b', '#f3efe6'].map(pixel);
 
 /**
  * Which layer is on top at each cell. Layer 1 solid, layer 2 light with a diagonal stripe, and so
@@ -112,6 +104,6 @@ export function paintLayerMap(out: Uint32Array, top: Uint8Array, ends: number): 
     const e = i % ends;
     const p = (i - e) / ends;
     const striped = layer % 2 === 0 && (e + p) % 4 === 0;
-    out[i] = striped ? TONES.mark : LAYER_TONES[(layer - 1) % LAYER_TONES.length];
+    out[i] = striped ? TONES.mark : LAYER_WORDS[(layer - 1) % LAYER_WORDS.length];
   }
 }

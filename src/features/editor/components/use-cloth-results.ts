@@ -42,10 +42,11 @@ export function useClothResults(editor: Editor, wait = 200): ClothResults {
   const oneAtATime = useStore(editor.view, (v) => v.oneAtATime);
   const floatLimit = useStore(editor.view, (v) => v.floatLimit);
   const tiles = useStore(editor.view, (v) => v.tile);
+  const frames = useStore(cloth.frames, (f) => f);
   useEffect(() => {
     if (!settled) return;
-    cloth.request({ draft: settled.draft, revision: settled.revision, views: oneAtATime ? panels.slice(0, 1) : panels, floatLimit, tiles });
-  }, [cloth, settled, panels, oneAtATime, floatLimit, tiles]);
+    cloth.request({ draft: settled.draft, revision: settled.revision, views: oneAtATime ? panels.slice(0, 1) : panels, floatLimit, tiles, frames });
+  }, [cloth, settled, panels, oneAtATime, floatLimit, tiles, frames]);
   useEffect(() => () => cloth.dispose(), [cloth]);
   return cloth;
 }

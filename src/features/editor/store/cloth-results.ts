@@ -1,4 +1,5 @@
-import { createClothWorker, type ClothRequest, type ClothResult } from '../canvas/cloth-work';
+import { createClothWorker, type ClothRequest, type ClothResult, type ViewFrame } from '../canvas/cloth-work';
+import type { ClothView } from './editor';
 import { createStore, type Store } from './create-store';
 
 export interface ClothState {
@@ -49,7 +50,11 @@ export const workerRunner: StartRunner | null =
         return { run: (request) => worker.postMessage(request), dispose: () => worker.terminate() };
       };
 
+export type ViewFrames = Partial<Record<ClothView, ViewFrame>>;
+
 export interface ClothResults extends Store<ClothState> {
+  /** What part of each view its panel shows, at what zoom: set by the panels, sent with each request. */
+  frames: Store<ViewFrames>;
   /** Asks for the views and checks of a draft; the newest request wins. */
   request(request: Omit<ClothRequest, 'id'>): void;
   /** Stops the worker and forgets unanswered requests; a later request starts it again. */
@@ -102,6 +107,7 @@ export function createClothResults(start: StartRunner | null = workerRunner): Cl
 
   return {
     ...state,
+    frames: createStore<ViewFrames>({}),
     request(partial) {
       const request = { ...partial, id: nextId++ };
       if (!state.get().working) state.set((s) => ({ ...s, working: true }));
