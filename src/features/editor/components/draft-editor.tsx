@@ -66,7 +66,8 @@ export function DraftEditor(props: DraftEditorProps) {
     return () => {
       live = false;
     };
-    // Read once per mount: the editor then owns the draft.
+    // Read once per mount: the editor then owns the draft, and later props do not reopen it.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
   if (!kept) return <Spinner label="Opening the draft…" />;
   return <OpenEditor {...props} readOnly={readOnly} id={id} kept={kept} />;
