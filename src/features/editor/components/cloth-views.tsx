@@ -189,19 +189,22 @@ const ViewPanel = memo(function ViewPanel({ id, picture, cloth, overLimit }: Vie
 
   // Wheel: its own listener, so the page does not scroll under the view.
   const wheel = useRef<(e: WheelEvent) => void>(() => {});
-  wheel.current = (e) => {
-    e.preventDefault();
-    const r = hostRef.current!.getBoundingClientRect();
-    if (e.ctrlKey || e.metaKey) zoomBy(e.deltaY < 0 ? ZOOM_STEP : 1 / ZOOM_STEP, e.clientX - r.left, e.clientY - r.top);
-    else pan(-(e.shiftKey ? e.deltaY : e.deltaX), -(e.shiftKey ? 0 : e.deltaY));
-  };
+  useLayoutEffect(() => {
+    wheel.current = (e) => {
+      e.preventDefault();
+      const r = hostRef.current!.getBoundingClientRect();
+      if (e.ctrlKey || e.metaKey) zoomBy(e.deltaY < 0 ? ZOOM_STEP : 1 / ZOOM_STEP, e.clientX - r.left, e.clientY - r.top);
+      else pan(-(e.shiftKey ? e.deltaY : e.deltaX), -(e.shiftKey ? 0 : e.deltaY));
+    };
+  });
+  const shown = picture !== null;
   useEffect(() => {
     const host = hostRef.current;
     if (!host) return;
     const listener = (e: WheelEvent) => wheel.current(e);
     host.addEventListener('wheel', listener, { passive: false });
     return () => host.removeEventListener('wheel', listener);
-  }, [picture === null]);
+  }, [shown]);
 
   const drag = useRef<{ x: number; y: number } | null>(null);
   const onPointerDown = (e: PointerEvent<HTMLDivElement>) => {
