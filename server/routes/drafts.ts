@@ -31,6 +31,10 @@ export const draftRoutes = [
     method: 'get', path: '/api/drafts/:id/versions/:n', minimumRole: 'viewer', resource: 'draft', params: versionParamsSchema, handle: history.version,
   }),
   defineRoute({
+    method: 'get', path: '/api/drafts/:id/versions/:n/thumbnail.png', minimumRole: 'viewer', resource: 'draft', params: versionParamsSchema,
+    handle: history.thumbnail,
+  }),
+  defineRoute({
     method: 'post', path: '/api/drafts/:id/versions/:n/restore', minimumRole: 'editor', resource: 'draft', params: versionParamsSchema,
     handle: history.restore,
   }),

@@ -1,7 +1,7 @@
 import { Op, type WhereOptions } from 'sequelize';
 import { roleRank } from '../../shared/api/auth';
 import type { CreateDraftBody, DraftSummary, ForkBody, LineageDraft, LineageResponse, UpdateDraftBody } from '../../shared/api';
-import { emptyDraft, type Draft } from '../../shared/weave';
+import type { Draft } from '../../shared/weave';
 import { forbidden, HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { DraftRow } from '../models/draft';
@@ -23,10 +23,14 @@ async function summaryOf(models: Models, row: DraftRow, userId: number): Promise
   return summary;
 }
 
-/** POST /api/drafts: an empty 4-shaft draft unless a document is given; the name given wins over the document's. */
+/** POST /api/drafts: a draft from the document given (with at least one end and pick); the name given wins over the document's. */
 export async function createFromBody(models: Models, userId: number, body: CreateDraftBody): Promise<DraftSummary> {
   const studioId = await checkStudioWriter(models, userId, body.studioId);
-  const base = body.document === undefined ? emptyDraft(4, 4) : parseDocument(body.document);
+  if (body.document === undefined) {
+    throw new HttpError(422, 'unprocessable', 'A new draft needs its document, with at least one end and one pick',
+      { document: 'is missing: give the draft to start with, with at least one end and one pick' });
+  }
+  const base = parseDocument(body.document);
   const document: Draft = { ...base, name: body.name };
   const row = await createDraft(models, { ownerId: userId, studioId, document, tags: body.tags ?? [] });
   return summaryOf(models, row, userId);

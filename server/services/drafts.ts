@@ -6,6 +6,7 @@ import { notFound } from '../http/errors';
 import type { DraftRow } from '../models/draft';
 import type { Models } from '../models';
 import { derivedColumns } from './draft-derived';
+import { requireCloth } from './draft-documents';
 import { studioRole } from './studios';
 
 export { draftStats } from './draft-derived';
@@ -23,6 +24,7 @@ export async function createDraft(
     parent?: { draftId: number; version: number };
   },
 ): Promise<DraftRow> {
+  requireCloth(input.document);
   const derived = derivedColumns(input.document);
   return models.Draft.sequelize!.transaction(async (transaction) => {
     const row = await models.Draft.create({
@@ -37,7 +39,7 @@ export async function createDraft(
       ...derived,
     }, { transaction });
     await models.DraftVersion.create({
-      draftId: row.id, version: 1, authorId: input.ownerId, message: input.message ?? 'First version', document: input.document,
+      draftId: row.id, version: 1, firstVersion: 1, named: true, authorId: input.ownerId, message: input.message ?? 'First version', document: input.document,
     }, { transaction });
     return row;
   });

@@ -4,6 +4,7 @@ import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { AttachmentRow } from '../models/attachment';
 import type { BlobStorage } from '../storage';
+import { versionRow } from './draft-documents';
 
 type PhotoType = Photo['contentType'];
 
@@ -43,8 +44,7 @@ export async function addPhoto(
   if (!file || file.length === 0) throw new HttpError(400, 'bad_request', 'Attach the photo as the form field "file"');
   const type = sniffImageType(file);
   if (!type) throw new HttpError(422, 'unprocessable', 'The file is not a JPEG, PNG or WebP image', { file: 'use a JPEG, PNG or WebP photo' });
-  const exists = await models.DraftVersion.count({ where: { draftId, version } });
-  if (!exists) throw notFound(`This draft has no version ${version}`);
+  if (!await versionRow(models, draftId, version, ['id'])) throw notFound(`This draft has no version ${version}`);
   const storageKey = `drafts/${draftId}/${randomBytes(16).toString('hex')}.${EXTENSION[type]}`;
   await storage.put(storageKey, file);
   try {

@@ -55,7 +55,7 @@ export const draftDetailResponseSchema = z.object({ draft: draftDetailSchema });
 const draftName = z.string().trim().min(1).max(200);
 const tagList = z.array(z.string().trim().min(1).max(50)).max(20);
 
-/** POST /api/drafts: a new draft, empty unless a document is given; personal unless a studio is named. */
+/** POST /api/drafts: a new draft from its document (422 without one, or with no ends or picks); personal unless a studio is named. */
 export const createDraftBodySchema = z.object({
   name: draftName,
   document: z.unknown().optional(),
@@ -70,14 +70,23 @@ export const updateDraftBodySchema = z.object({ name: draftName.optional(), tags
   .refine((b) => b.name !== undefined || b.tags !== undefined, { error: 'Give a name or tags' });
 export type UpdateDraftBody = z.infer<typeof updateDraftBodySchema>;
 
-/** PUT /api/drafts/:id: save the document as a new version on top of `baseVersion`. */
+/**
+ * PUT /api/drafts/:id: save the document on top of `baseVersion`, the version the client last had.
+ * Without `named` it is an autosave: it carries the sitting's working version forward (the same
+ * weaver, saving within SITTING_MINUTES of the last save, no named version in between) or starts
+ * one. `named: true` ("Save version", with an optional message) makes a named version and ends the
+ * sitting. Either way the answer's `version` is the base of the next save; a stale base gets 409.
+ */
 export const saveDraftBodySchema = z.object({
   document: z.unknown(),
   baseVersion: z.number().int().positive(),
   message: z.string().trim().max(500).optional(),
+  named: z.boolean().optional(),
 });
 export type SaveDraftBody = z.infer<typeof saveDraftBodySchema>;
 export const saveDraftResponseSchema = z.object({ version: z.number().int() });
+/** How long after a weaver's last autosave the next one still continues the same working version. */
+export const SITTING_MINUTES = 30;
 
 /** The 409 answer to a save based on an old version: what the server holds now. */
 export const saveConflictSchema = z.object({

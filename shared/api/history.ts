@@ -5,11 +5,24 @@ const versionNumber = z.coerce.number().int().positive().max(2 ** 31 - 1);
 export const versionParamsSchema = z.object({ id: versionNumber, n: versionNumber });
 export const versionQuerySchema = z.object({ version: versionNumber.optional() });
 
+/**
+ * One version in a draft's history. A working version is an editing sitting's autosaves, carried
+ * forward in one entry: `version` is its newest save, `firstVersion` its first, and any save number
+ * from one to the other finds it. A named version was saved on purpose ("Save version", a restore,
+ * a new draft or colourway, an import) and is never continued.
+ */
 export const versionSummarySchema = z.object({
   version: z.number().int(),
+  firstVersion: z.number().int(),
+  named: z.boolean(),
   authorName: z.string(),
   message: z.string(),
+  /** When the version began (its first save). */
   createdAt: z.string(),
+  /** When it was last saved: the time to show. */
+  savedAt: z.string(),
+  /** A small picture of the version's cloth; null when it has no ends or picks. */
+  thumbnailUrl: z.string().nullable(),
 });
 export type VersionSummary = z.infer<typeof versionSummarySchema>;
 export const versionListResponseSchema = z.object({ versions: z.array(versionSummarySchema) });

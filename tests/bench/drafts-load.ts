@@ -140,7 +140,7 @@ try {
     const rows = await ctx.models.Draft.bulkCreate(Array.from({ length: 200 }, (_, k) => ({
       ownerId: user.id, studioId: null, name: `Library draft ${i + k + 1}`, document: small, tags: ['bench'], version: 1, ...derived,
     })));
-    await ctx.models.DraftVersion.bulkCreate(rows.map((r) => ({ draftId: r.id, version: 1, authorId: user.id, message: 'First version', document: small })));
+    await ctx.models.DraftVersion.bulkCreate(rows.map((r) => ({ draftId: r.id, version: 1, firstVersion: 1, authorId: user.id, message: 'First version', document: small })));
   }
   // One more draft than connections, so a connection never waits for a free one.
   const saveDrafts = [];

@@ -256,9 +256,9 @@ export function formatFigures(result: LoadResult): string {
 }
 
 /**
- * Looks every acknowledged save up in its draft's history over the API: the version must be there
- * with the save's message, and each draft's latest acknowledged version's document must carry the
- * save's note. Returns how many saves were checked and a line for each one that is missing.
+ * Looks every acknowledged save up in its draft's history over the API: some version must hold its
+ * number (a working version holds its sitting's run of saves), and a version whose newest save it is
+ * must carry the save's message and, for each draft's latest acknowledged save, its note. Returns how many saves were checked and a line for each one that is missing.
  */
 export async function findLostSaves(base: string, weavers: Weaver[], saves: AcknowledgedSave[]): Promise<{ checked: number; lost: string[] }> {
   const lost: string[] = [];
@@ -273,16 +273,20 @@ export async function findLostSaves(base: string, weavers: Weaver[], saves: Ackn
     if (acknowledged.length === 0) continue;
     const list = await get(weaver, `/api/drafts/${weaver.draftId}/versions`);
     if (list.status !== 200) throw new Error(`the history of draft ${weaver.draftId} did not load: ${list.status}`);
-    const history = new Map((list.body.versions as { version: number; message: string }[]).map((v) => [v.version, v.message]));
+    const history = list.body.versions as { version: number; firstVersion: number; message: string }[];
     for (const save of acknowledged) {
-      if (history.get(save.version) !== save.marker) {
-        lost.push(`draft ${save.draftId} version ${save.version}: expected "${save.marker}", history has "${history.get(save.version) ?? 'nothing'}"`);
+      const row = history.find((v) => v.firstVersion <= save.version && save.version <= v.version);
+      if (!row || (row.version === save.version && row.message !== save.marker)) {
+        lost.push(`draft ${save.draftId} version ${save.version}: expected "${save.marker}", history has "${row?.message ?? 'nothing'}"`);
       }
     }
+    // The last acknowledged save's document, unless a save made on top of it (whose answer the run did not wait for) carried it on.
     const last = acknowledged.reduce((a, b) => (b.version > a.version ? b : a));
     const latest = await get(weaver, `/api/drafts/${weaver.draftId}/versions/${last.version}`);
-    const notes = (latest.body.version as { document: { notes?: string } } | undefined)?.document.notes;
-    if (notes !== last.marker) lost.push(`draft ${last.draftId} version ${last.version}: the document saved is not there (${latest.status})`);
+    const found = latest.body.version as { version: number; document: { notes?: string } } | undefined;
+    if (!found || (found.version === last.version && found.document.notes !== last.marker)) {
+      lost.push(`draft ${last.draftId} version ${last.version}: the document saved is not there (${latest.status})`);
+    }
   }
   return { checked: saves.length, lost };
 }

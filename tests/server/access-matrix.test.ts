@@ -145,7 +145,7 @@ async function sendFile(client: TestClient, path: string, file: { bytes: Buffer;
 }
 
 const draftsServiceCases: Record<string, Case> = {
-  'POST /api/drafts': { path: () => '/api/drafts', body: () => ({ name: 'Matrix draft' }), success: 201 },
+  'POST /api/drafts': { path: () => '/api/drafts', body: () => ({ name: 'Matrix draft', document: pointTwillScarf() }), success: 201 },
   'POST /api/drafts/import-wif': {
     path: () => '/api/drafts/import-wif', upload: () => ({ bytes: Buffer.from(toWif(pointTwillScarf())), name: 'scarf.wif' }), success: 201,
   },
@@ -157,6 +157,7 @@ const draftsServiceCases: Record<string, Case> = {
   'GET /api/drafts/:id/thumbnail.png': { path: (f) => `/api/drafts/${f.draftId}/thumbnail.png?v=1`, success: 200 },
   'GET /api/drafts/:id/versions': { path: (f) => `/api/drafts/${f.draftId}/versions`, success: 200 },
   'GET /api/drafts/:id/versions/:n': { path: (f) => `/api/drafts/${f.draftId}/versions/1`, success: 200 },
+  'GET /api/drafts/:id/versions/:n/thumbnail.png': { path: (f) => `/api/drafts/${f.draftId}/versions/1/thumbnail.png`, success: 200 },
   'POST /api/drafts/:id/versions/:n/restore': { path: (f) => `/api/drafts/${f.draftId}/versions/1/restore`, success: 200 },
   'GET /api/drafts/:id/compare': { path: (f) => `/api/drafts/${f.draftId}/compare?a=1&b=1`, success: 200 },
   'GET /api/drafts/:id/compare.png': { path: (f) => `/api/drafts/${f.draftId}/compare.png?a=1&b=1`, success: 200 },

@@ -260,18 +260,19 @@ describe('thumbnails and the library', () => {
 });
 
 describe('create, rename, tags, delete', () => {
-  it('creates an empty or given draft, personal or in a studio where the user may write', async () => {
+  it('creates a given draft, personal or in a studio where the user may write', async () => {
     const s = await studioScene();
-    const empty = await s.viewer.client.post('/api/drafts', { name: 'My first' });
-    expect(empty.status).toBe(201);
-    expect(empty.body.draft).toMatchObject({ name: 'My first', studioId: null, ends: 0, version: 1, thumbnailUrl: null });
+    const mine = await s.viewer.client.post('/api/drafts', { name: 'My first', document: straightTwillTrial() });
+    expect(mine.status).toBe(201);
+    expect(mine.body.draft).toMatchObject({ name: 'My first', studioId: null, ends: 24, version: 1 });
     const given = await s.editor.client.post('/api/drafts', { name: 'Studio scarf', document: pointTwillScarf(), studioId: s.studioId, tags: ['wool'] });
     expect(given.status).toBe(201);
     expect(given.body.draft).toMatchObject({ studioId: s.studioId, ends: 60, tags: ['wool'] });
-    expect((await s.viewer.client.post('/api/drafts', { name: 'Nope', studioId: s.studioId })).status).toBe(403);
+    const scarf = pointTwillScarf();
+    expect((await s.viewer.client.post('/api/drafts', { name: 'Nope', document: scarf, studioId: s.studioId })).status).toBe(403);
     const outsider = server.client();
     await outsider.signIn((await server.createUser()).email);
-    expect((await outsider.post('/api/drafts', { name: 'Nope', studioId: s.studioId })).status).toBe(404);
+    expect((await outsider.post('/api/drafts', { name: 'Nope', document: scarf, studioId: s.studioId })).status).toBe(404);
     expect((await s.owner.post('/api/drafts', { name: 'Bad', document: { schemaVersion: 1 } })).status).toBe(422);
   });
 

@@ -6,6 +6,7 @@ import * as draftsService from './0003-drafts-service';
 import * as listIndexes from './0004-list-indexes';
 import * as structureBackfill from './0005-structure-backfill';
 import * as saveProcedure from './0006-save-procedure';
+import * as workingVersions from './0007-working-versions';
 
 /**
  * Every migration, oldest first. Listed by hand rather than globbed so the list is type-checked and
@@ -18,4 +19,5 @@ export const migrations: RunnableMigration<QueryInterface>[] = [
   { name: '0004-list-indexes', ...listIndexes },
   { name: '0005-structure-backfill', ...structureBackfill },
   { name: '0006-save-procedure', ...saveProcedure },
+  { name: '0007-working-versions', ...workingVersions },
 ];

@@ -20,7 +20,11 @@ export function twill(ends: number, palette = ['#f4ecd8', '#2b4a6f']): Draft {
 }
 
 export function version(overrides: Partial<VersionSummary> = {}): VersionSummary {
-  return { version: 1, authorName: 'Wren Hollis', message: '', createdAt: '2025-03-14T10:00:00.000Z', ...overrides };
+  const n = overrides.version ?? 1;
+  return {
+    version: n, firstVersion: n, named: true, authorName: 'Wren Hollis', message: '', createdAt: '2025-03-14T10:00:00.000Z',
+    savedAt: '2025-03-14T10:00:00.000Z', thumbnailUrl: `/api/drafts/1/versions/${n}/thumbnail.png`, ...overrides,
+  };
 }
 
 export function lineage(draft: DraftDetail, overrides: Partial<LineageResponse> = {}): LineageResponse {
