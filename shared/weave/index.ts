@@ -19,3 +19,4 @@ export * from './compare';
 export * from './text';
 export * from './picture';
 export * from './threads';
+export * from './starting-draft';

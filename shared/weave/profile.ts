@@ -310,7 +310,7 @@ export function expandProfile(profile: Profile, unitId: ProfileUnitId, options: 
 }
 
 /** One treadle per distinct lift, if they fit; treadles beyond those needed are left untied. */
-function tieUpDistinctLifts(lifts: number[][], treadles: number): { tieup: number[][]; treadling: number[][] } | undefined {
+export function tieUpDistinctLifts(lifts: number[][], treadles: number): { tieup: number[][]; treadling: number[][] } | undefined {
   const index = new Map<string, number>();
   const tieup: number[][] = [];
   const treadling: number[][] = [];

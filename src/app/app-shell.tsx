@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { Link, NavLink } from 'react-router-dom';
+import { Link, NavLink, useMatches } from 'react-router-dom';
 import { Button } from '../components/ui/button';
 import { ErrorNotice } from '../components/ui/error-notice';
 import { useSignOut } from '../features/auth/api/sign-out';
@@ -15,14 +15,17 @@ const navItems = [
 /** The frame of every signed-in page: product name, the areas, who is signed in, sign out. */
 export function AppShell({ user, children }: { user: SessionUser; children: ReactNode }) {
   const signOut = useSignOut();
+  // A route marked `wide` (the draft workspace) gets the whole window, and scrolls inside itself.
+  const wide = useMatches().some((m) => (m.handle as { wide?: boolean } | undefined)?.wide === true);
+  const frame = wide ? 'px-3' : 'mx-auto max-w-6xl px-4';
 
   return (
-    <div className="flex min-h-screen flex-col">
+    <div className={wide ? 'flex h-dvh flex-col' : 'flex min-h-screen flex-col'}>
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:rounded focus:bg-surface focus:p-2">
         Skip to content
       </a>
       <header className="border-b border-line bg-surface">
-        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-8 gap-y-2 px-4 py-3">
+        <div className={`${frame} flex flex-wrap items-center gap-x-8 gap-y-2 ${wide ? 'py-1.5' : 'py-3'}`}>
           <Link to="/drafts" className="text-lg font-semibold tracking-tight text-accent no-underline">
             Shedwright
           </Link>
@@ -56,12 +59,12 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
           </div>
         </div>
         {signOut.isError && (
-          <div className="mx-auto max-w-6xl px-4 pb-3">
+          <div className={`${frame} pb-3`}>
             <ErrorNotice title="Could not sign out" error={signOut.error} />
           </div>
         )}
       </header>
-      <main id="main" tabIndex={-1} className="mx-auto w-full max-w-6xl flex-1 px-4 py-6 focus:outline-none">
+      <main id="main" tabIndex={-1} className={`${wide ? 'flex min-h-0 flex-1 flex-col px-3 pt-2' : `${frame} w-full flex-1 py-6`} focus:outline-none`}>
         {children}
       </main>
     </div>

@@ -25,10 +25,21 @@ export function createRoutes(): RouteObject[] {
           children: [
             { index: true, element: <Navigate to="/drafts" replace /> },
             { path: '/drafts', lazy: { Component: async () => (await import('./routes/drafts')).DraftsRoute } },
-            { path: '/drafts/:id', lazy: { Component: async () => (await import('./routes/draft')).DraftRoute } },
-            { path: '/drafts/:id/plan', lazy: { Component: async () => (await import('./routes/plan')).PlanRoute } },
-            { path: '/drafts/:id/loom', lazy: { Component: async () => (await import('./routes/loom')).LoomRoute } },
-            { path: '/drafts/:id/history', lazy: { Component: async () => (await import('./routes/history')).HistoryRoute } },
+            {
+              // The draft workspace: one header, and each part of the draft a section with its own address.
+              path: '/drafts/:id',
+              handle: { wide: true },
+              lazy: { Component: async () => (await import('./routes/draft')).DraftRoute },
+              children: [
+                { index: true, lazy: { Component: async () => (await import('./routes/draft-design')).DesignSection } },
+                { path: 'plan', lazy: { Component: async () => (await import('./routes/plan')).PlanRoute } },
+                { path: 'loom', lazy: { Component: async () => (await import('./routes/loom')).LoomRoute } },
+                { path: 'history', lazy: { Component: async () => (await import('./routes/history')).HistoryRoute } },
+                { path: 'print', lazy: { Component: async () => (await import('./routes/draft-print')).PrintSection } },
+                { path: 'notes', lazy: { Component: async () => (await import('./routes/draft-notes')).NotesSection } },
+                { path: 'discussion', lazy: { Component: async () => (await import('./routes/draft-discussion')).DiscussionSection } },
+              ],
+            },
             { path: '/yarns', lazy: { Component: async () => (await import('./routes/yarns')).YarnsRoute } },
             { path: '/join', lazy: { Component: async () => (await import('./routes/join')).JoinRoute } },
             { path: '/studios', lazy: { Component: async () => (await import('./routes/studios')).StudiosRoute } },

@@ -24,13 +24,15 @@ describe('new colourway as a student', () => {
     // The copy is the student's own, with its parent named and linked.
     await page.waitForURL((url) => /\/drafts\/\d+$/.test(url.pathname) && url.href !== scarfUrl);
     await page.getByRole('heading', { level: 1, name: 'Scarf in rust' }).waitFor();
+    const forkId = Number(new URL(page.url()).pathname.split('/').pop());
+    // Where it came from is in the draft's Notes and photos.
+    await page.getByRole('navigation', { name: 'Sections of this draft' }).getByRole('link', { name: 'Notes and photos' }).click();
     const forkedFrom = page.getByRole('list', { name: 'Forked from, nearest first' });
     await forkedFrom.getByRole('link', { name: 'Point twill scarf' }).waitFor();
     expect(await forkedFrom.textContent()).toMatch(/version 1/);
     await screenshot(page, 'fork-lineage');
 
     // The new colour is in the saved document, and the threading is the scarf's.
-    const forkId = Number(new URL(page.url()).pathname.split('/').pop());
     const detail = await page.evaluate(async (id) => (await fetch(`/api/drafts/${id}`)).json(), forkId);
     expect(detail.draft.document.palette[0]).toBe('#8a3b12');
     expect(detail.draft.role).toBe('owner');
@@ -39,6 +41,7 @@ describe('new colourway as a student', () => {
     // Back on the scarf, the student (who can see both) finds the colourway among its children.
     await forkedFrom.getByRole('link', { name: 'Point twill scarf' }).click();
     await page.waitForURL(scarfUrl);
+    await page.getByRole('navigation', { name: 'Sections of this draft' }).getByRole('link', { name: 'Notes and photos' }).click();
     await page.getByRole('list', { name: 'Colourways made from this draft' }).getByRole('link', { name: 'Scarf in rust' }).waitFor();
     expect(app.browser.errors).toEqual([]);
   });

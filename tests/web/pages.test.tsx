@@ -15,7 +15,7 @@ describe('draft page', () => {
       'GET /api/drafts/7/comments': { body: { comments: [] } },
     });
     renderApp('/drafts/7');
-    expect(await screen.findByRole('heading', { level: 1, name: 'Two-block table mat' })).toBeTruthy();
+    expect(await screen.findByRole('heading', { level: 1, name: 'Two-block table mat' }, { timeout: 10_000 })).toBeTruthy();
     const fact = (label: string) => screen.getByText(label, { selector: 'dt' }).nextElementSibling?.textContent;
     expect(fact('Ends × picks')).toBe('240 × 300');
     expect(fact('Shafts')).toBe('8');

@@ -18,7 +18,7 @@ function comment(overrides: Partial<Comment> = {}): Comment {
 
 /** Opens the draft page and finds its comments. */
 async function panel() {
-  renderApp('/drafts/7');
+  renderApp('/drafts/7/discussion');
   return within(await screen.findByRole('region', { name: 'Comments' }, { timeout: 5000 }));
 }
 

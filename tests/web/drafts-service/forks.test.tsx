@@ -120,7 +120,7 @@ describe('lineage', () => {
         }),
       },
     });
-    renderApp('/drafts/7');
+    renderApp('/drafts/7/notes');
     const section = await screen.findByRole('region', { name: 'Lineage' });
     const parents = within(await within(section).findByRole('list', { name: 'Forked from, nearest first' })).getAllByRole('listitem');
     expect(parents.map((li) => li.textContent)).toEqual([
@@ -137,7 +137,7 @@ describe('lineage', () => {
 
   it('says when a draft has no parents and no colourways', async () => {
     mockApi(draftPageRoutes(scarf));
-    renderApp('/drafts/7');
+    renderApp('/drafts/7/notes');
     const section = await screen.findByRole('region', { name: 'Lineage' });
     expect(await within(section).findByText('Nothing: this draft started here.')).toBeTruthy();
     expect(within(section).getByText('None yet.')).toBeTruthy();
@@ -146,7 +146,7 @@ describe('lineage', () => {
 
   it('names a single hidden parent in the singular', async () => {
     mockApi({ ...draftPageRoutes(scarf), 'GET /api/drafts/7/lineage': { body: lineage(scarf, { hiddenAncestors: 1 }) } });
-    renderApp('/drafts/7');
+    renderApp('/drafts/7/notes');
     const section = await screen.findByRole('region', { name: 'Lineage' });
     expect(await within(section).findByText('A draft not shared with you')).toBeTruthy();
   });

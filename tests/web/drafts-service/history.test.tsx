@@ -17,6 +17,7 @@ function historyRoutes(role: 'owner' | 'editor' | 'viewer', more: Record<string,
     'GET /api/session': { body: { user: sessionUser() } },
     'GET /api/drafts/7': { body: { draft: draftDetail({ id: 7, name: 'Point twill scarf', version: 4, role }) } },
     'GET /api/drafts/7/versions': { body: { versions } },
+    'GET /api/yarns': { body: { yarns: [] } },
     ...more,
   };
 }
@@ -29,7 +30,7 @@ describe('draft history', () => {
   it('lists the versions newest first with author and message, marking the current one', async () => {
     const server = mockApi(historyRoutes('owner'));
     renderApp('/drafts/7/history');
-    expect(await screen.findByRole('heading', { level: 1, name: 'History of Point twill scarf' })).toBeTruthy();
+    expect(await screen.findByRole('heading', { level: 1, name: 'Point twill scarf' })).toBeTruthy();
     const rows = within(await screen.findByRole('table')).getAllByRole('row').slice(1);
     expect(rows.map((r) => within(r).getByRole('rowheader').textContent)).toEqual(['4current', '3', '2', '1']);
     expect(within(rowOf(3)).getByText('Tamsin Greaves')).toBeTruthy();

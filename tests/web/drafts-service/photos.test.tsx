@@ -18,6 +18,7 @@ function routes(role: 'editor' | 'viewer', more: Record<string, MockHandler>): R
   return {
     'GET /api/session': { body: { user: sessionUser() } },
     'GET /api/drafts/7': { body: { draft: draftDetail({ id: 7, name: 'Point twill scarf', version: 3, role }) } },
+    'GET /api/yarns': { body: { yarns: [] } },
     'GET /api/drafts/7/versions': { body: { versions: [v3, version({ version: 2 }), version({ version: 1 })] } },
     'GET /api/drafts/7/versions/3': { body: { version: { ...v3, document: twill(8) } } },
     ...more,

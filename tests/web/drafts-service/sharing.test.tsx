@@ -28,7 +28,7 @@ describe('share controls', () => {
       'GET /api/csrf': { body: { token: 'tok-1' } },
       'POST /api/drafts/7/share': { status: 201, body: { url, token } },
     });
-    renderApp('/drafts/7');
+    renderApp('/drafts/7/print');
     const panel = await publicLink();
     expect(await panel.findByText(/^No public link/)).toBeTruthy();
     expect(panel.queryByRole('button', { name: 'Withdraw link' })).toBeNull();
@@ -56,7 +56,7 @@ describe('share controls', () => {
       'GET /api/csrf': { body: { token: 'tok-1' } },
       'DELETE /api/drafts/7/share': { body: { shared: false, createdAt: null } },
     });
-    renderApp('/drafts/7');
+    renderApp('/drafts/7/print');
     const panel = await publicLink();
     expect(await panel.findByText('Anyone with the link can read this draft, without signing in.')).toBeTruthy();
     // The server keeps only a hash: a live link made earlier cannot be shown.
@@ -77,7 +77,7 @@ describe('share controls', () => {
       'POST /api/drafts/7/share': () => { live = true; return { status: 201, body: { url, token } }; },
       'DELETE /api/drafts/7/share': () => { live = false; return { body: { shared: false, createdAt: null } }; },
     });
-    renderApp('/drafts/7');
+    renderApp('/drafts/7/print');
     const panel = await publicLink();
     fireEvent.click(await panel.findByRole('button', { name: 'Make a public link' }));
     await panel.findByLabelText('Link');
@@ -93,7 +93,7 @@ describe('share controls', () => {
       'GET /api/csrf': { body: { token: 'tok-1' } },
       'POST /api/drafts/7/share': { status: 201, body: { url, token } },
     });
-    const app = renderApp('/drafts/7');
+    const app = renderApp('/drafts/7/print');
     const panel = await publicLink();
     fireEvent.click(await panel.findByRole('button', { name: 'Make a public link' }));
     await waitFor(() => expect(app.queryClient.getMutationCache().getAll()[0]?.state.status).toBe('success'));
@@ -108,7 +108,7 @@ describe('share controls', () => {
       'GET /api/csrf': { body: { token: 'tok-1' } },
       'POST /api/drafts/7/share': apiError(429, 'rate_limited', 'Too many links made; try again in a minute'),
     });
-    renderApp('/drafts/7');
+    renderApp('/drafts/7/print');
     const panel = await publicLink();
     fireEvent.click(await panel.findByRole('button', { name: 'Make a public link' }));
     expect((await panel.findByRole('alert')).textContent).toContain('Could not make a link. Too many links made; try again in a minute');
@@ -118,8 +118,8 @@ describe('share controls', () => {
   it('is not there for a viewer, who is not asked about the link at all', async () => {
     // No mock for GET /api/drafts/7/share: asking would fail the test.
     mockApi(draftPageRoutes({ ...scarf, role: 'viewer' }));
-    renderApp('/drafts/7');
-    await screen.findByRole('region', { name: 'Lineage' }, { timeout: 5000 });
+    renderApp('/drafts/7/print');
+    await screen.findByRole('link', { name: 'Weaving Information File (WIF)' }, { timeout: 5000 });
     expect(screen.queryByRole('region', { name: 'Public link' })).toBeNull();
   });
 });

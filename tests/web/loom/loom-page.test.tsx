@@ -15,6 +15,7 @@ function routes(progress: Progress | null, extra: Record<string, MockHandler> = 
   return {
     'GET /api/session': { body: { user: sessionUser() } },
     'GET /api/drafts/4': { body: { draft: draftDetail({ id: 4, name: 'Two-layer trial', role: 'viewer', document: twoLayerDraft() }) } },
+    'GET /api/yarns': { body: { yarns: [] } },
     'GET /api/drafts/4/plan': { body: { plan, updatedAt: null, updatedByName: null } },
     'GET /api/drafts/4/progress': { body: { progress } },
     'GET /api/drafts/4/results': { body: { results: [] } },

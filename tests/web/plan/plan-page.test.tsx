@@ -13,6 +13,7 @@ function routes(role: 'owner' | 'viewer', extra: Record<string, MockHandler> = {
   return {
     'GET /api/session': { body: { user: sessionUser() } },
     'GET /api/drafts/4': { body: { draft: draftDetail({ id: 4, name: 'Two-layer trial', role, document: twoLayerDraft() }) } },
+    'GET /api/yarns': { body: { yarns: [] } },
     'GET /api/drafts/4/plan': { body: { plan: { ...defaultPlan('inch'), sett: 24, layers: 2 }, updatedAt: '2025-01-01T00:00:00.000Z', updatedByName: 'Wren' } },
     'GET /api/me/plan-defaults': { body: noDefaults },
     ...extra,
@@ -28,7 +29,7 @@ describe('Plan page', () => {
   it('works out the warp from the saved plan, and keeps it when switching to centimetres', async () => {
     mockApi(routes('owner'));
     renderApp('/drafts/4/plan');
-    await screen.findByRole('heading', { name: 'Plan: Two-layer trial' });
+    await screen.findByRole('heading', { level: 2, name: 'Plan' });
     // By hand: 10" ÷ (0.9 × 0.9) = 12.35" in the reed × 24 epi = 296.3 ends = 37.04 repeats of 8 → 37 → 296 ends.
     expect(fact('Total ends')).toMatch(/^296 = 37 repeats/);
     expect(fact('Width in the reed')).toMatch(/^12\.33 in/);
@@ -64,7 +65,7 @@ describe('Plan page', () => {
       'PUT /api/drafts/4/plan': (req) => ({ body: { plan: req.body, updatedAt: '2025-01-02T00:00:00.000Z', updatedByName: 'Wren' } }),
     });
     renderApp('/drafts/4/plan');
-    await screen.findByRole('heading', { name: 'Plan: Two-layer trial' });
+    await screen.findByRole('heading', { level: 2, name: 'Plan' });
     expect(screen.getByText(/the weaver's sample is the authority/)).toBeTruthy();
     expect(screen.queryByText(/Dyes and finishing chemicals/)).toBeNull();
 
@@ -80,7 +81,7 @@ describe('Plan page', () => {
   it('blocks saving while an input is wrong, and shows viewers no save button', async () => {
     mockApi(routes('viewer'));
     renderApp('/drafts/4/plan');
-    await screen.findByRole('heading', { name: 'Plan: Two-layer trial' });
+    await screen.findByRole('heading', { level: 2, name: 'Plan' });
     expect(screen.queryByRole('button', { name: 'Save plan' })).toBeNull();
     expect(screen.getByText(/only editors of this draft can save/)).toBeTruthy();
     fireEvent.change(screen.getByLabelText('Take-up (%)'), { target: { value: '120' } });
@@ -105,7 +106,7 @@ describe('Plan page', () => {
   it('lists which ends share each dent under the layer rule', async () => {
     mockApi(routes('owner'));
     renderApp('/drafts/4/plan');
-    await screen.findByRole('heading', { name: 'Plan: Two-layer trial' });
+    await screen.findByRole('heading', { level: 2, name: 'Plan' });
     fireEvent.change(screen.getByLabelText('Ends per dent'), { target: { value: '2' } });
     fireEvent.click(screen.getByRole('checkbox', { name: /Layer rule/ }));
     const table = screen.getByRole('table', { name: /First dents/ });

@@ -7,7 +7,6 @@ import { createAutosave, type SaveFn } from '../store/autosave';
 import { fingerprint, keepHistory, restoreKeptHistory } from '../store/kept-history';
 import { useStore } from '../store/create-store';
 import { createEditor } from '../store/editor';
-import { renameDraft } from '../store/edits';
 import { ChecksPanel } from './checks-panel';
 import { ClothViews } from './cloth-views';
 import { DraftCanvas } from './draft-canvas';
@@ -18,6 +17,8 @@ import { LeaveGuard } from './leave-guard';
 import { PalettePanel } from './palette-panel';
 import { ProfilePanel } from './profile-panel';
 import { SaveStatus } from './save-status';
+import { SideColumn } from './side-column';
+import { SplitView } from './split-view';
 import { Toolbar } from './toolbar';
 import { useClothResults } from './use-cloth-results';
 
@@ -32,6 +33,8 @@ export interface DraftEditorProps {
   onSave?: SaveFn;
   /** Inside the app's router: ask before going to another page while edits cannot be sent. */
   guardNavigation?: boolean;
+  /** Opens the side column at the block design (a draft just started as a block design). */
+  showBlockDesign?: boolean;
 }
 
 /** What the device holds for this draft, read before the editor opens. */
@@ -75,7 +78,7 @@ export function DraftEditor(props: DraftEditorProps) {
 
 const timeOfDay = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
-function OpenEditor({ draft, version, readOnly, onSave, guardNavigation = false, id, kept }: DraftEditorProps & { readOnly: boolean; id: string; kept: Kept }) {
+function OpenEditor({ draft, version, readOnly, onSave, guardNavigation = false, showBlockDesign = false, id, kept }: DraftEditorProps & { readOnly: boolean; id: string; kept: Kept }) {
   const [{ editor, derived }] = useState(() => {
     if (typeof performance !== 'undefined') performance.mark('draft-arrived');
     // Edits kept on this device from an earlier visit come back first; the autosave sends them.
@@ -133,7 +136,6 @@ function OpenEditor({ draft, version, readOnly, onSave, guardNavigation = false,
   }, [autosave, editor, kept, id]);
 
   const [showKeys, setShowKeys] = useState(false);
-  const name = useStore(editor.doc, (s) => s.draft.name);
 
   const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
     const target = e.target as HTMLElement;
@@ -145,43 +147,36 @@ function OpenEditor({ draft, version, readOnly, onSave, guardNavigation = false,
 
   return (
     <EditorContext.Provider value={context}>
-      <div className="flex h-full min-h-0 flex-col gap-2 p-2" onKeyDown={onKeyDown}>
-        <header className="flex flex-wrap items-start justify-between gap-2">
-          <label className="flex items-center gap-2">
-            <span className="sr-only">Draft name</span>
-            <input
-              key={name}
-              defaultValue={name}
-              readOnly={readOnly}
-              onBlur={(e) => editor.doc.apply(renameDraft, { name: e.target.value })}
-              className="rounded border border-transparent bg-transparent px-1 text-lg font-semibold hover:border-line focus:border-field"
-            />
-          </label>
-          {kept.unsaved && (
-            <p role="status" className="text-sm" data-testid="restored-notice">
-              <span aria-hidden="true">↺ </span>Edits kept on this device ({timeOfDay.format(new Date(kept.unsaved.keptAt))}) that had not reached the server were restored; they are sent now.
-            </p>
-          )}
-          {autosave && <SaveStatus autosave={autosave} />}
-          {autosave && guardNavigation && <LeaveGuard autosave={autosave} />}
-          {readOnly && <p className="text-sm text-muted">Read only: you can look, not change.</p>}
-        </header>
-        <Toolbar readOnly={readOnly} onShowKeys={() => setShowKeys((s) => !s)} />
-        <EditorMessage />
-        <div className="flex min-h-0 flex-1 gap-3">
-          <div className="flex min-w-0 flex-1 flex-col gap-3">
-            <div className="h-[60vh] min-h-[320px]">
-              <DraftCanvas readOnly={readOnly} />
-            </div>
-            <ClothViews />
+      <div className="flex h-full min-h-0 flex-col gap-1 pt-1" onKeyDown={onKeyDown}>
+        <div className="flex items-start gap-2">
+          <div className="min-w-0 flex-1">
+            <Toolbar readOnly={readOnly} onShowKeys={() => setShowKeys((s) => !s)} />
           </div>
-          <aside className="flex w-80 shrink-0 flex-col gap-4 overflow-y-auto">
+          <div className="flex shrink-0 items-center gap-2">
+            {autosave && <SaveStatus autosave={autosave} />}
+            {autosave && guardNavigation && <LeaveGuard autosave={autosave} />}
+            {readOnly && <p className="text-sm text-muted">Read only: you can look, not change.</p>}
+          </div>
+        </div>
+        {kept.unsaved && (
+          <p role="status" className="text-sm" data-testid="restored-notice">
+            <span aria-hidden="true">↺ </span>Edits kept on this device ({timeOfDay.format(new Date(kept.unsaved.keptAt))}) that had not reached the server were restored; they are sent now.
+          </p>
+        )}
+        <EditorMessage />
+        <div className="flex min-h-0 flex-1 gap-2">
+          <SplitView
+            label="Divider between the grids and the cloth views"
+            first={<DraftCanvas readOnly={readOnly} />}
+            second={<ClothViews />}
+          />
+          <SideColumn startOpen={showBlockDesign} scrollTo={showBlockDesign ? 'profile-heading' : undefined}>
             {showKeys && <KeysPanel onClose={() => setShowKeys(false)} />}
             <PalettePanel readOnly={readOnly} />
             <LayersPanel readOnly={readOnly} />
-            <ChecksPanel />
             {!readOnly && <ProfilePanel />}
-          </aside>
+            <ChecksPanel />
+          </SideColumn>
         </div>
       </div>
     </EditorContext.Provider>

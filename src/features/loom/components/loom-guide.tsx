@@ -1,5 +1,4 @@
 import { useEffect, useEffectEvent, useMemo, useState, type ReactNode } from 'react';
-import { Link } from 'react-router-dom';
 import { ColourSwatch } from '../../../components/ui/colour-swatch';
 import type { LoomList, Progress, WorkingOrder } from '../../../../shared/api/plans';
 import { defaultPlan, type PlanDocument } from '../../../../shared/plan/plan-schema';
@@ -101,10 +100,7 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
   return (
     <div className="mx-auto flex max-w-3xl flex-col gap-5 text-base">
       <div className="flex flex-col gap-1">
-        <p className="text-sm">
-          <Link to={`/drafts/${detail.id}`}><span aria-hidden="true">←</span> {detail.name}</Link> · <Link to={`/drafts/${detail.id}/plan`}>Plan</Link>
-        </p>
-        <h1 className="text-2xl font-semibold">At the loom: {detail.name}</h1>
+        <h2 className="text-2xl font-semibold">At the loom</h2>
         <p role="status" className="text-sm text-muted">
           {offline ? 'Working from the copy kept on this device. ' : ''}
           {SAVE_WORDS[saveState]}

@@ -3,7 +3,7 @@ import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
-import { MissingNotice, PageHeading } from '../../../components/ui/page-heading';
+import { MissingNotice } from '../../../components/ui/page-heading';
 import { Spinner } from '../../../components/ui/spinner';
 import { isApiError } from '../../../lib/api-client';
 import type { DraftDetail } from '../../../types/api';
@@ -83,12 +83,13 @@ function PlanEditor({ detail, saved }: { detail: DraftDetail; saved: PlanDocumen
   };
 
   return (
-    <div className="flex flex-col gap-6">
-      <PageHeading title={`Plan: ${detail.name}`} back={{ to: `/drafts/${detail.id}`, label: detail.name }}>
+    <div className="flex flex-col gap-6 py-4">
+      <div className="flex flex-col gap-1">
+        <h2 className="text-2xl font-semibold">Plan</h2>
         <p className="text-sm text-muted">
           Warp and weft for this draft. <Link to={`/drafts/${detail.id}/loom`}>At the loom</Link> follows this plan.
         </p>
-      </PageHeading>
+      </div>
 
       <Cautions plan={plan} draft={draft} />
 
