@@ -10,7 +10,7 @@ import { drawMask, embedMask, gridPixels, markBits, placeGrid, type PdfPixels } 
 import { BODY_SIZE, GRID_LINE, GRID_RULE, INK, LABEL_SIZE, MUTED, plural, swatch, text, type Doc } from './pdf-style';
 import { writeText, type TextItem } from './pdf-text';
 import { drawLoomLists, drawPlanPage, listOrientation, settText } from './plan-pages';
-import { cellImage, clothSources, layerTint, orientCells, type CellImage, type ClothSources } from './raster';
+import { cellImage, clothSources, layerTint, orientCells, threadImage, threadPitch, type CellImage, type ClothSources } from './raster';
 
 /**
  * A cloth view (two-tone drawdown, faces, layer map) needing more sheets than this prints its
@@ -89,7 +89,7 @@ export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
     doc.on('error', reject);
   });
 
-  const sources = clothSources(draft);
+  const sources = clothSources(draft, input.plan);
   const shape = draftShape(draft);
   const views: PrintView[] = sources.layers ? ['structure', 'front', 'back', 'layers'] : ['structure'];
   const legend = legendRows(draft);
@@ -388,12 +388,16 @@ function drawDraftTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'draft'
 function drawViewTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'view' }>): void {
   const { doc, options, shape } = ctx;
   const { tile, layout: l, view } = part;
-  const img = image(ctx, view);
   const cut = ctx.viewCut ? ` (ends ${spanText(tile.cols)}, picks ${spanText(tile.rows)} only)` : '';
   const sheet = part.across * part.down > 1 ? ` (sheet ${tile.index + 1} of ${part.across * part.down})` : cut;
   text(doc, VIEW_CAPTIONS[view] + sheet, l.caption.x, l.caption.y + 2, BODY_SIZE - 1, INK, 'semibold');
-  placeImage(doc, img, l.grid, tile.cols, tile.rows);
-  ctx.ink.grid(l.grid, tile.cols.start, tile.rows.start, options.numberEvery);
+  if (view === 'front' || view === 'back') {
+    // Both faces thread by thread; the cells' grid would hide the threads, so only the numbers frame them.
+    placeGrid(doc, l.grid, facePixels(ctx.sources, view, l.grid, tile.cols, tile.rows));
+  } else {
+    placeImage(doc, image(ctx, view), l.grid, tile.cols, tile.rows);
+    ctx.ink.grid(l.grid, tile.cols.start, tile.rows.start, options.numberEvery);
+  }
   writeText(doc, [...endNumbers(l.grid, tile.cols, l.endLabels.y, options.numberEvery), ...pickNumbers(l.grid, tile.rows, l.pickLabels.x, options.numberEvery)], LABEL_SIZE, INK);
   overlapMarks(doc, l.grid, tile.cols, tile.rows, shape, {
     endY: l.endLabels.y + l.endLabels.height - 3,
@@ -401,6 +405,24 @@ function drawViewTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'view' }
     pickWidth: l.pickLabels.width,
   });
   if (view === 'layers') layerNumbers(ctx, l.grid, tile.cols, tile.rows);
+}
+
+/** Pixels of cloth per point of a cell side on the page: about 150 per inch, at least 2 a cell. */
+const FACE_PIXELS_PER_POINT = 150 / 72;
+
+/**
+ * The ends [cols] and picks [rows] of a face drawn thread by thread, laid out as the grid lies on
+ * the page (column = end as in the other views; the page's own layout mirrors the back).
+ */
+function facePixels(src: ClothSources, face: 'front' | 'back', g: GridPlacement, cols: Span, rows: Span): CellImage {
+  const perEnd = Math.max(2, Math.min(16, Math.round(g.cell * FACE_PIXELS_PER_POINT)));
+  const pitch = threadPitch(src, perEnd);
+  const x = Math.round(cols.start * pitch.x);
+  const y = Math.round(rows.start * pitch.y);
+  const window = { x, y, width: Math.max(1, Math.round(cols.end * pitch.x) - x), height: Math.max(1, Math.round(rows.end * pitch.y) - y) };
+  // End for end like the cell views: the back drawn with the front's end 1 on the right is unmirrored.
+  const img = threadImage(src, face, perEnd, { endOneRight: face === 'back', window });
+  return orientCells(img, { start: 0, end: img.width }, { start: 0, end: img.height }, g.stepX < 0, g.stepY < 0);
 }
 
 /** The layer on top written in each area of the layer map, so the map never relies on colour alone. */

@@ -1,6 +1,6 @@
 import type { Draft } from '../../shared/weave';
 import { encodePngRgb, encodePngRgbAsync } from './png';
-import { cellImage, clothSources, orientCells, type CellImage } from './raster';
+import { cellImage, clothSources, orientCells, threadImage, threadPitch, type CellImage } from './raster';
 
 export type PngView = 'structure' | 'colour' | 'front' | 'back';
 
@@ -18,10 +18,11 @@ export interface DrawdownPngOptions {
 export const MAX_PNG_PIXELS = 40_000_000;
 
 /**
- * The drawdown, the cloth in colour, or either face of a layered cloth as a PNG, laid out as the
- * editor shows it; the back is mirrored, as the weaver sees it turned over.
+ * The drawdown (a cell per end and pick), or the cloth in colour or either face of a layered cloth
+ * drawn thread by thread from the yarn sizes and sett, as a PNG laid out as the editor shows it;
+ * the back is mirrored, as the weaver sees it turned over.
  *
- * @example renderDrawdownPng(draft, { view: 'colour', scale: 8 }) // 8 × 8 pixels per cell
+ * @example renderDrawdownPng(draft, { view: 'colour', scale: 8 }) // ends 8 pixels apart
  * @throws RangeError for a scale out of range or a picture too big; Error for a face of a one-layer draft.
  */
 export function renderDrawdownPng(draft: Draft, options: DrawdownPngOptions): Buffer {
@@ -41,10 +42,17 @@ function drawdownPixels(draft: Draft, options: DrawdownPngOptions): CellImage {
   const src = clothSources(draft);
   const { ends, picks } = src.drawdown;
   if (ends === 0 || picks === 0) throw new RangeError('the draft has no cells to draw');
+  const endOneRight = options.treadlingRight ?? true;
+  const flipY = !(options.threadingAbove ?? true);
+  if (options.view !== 'structure') {
+    // The cloth thread by thread: `scale` pixels per end, picks spaced by the sett.
+    const pitch = threadPitch(src, scale);
+    if (ends * picks * pitch.x * pitch.y > MAX_PNG_PIXELS) throw new RangeError(`a picture of ${ends} × ${picks} threads at ${scale} pixels per end is too big; choose a smaller scale`);
+    const img = threadImage(src, options.view, scale, { endOneRight });
+    return orientCells(img, { start: 0, end: img.width }, { start: 0, end: img.height }, false, flipY);
+  }
   if (ends * picks * scale * scale > MAX_PNG_PIXELS) throw new RangeError(`a picture of ${ends} × ${picks} cells at ${scale} pixels per cell is too big; choose a smaller scale`);
   const img = cellImage(src, options.view);
-  const endOneRight = options.treadlingRight ?? true;
-  const flipX = options.view === 'back' ? !endOneRight : endOneRight;
-  const flipY = !(options.threadingAbove ?? true);
+  const flipX = endOneRight;
   return orientCells(img, { start: 0, end: ends }, { start: 0, end: picks }, flipX, flipY, scale);
 }

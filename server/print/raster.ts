@@ -1,4 +1,5 @@
-import { computeDrawdown, hexToRgb, isLayered, renderCloth, simulateLayers, type Draft, type Drawdown, type LayerSimulation } from '../../shared/weave';
+import { threadSizesFor, type PlanDocument } from '../../shared/plan';
+import { computeDrawdown, hexToRgb, isLayered, renderCloth, renderThreads, simulateLayers, type Draft, type Drawdown, type LayerSimulation, type ThreadFace, type ThreadSizes, type Window } from '../../shared/weave';
 import type { Span } from '../../shared/print/page-split';
 
 /** One pixel per cell: column = end, row = pick (both 0-based), 3 bytes (RGB) per pixel. */
@@ -32,12 +33,45 @@ export interface ClothSources {
   drawdown: Drawdown;
   /** Only for a layered draft. */
   layers?: LayerSimulation;
+  /** Thread sizes and sett for the pictures drawn thread by thread. */
+  sizes: ThreadSizes;
 }
 
-/** The drawdown, and for a layered draft the layer simulation, computed once. */
-export function clothSources(draft: Draft): ClothSources {
+/** The drawdown, and for a layered draft the layer simulation, computed once; the plan's sett and yarns when there is one. */
+export function clothSources(draft: Draft, plan?: PlanDocument): ClothSources {
   const drawdown = computeDrawdown(draft);
-  return { draft, drawdown, ...(isLayered(draft) ? { layers: simulateLayers(draft, undefined, { drawdown }) } : {}) };
+  return { draft, drawdown, sizes: threadSizesFor(draft, plan), ...(isLayered(draft) ? { layers: simulateLayers(draft, undefined, { drawdown }) } : {}) };
+}
+
+/** Picture pixels per end and per pick when ends are drawn `pixelsPerEnd` apart. */
+export function threadPitch(src: ClothSources, pixelsPerEnd: number): { x: number; y: number } {
+  return { x: pixelsPerEnd, y: (pixelsPerEnd * src.sizes.endsPerInch) / src.sizes.picksPerInch };
+}
+
+/**
+ * The cloth drawn thread by thread (the engine's renderThreads) as an RGB image, ends
+ * `pixelsPerEnd` apart; pick 1 at the top, end 1 on the left of the front (on the right with
+ * `endOneRight`), the back mirrored from the front.
+ * @throws Error for a face of a draft with one layer.
+ */
+export function threadImage(src: ClothSources, face: ThreadFace, pixelsPerEnd: number, options: { endOneRight?: boolean; window?: Window } = {}): CellImage {
+  if (face !== 'colour' && !src.layers) throw new Error(`the ${face} view needs a draft with more than one layer`);
+  const pic = renderThreads(
+    { draft: src.draft, drawdown: src.drawdown, layers: src.layers, sizes: src.sizes },
+    { face, pixelsPerInch: pixelsPerEnd * src.sizes.endsPerInch, endOneRight: options.endOneRight, window: options.window },
+  );
+  return { width: pic.width, height: pic.height, rgb: rgbOf(pic.rgba) };
+}
+
+/** RGBA bytes → RGB bytes. */
+export function rgbOf(rgba: Uint8ClampedArray): Uint8Array {
+  const rgb = new Uint8Array((rgba.length / 4) * 3);
+  for (let i = 0, j = 0; i < rgba.length; i += 4, j += 3) {
+    rgb[j] = rgba[i];
+    rgb[j + 1] = rgba[i + 1];
+    rgb[j + 2] = rgba[i + 2];
+  }
+  return rgb;
 }
 
 /** Fills an RGB image from a colour per cell given as an index into a list of '#rrggbb'. */
@@ -65,14 +99,7 @@ export function cellImage(src: ClothSources, view: RasterView): CellImage {
   const { draft, drawdown } = src;
   const { ends: width, picks: height } = drawdown;
   if (view === 'colour') {
-    const rgba = renderCloth(draft, drawdown).toRGBA();
-    const rgb = new Uint8Array(width * height * 3);
-    for (let i = 0, j = 0; i < rgba.length; i += 4, j += 3) {
-      rgb[j] = rgba[i];
-      rgb[j + 1] = rgba[i + 1];
-      rgb[j + 2] = rgba[i + 2];
-    }
-    return { width, height, rgb };
+    return { width, height, rgb: rgbOf(renderCloth(draft, drawdown).toRGBA()) };
   }
   if (view === 'structure') {
     return fromIndices(width, height, [STRUCTURE_DOWN, STRUCTURE_UP], (e, p) => (drawdown.isUp(e, p) ? 1 : 0));

@@ -1,8 +1,9 @@
-import { computeDrawdown, liftMasks, pickCount, renderCloth, type Draft, type Drawdown } from '../../shared/weave';
+import { computeDrawdown, liftMasks, pickCount, type Draft, type Drawdown } from '../../shared/weave';
 import { encodePngRgb } from '../print/png';
+import { clothSources, threadImage } from '../print/raster';
 import type { DraftAttributes } from '../models/draft';
 
-/** Cells of cloth in a library thumbnail (from the first end and pick), and pixels per cell. */
+/** Ends and picks of cloth in a library thumbnail (from the first end and pick), and pixels per end. */
 export const THUMBNAIL_CELLS = 96;
 export const THUMBNAIL_SCALE = 2;
 /** Structure is judged on the start of the cloth, so saving a 20 000-end draft stays quick. */
@@ -79,24 +80,9 @@ export function thumbnailPng(draft: Draft): Buffer | null {
   const ends = crop.threading.length;
   const picks = pickCount(crop);
   if (ends === 0 || picks === 0) return null;
-  const rgba = renderCloth(crop).toRGBA();
-  const s = THUMBNAIL_SCALE;
-  const width = ends * s;
-  const rgb = new Uint8Array(width * picks * s * 3);
-  for (let p = 0; p < picks; p++) {
-    for (let e = 0; e < ends; e++) {
-      const src = (p * ends + e) * 4;
-      for (let dy = 0; dy < s; dy++) {
-        for (let dx = 0; dx < s; dx++) {
-          const dst = ((p * s + dy) * width + e * s + dx) * 3;
-          rgb[dst] = rgba[src];
-          rgb[dst + 1] = rgba[src + 1];
-          rgb[dst + 2] = rgba[src + 2];
-        }
-      }
-    }
-  }
-  return encodePngRgb(width, picks * s, rgb);
+  // Drawn thread by thread from the yarn sizes and sett, ends THUMBNAIL_SCALE pixels apart.
+  const img = threadImage(clothSources(crop), 'colour', THUMBNAIL_SCALE);
+  return encodePngRgb(img.width, img.height, img.rgb);
 }
 
 /** How many different numbers two lists hold between them. */

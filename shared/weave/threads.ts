@@ -35,6 +35,8 @@ export interface ThreadPictureOptions {
   window?: Window;
   /** What shows where no thread lies. Default a light grey. */
   background?: string;
+  /** End 1 on the right of the front, as a weaver with the treadling on the right draws it; the back is the front's mirror either way. */
+  endOneRight?: boolean;
 }
 
 export interface ThreadPicture {
@@ -188,7 +190,7 @@ const level = (shade: number) => (shade * (LEVELS - 1) + 0.5) | 0;
  * and darker where it passes under, so over and under read at a glance. A face of layered cloth
  * shows the threads of the layer on top there, and through its gaps the other layer, in shadow.
  * The back is drawn as the weaver sees it turned over (mirrored left to right). End 1 is on the
- * left and pick 1 at the top.
+ * left of the front (on the right with `endOneRight`) and pick 1 at the top.
  *
  * A view finer than a pixel per thread is drawn larger and averaged down, so threads blend as the
  * eye sees them from a distance instead of dropping out.
@@ -230,6 +232,7 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
   if (ends === 0 || picks === 0 || W === 0 || H === 0) return { width: W, height: H, rgba };
 
   const back = options.face === 'back';
+  const mirrored = back !== (options.endOneRight ?? false);
   const pitchX = options.pixelsPerInch / sizes.endsPerInch;
   const pitchY = options.pixelsPerInch / sizes.picksPerInch;
   const ppi = options.pixelsPerInch;
@@ -241,7 +244,7 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
   const pl = sim ? sim.weftLayers : null;
   let layers = 1;
   if (wl && pl) for (const l of [...wl, ...pl]) if (l > layers) layers = l;
-  const xs = axis(ends, repeats, pitchX, (e) => sizes.warpDiameters[e] * ppi, Math.floor(win.x), W, back, wl, layers);
+  const xs = axis(ends, repeats, pitchX, (e) => sizes.warpDiameters[e] * ppi, Math.floor(win.x), W, mirrored, wl, layers);
   const ys = axis(picks, repeats, pitchY, (p) => sizes.weftDiameters[p] * ppi, Math.floor(win.y), H, false, pl, layers);
 
   const table = shadedPalette(draft.palette);

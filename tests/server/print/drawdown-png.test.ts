@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { expandProfile, hexToRgb, simulateLayers } from '../../../shared/weave';
+import { computeDrawdown, expandProfile, hexToRgb, renderThreads, simulateLayers } from '../../../shared/weave';
+import { threadSizesFor } from '../../../shared/plan';
 import { encodePngRgb } from '../../../server/print/png';
 import { renderDrawdownPng } from '../../../server/print/drawdown-png';
 import { openBrowser, type Browser } from '../../helpers/e2e';
@@ -61,18 +62,28 @@ describe('encodePngRgb', () => {
 });
 
 describe('renderDrawdownPng', () => {
-  it('draws the plain-weave checkerboard at the chosen scale, end 1 on the right and pick 1 on top by default', async () => {
+  it('draws the plain-weave checkerboard thread by thread, ends `scale` pixels apart, end 1 on the right and pick 1 on top by default', async () => {
     const ends = 6;
     const picks = 5;
-    const scale = 4;
-    const d = await decode(renderDrawdownPng(checkerboard(ends, picks), { view: 'colour', scale }));
-    expect([d.width, d.height]).toEqual([ends * scale, picks * scale]);
+    const scale = 8;
+    const draft = checkerboard(ends, picks);
+    const sizes = threadSizesFor(draft);
+    const pitchY = (scale * sizes.endsPerInch) / sizes.picksPerInch;
+    const d = await decode(renderDrawdownPng(draft, { view: 'colour', scale }));
+    expect([d.width, d.height]).toEqual([ends * scale, Math.ceil(picks * pitchY)]);
+    const distance = (a: number[], b: number[]) => a.reduce((s, v, i) => s + (v - b[i]) ** 2, 0);
     for (let e = 0; e < ends; e++) {
       for (let p = 0; p < picks; p++) {
-        // Plain weave: end e is up on pick p when both are even or both odd (end 1 on shaft 1, pick 1 lifts shaft 1).
-        const colour = (e + p) % 2 === 0 ? HARBOUR : MUSTARD;
-        const x = (ends - 1 - e) * scale + 1;
-        expect(at(d, x, p * scale + 2)).toEqual(hexToRgb(colour));
+        // Plain weave: end e is up on pick p when both are even or both odd (end 1 on shaft 1, pick 1
+        // lifts shaft 1); the thread on top shows at the crossing's middle, shaded but of its own colour.
+        const [shown, hidden] = (e + p) % 2 === 0 ? [HARBOUR, MUSTARD] : [MUSTARD, HARBOUR];
+        const c = at(d, (ends - 1 - e) * scale + scale / 2, Math.floor((p + 0.5) * pitchY));
+        const scaled = (hex: string) => {
+          const rgb = hexToRgb(hex);
+          const k = c.reduce((s, v, i) => s + v * rgb[i], 0) / rgb.reduce((s, v) => s + v * v, 0);
+          return rgb.map((v) => v * k);
+        };
+        expect(distance(c, scaled(shown))).toBeLessThan(distance(c, scaled(hidden)));
       }
     }
   });
@@ -85,20 +96,18 @@ describe('renderDrawdownPng', () => {
     expect(at(d, 0, 2)).toEqual([255, 255, 255]);
   });
 
-  it('shows the faces of a double weave, the back mirrored as seen turned over', async () => {
+  it('shows the faces of a double weave drawn thread by thread, the back mirrored as seen turned over', async () => {
     const draft = expandProfile(doubleWeaveProfile(), 'double-weave');
-    const sim = simulateLayers(draft);
-    const W = draft.threading.length;
-    const front = await decode(renderDrawdownPng(draft, { view: 'front', scale: 1 }));
-    const back = await decode(renderDrawdownPng(draft, { view: 'back', scale: 1 }));
-    const backLeft = await decode(renderDrawdownPng(draft, { view: 'back', scale: 1, treadlingRight: false }));
-    for (let p = 0; p < sim.picks; p++) {
-      for (let x = 0; x < W; x++) {
-        // End 1 on the right of the front, so on the left of the back.
-        expect(at(front, x, p)).toEqual(hexToRgb(draft.palette[sim.front.colorAt(W - 1 - x, p)]));
-        expect(at(back, x, p)).toEqual(hexToRgb(draft.palette[sim.back.colorAt(W - 1 - x, p)]));
-        // With end 1 on the left of the front, the back reads as the engine's mirrored picture.
-        expect(at(backLeft, x, p)).toEqual(hexToRgb(draft.palette[sim.back.colorAt(x, p)]));
+    const drawdown = computeDrawdown(draft);
+    const input = { draft, drawdown, layers: simulateLayers(draft, undefined, { drawdown }), sizes: threadSizesFor(draft) };
+    const drawn = (face: 'front' | 'back', endOneRight: boolean) => {
+      const pic = renderThreads(input, { face, pixelsPerInch: 3 * input.sizes.endsPerInch, endOneRight });
+      return { width: pic.width, height: pic.height, rgba: Array.from(pic.rgba) };
+    };
+    for (const face of ['front', 'back'] as const) {
+      for (const treadlingRight of [true, false]) {
+        const d = await decode(renderDrawdownPng(draft, { view: face, scale: 3, treadlingRight }));
+        expect(d).toEqual(drawn(face, treadlingRight));
       }
     }
   });
