@@ -120,13 +120,15 @@ function popcount(v: number): number {
 
 /**
  * Colours of the difference image. Unchanged cells are faint (so the structure still reads);
- * changed cells are strong and differ in lightness as well as hue, so they part in grey too.
+ * changed cells are strong and differ in lightness as well as hue, so they part in grey too: every
+ * pair but the two unchanged tones is at least 3:1 apart by the WCAG contrast formula (SC 1.4.11),
+ * which one pixel per cell leaves no room to mark otherwise.
  */
 export const COMPARE_COLOURS: Readonly<Record<CellChange, readonly [number, number, number]>> = {
-  'same-up': [0xb8, 0xb3, 0xa8],
-  'same-down': [0xf4, 0xf1, 0xea],
-  'now-up': [0x1d, 0x3f, 0x8f],
-  'now-down': [0xe8, 0x8a, 0x1a],
+  'same-up': [0xc9, 0xc4, 0xb9],
+  'same-down': [0xf7, 0xf5, 0xf0],
+  'now-up': [0x0b, 0x10, 0x33],
+  'now-down': [0xa6, 0x50, 0x00],
 };
 
 /** RGB pixels, 3 bytes per pixel, row p = pick p, column e = end e. */
@@ -138,8 +140,8 @@ export interface RgbImage {
 
 /**
  * The drawdown difference as one pixel per cell, cropped to `maxEnds` × `maxPicks` from the first
- * end and pick: faint where nothing changed, dark blue where an end now lies over the pick, orange
- * where it now lies under.
+ * end and pick: faint where nothing changed, near-black blue where an end now lies over the pick,
+ * dark orange where it now lies under.
  */
 export function comparisonImage(a: Draft, b: Draft, maxEnds = 2000, maxPicks = 2000): RgbImage {
   const da = computeDrawdown(a);

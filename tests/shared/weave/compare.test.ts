@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { compareDrafts, comparisonImage, COMPARE_COLOURS, computeDrawdown, DRAFT_SCHEMA_VERSION, type Draft } from '../../../shared/weave';
+import { contrastRatio } from '../../helpers/contrast';
 import { draftArb } from './arbitraries';
 
 /** Slow oracle: every cell of the larger size, one isUp at a time. */
@@ -99,5 +100,20 @@ describe('comparisonImage', () => {
       }
       expect(strong).toBe(changedCells(a, b));
     }), { seed: 15, numRuns: 60 });
+  });
+});
+
+describe('the difference image reads without colour vision', () => {
+  // WCAG 2.2 SC 1.4.11: the parts of a picture that carry meaning 3:1 against what they must be told
+  // apart from. The two unchanged tones only hint at the structure and may be closer.
+  it('keeps every change at least 3:1 from the unchanged tones and from the other change', () => {
+    const c = COMPARE_COLOURS;
+    const pairs = [
+      [c['now-down'], c['same-up']], [c['now-down'], c['same-down']], [c['now-up'], c['same-up']],
+      [c['now-up'], c['same-down']], [c['now-up'], c['now-down']],
+    ] as const;
+    for (const [a, b] of pairs) expect(contrastRatio(a, b)).toBeGreaterThanOrEqual(3);
+    // The case found by hand: changed-to-under against unchanged-over was 1.24:1.
+    expect(contrastRatio(c['now-down'], c['same-up'])).toBeCloseTo(3.21, 2);
   });
 });

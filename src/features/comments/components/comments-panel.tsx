@@ -1,6 +1,7 @@
-import { useState, type FormEvent } from 'react';
+import { useId, useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
+import { FieldError } from '../../../components/ui/field';
 import { fieldErrorsOf } from '../../../lib/api-client';
 import { Spinner } from '../../../components/ui/spinner';
 import { useAddComment } from '../api/add-comment';
@@ -60,19 +61,27 @@ export function CommentsPanel({ draftId, version, currentUserId }: { draftId: nu
         <textarea id="comment-text" value={text} onChange={(e) => setText(e.target.value)} maxLength={2000} rows={3}
           className="rounded-md border border-field bg-surface px-3 py-2" />
         <div className="flex flex-wrap items-end gap-3">
-          <label className="flex flex-col gap-1">
-            End (optional)
-            <input type="number" min={1} value={end} onChange={(e) => setEnd(e.target.value)} aria-invalid={!!fields.end}
-              className="w-28 rounded-md border border-field px-2 py-1" />
-          </label>
-          <label className="flex flex-col gap-1">
-            Pick (optional)
-            <input type="number" min={1} value={pick} onChange={(e) => setPick(e.target.value)} aria-invalid={!!fields.pick}
-              className="w-28 rounded-md border border-field px-2 py-1" />
-          </label>
+          <ThreadField label="End (optional)" value={end} onChange={setEnd} error={fields.end} />
+          <ThreadField label="Pick (optional)" value={pick} onChange={setPick} error={fields.pick} />
           <Button type="submit" variant="primary" busy={add.isPending} busyLabel="Posting…" disabled={!text.trim()}>Post comment</Button>
         </div>
       </form>
     </section>
+  );
+}
+
+/** An end or pick number for a comment, with the server's reason beside it when it refused one. */
+function ThreadField({ label, value, onChange, error }: { label: string; value: string; onChange: (v: string) => void; error?: string }) {
+  const errorId = useId();
+  return (
+    <div className="flex flex-col gap-1">
+      <label className="flex flex-col gap-1">
+        {label}
+        <input type="number" min={1} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={error ? true : undefined}
+          aria-describedby={error ? errorId : undefined}
+          className="w-28 rounded-md border border-field px-2 py-1 aria-[invalid=true]:border-2 aria-[invalid=true]:border-danger" />
+      </label>
+      {error && <FieldError id={errorId} message={error} />}
+    </div>
   );
 }

@@ -1,5 +1,6 @@
-import { useState } from 'react';
+import { useId, useState } from 'react';
 import { hexToRgb } from '../../../../shared/weave';
+import { FieldError } from '../../../components/ui/field';
 import { addPaletteColor, removePaletteColor, setPaletteColor, setYarnName } from '../store/edits';
 import { useStore } from '../store/create-store';
 import { useEditorContext } from './editor-context';
@@ -77,8 +78,9 @@ function PaletteRow({ index, hex, yarn, active, canRemove, readOnly }: RowProps)
   }
   const valid = HEX.test(text);
   const label = `Colour ${index + 1}`;
+  const errorId = useId();
   return (
-    <li className="flex items-center gap-1.5 text-xs">
+    <li className="flex flex-wrap items-center gap-1.5 text-xs">
       <button
         type="button"
         aria-pressed={active}
@@ -105,6 +107,7 @@ function PaletteRow({ index, hex, yarn, active, canRemove, readOnly }: RowProps)
         type="text"
         aria-label={`${label}: hex`}
         aria-invalid={!valid}
+        aria-describedby={valid ? undefined : errorId}
         value={text}
         disabled={readOnly}
         spellCheck={false}
@@ -131,6 +134,11 @@ function PaletteRow({ index, hex, yarn, active, canRemove, readOnly }: RowProps)
         <button type="button" aria-label={`Remove ${label}`} onClick={() => editor.doc.apply(removePaletteColor, { index })} className="rounded px-1 hover:bg-sunken">
           ✕
         </button>
+      )}
+      {!valid && (
+        <div className="basis-full">
+          <FieldError id={errorId} message="Write the colour as # and six digits or letters a–f, such as #2f44b0." />
+        </div>
       )}
     </li>
   );

@@ -172,7 +172,7 @@ export function ProfilePanel() {
                       aria-label={`Column ${c + 1}, block ${b}`}
                       aria-pressed={block === b}
                       onClick={() => update({ threading: design.threading.map((x, i) => (i === c ? b : x)) })}
-                      className="block h-4 w-4 border border-line bg-surface aria-pressed:bg-ink"
+                      className="block size-6 border border-field bg-surface aria-pressed:bg-ink"
                     />
                   </td>
                 ))}
@@ -198,7 +198,7 @@ export function ProfilePanel() {
                       aria-label={`Row ${r + 1}, block ${b} shows the pattern`}
                       aria-pressed={row.includes(b)}
                       onClick={() => update({ treadling: design.treadling.map((x, i) => (i !== r ? x : toggled(x, b))) })}
-                      className="block h-4 w-4 border border-line bg-surface aria-pressed:bg-ink"
+                      className="block size-6 border border-field bg-surface aria-pressed:bg-ink"
                     />
                   </td>
                 ))}
@@ -318,7 +318,7 @@ function ColourOrder({ label, palette, yarns, order, onChange }: { label: string
       {order.map((c, i) => (
         <span key={i} className="flex items-center">
           <span aria-hidden="true" className="inline-block h-3 w-3 rounded-sm border border-line" style={{ background: palette[c] }} />
-          <select aria-label={`${label}, place ${i + 1}`} value={c} onChange={(e) => onChange(replaced(order, i, Number(e.target.value)))} className="max-w-28 rounded border border-field bg-surface px-0.5">
+          <select aria-label={`${label}, place ${i + 1}`} value={c} onChange={(e) => onChange(replaced(order, i, Number(e.target.value)))} className="min-h-6 max-w-28 rounded border border-field bg-surface px-0.5">
             {palette.map((_, k) => (
               <option key={k} value={k}>
                 {colourName({ yarns }, k)}
@@ -327,11 +327,11 @@ function ColourOrder({ label, palette, yarns, order, onChange }: { label: string
           </select>
         </span>
       ))}
-      <button type="button" aria-label={`${label}: add a place`} className="rounded border border-field px-1 hover:bg-sunken" onClick={() => onChange([...order, order[order.length - 1] ?? 0])}>
+      <button type="button" aria-label={`${label}: add a place`} className="min-h-6 min-w-6 rounded border border-field px-1 hover:bg-sunken" onClick={() => onChange([...order, order[order.length - 1] ?? 0])}>
         +
       </button>
       {order.length > 1 && (
-        <button type="button" aria-label={`${label}: remove the last place`} className="rounded border border-field px-1 hover:bg-sunken" onClick={() => onChange(order.slice(0, -1))}>
+        <button type="button" aria-label={`${label}: remove the last place`} className="min-h-6 min-w-6 rounded border border-field px-1 hover:bg-sunken" onClick={() => onChange(order.slice(0, -1))}>
           −
         </button>
       )}

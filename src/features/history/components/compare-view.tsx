@@ -48,7 +48,7 @@ export function CompareView({ draftId, a, b }: { draftId: number; a: number; b: 
           style={{ minWidth: 240 }}
         />
         <figcaption className="text-xs text-muted">
-          Faint: unchanged. Dark blue: the end now lies over the pick. Orange: the end now lies under it. Counts above give the same in numbers.
+          Faint: unchanged. Darkest: the end now lies over the pick. Dark orange: the end now lies under it. Counts above give the same in numbers.
         </figcaption>
       </figure>
     </section>
