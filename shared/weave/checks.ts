@@ -114,7 +114,8 @@ export function groupChecks(draft: Draft, problems: readonly FoundProblem[], flo
   const layers = { warp: resolveLayers(draft.warpLayers, draft.threading.length), weft: resolveLayers(draft.weftLayers, pickCount(draft)) };
   const out = [...groups].map(([key, g]): CheckGroup => {
     const extent = extentOf(g.axis, g.problems);
-    return { key, kind: kindOf(g.problems), axis: g.axis, index: g.index, extent, message: describe(draft, layers, g.axis, g.index, g.problems, extent, floatLimit), problems: g.problems };
+    const kind = g.axis === 'ends' && onAnotherBlocksShaft(draft, g.index) ? 'threading' : kindOf(g.problems);
+    return { key, kind, axis: g.axis, index: g.index, extent, message: describe(draft, layers, g.axis, g.index, g.problems, extent, floatLimit), problems: g.problems };
   });
   const order: Record<CheckKind, number> = { threading: 0, layers: 1, floats: 2 };
   return out.sort((a, b) => order[a.kind] - order[b.kind] || (a.axis === b.axis ? 0 : a.axis === 'ends' ? -1 : 1) || a.index - b.index);
@@ -143,6 +144,21 @@ function causeOf(found: FoundProblem): Cause | null {
       return null;
     }
   }
+}
+
+/** The block most of the other ends on a shaft belong to, from the draft's block links. */
+function blockOfShaft(draft: Draft, shaft: number, except: number): number | undefined {
+  const links = draft.blocks?.warp;
+  if (!links || !links[except]) return undefined;
+  return mostOnShaft(draft, shaft, except, (e) => (links[e] ? links[e] : undefined));
+}
+
+/** An end of an expanded block design threaded on a shaft whose other ends are another block's. */
+function onAnotherBlocksShaft(draft: Draft, end: number): boolean {
+  const shaft = draft.threading[end]?.[0];
+  const block = draft.blocks?.warp[end];
+  const shaftBlock = shaft !== undefined ? blockOfShaft(draft, shaft, end) : undefined;
+  return shaftBlock !== undefined && shaftBlock !== block;
 }
 
 function kindOf(problems: readonly FoundProblem[]): CheckKind {
@@ -203,8 +219,7 @@ function describe(
     const colour = threading.find((p) => p.kind === 'colour');
     const shaft = wrongLayer?.shaft ?? colour?.shaft ?? draft.threading[index]?.[0];
     const block = draft.blocks?.warp[index];
-    const links = draft.blocks?.warp;
-    const shaftBlock = shaft !== undefined && block ? mostOnShaft(draft, shaft, index, (e) => (links?.[e] ? links[e] : undefined)) : undefined;
+    const shaftBlock = shaft !== undefined ? blockOfShaft(draft, shaft, index) : undefined;
     const otherBlock = shaftBlock !== undefined && shaftBlock !== block ? `, a block-${shaftBlock} shaft among block-${block} ends` : '';
     if (wrongLayer?.shaft !== undefined) {
       const shaftLayer = layered ? mostOnShaft(draft, wrongLayer.shaft, index, (e) => layers.warp[e]) : undefined;

@@ -1,0 +1,122 @@
+// A block weaver designs a two-block double weave in the block design, with a two-colour order in
+// one layer, uses it as the draft, comes back to it later, changes one block and sees the faces
+// change; then moves one end to a wrong shaft and finds one item in Checks for it.
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { screenshot, signIn, useAppAndBrowser } from '../helpers/e2e';
+
+const app = useAppAndBrowser();
+
+/** A fingerprint of the pixels of the canvases under a test id. */
+async function fingerprint(page: Page, id: string): Promise<string> {
+  return page.evaluate((testId) => {
+    let h = 2166136261;
+    for (const c of [...document.querySelectorAll(`[data-testid="${testId}"] canvas`)] as HTMLCanvasElement[]) {
+      const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+      for (let i = 0; i < data.length; i += 4) h = Math.imul(h ^ ((data[i] << 16) | (data[i + 1] << 8) | data[i + 2]), 16777619) >>> 0;
+    }
+    return h.toString(16);
+  }, id);
+}
+
+/** Waits until a view's pixels stop changing, and returns their fingerprint. */
+async function settledView(page: Page, id: string): Promise<string> {
+  await page.getByTestId(id).locator('canvas').first().waitFor();
+  let last = await fingerprint(page, id);
+  let stableSince = Date.now();
+  const deadline = Date.now() + 20_000;
+  while (Date.now() < deadline) {
+    await page.waitForTimeout(250);
+    const next = await fingerprint(page, id);
+    if (next !== last) {
+      last = next;
+      stableSince = Date.now();
+    } else if (Date.now() - stableSince >= 2000) break;
+  }
+  return last;
+}
+
+async function showFront(page: Page) {
+  const button = page.getByRole('group', { name: 'Views to show' }).getByRole('button', { name: 'Front', exact: true });
+  if ((await button.getAttribute('aria-pressed')) !== 'true') await button.click();
+}
+
+describe('block design for a two-block double weave', () => {
+  it('is designed with a two-colour layer order, used, reopened, changed, and checked', async () => {
+    const { page } = app.browser;
+    await signIn(page, app.server, 'lead@shedwright.test');
+
+    // A new 8-shaft draft with three named yarns and nothing drawn yet.
+    const id = await page.evaluate(async () => {
+      const { token } = (await (await fetch('/api/csrf')).json()) as { token: string };
+      const res = await fetch('/api/drafts', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', 'x-csrf-token': token },
+        body: JSON.stringify({
+          name: 'Two-block mat',
+          document: {
+            schemaVersion: 2,
+            shafts: 8,
+            threading: [],
+            palette: ['#22303c', '#efe6d2', '#9a3b2e'],
+            yarns: [
+              { id: 'charcoal', name: 'Charcoal cotton', color: 0 },
+              { id: 'oat', name: 'Oat cotton', color: 1 },
+              { id: 'rust', name: 'Rust cotton', color: 2 },
+            ],
+          },
+        }),
+      });
+      return ((await res.json()) as { draft: { id: number } }).draft.id;
+    });
+    await page.goto(`${app.server.url}/drafts/${id}`);
+    const design = page.getByTestId('block-design');
+    await design.waitFor();
+
+    // Layer 1 takes charcoal and oat in turn; layer 2 is rust, in warp and weft.
+    for (const side of ['Warp', 'Weft']) {
+      const layer1 = design.getByRole('group', { name: `${side}, Layer 1: colour order` });
+      await layer1.getByRole('button', { name: `${side}, Layer 1: add a place` }).click();
+      await layer1.getByLabel(`${side}, Layer 1, place 2`).selectOption({ label: 'Oat cotton' });
+      await design.getByLabel(`${side}, Layer 2, place 1`).selectOption({ label: 'Rust cotton' });
+    }
+    await design.getByRole('button', { name: 'Use as the draft' }).click();
+    await expect.poll(() => design.getByTestId('block-design-summary').textContent()).toContain('Yarns kept: Charcoal cotton, Oat cotton, Rust cotton.');
+    await page.getByTestId('save-status').getByText('Saved').waitFor({ timeout: 20_000 });
+    const saved = await page.evaluate(async (draftId) => (await (await fetch(`/api/drafts/${draftId}`)).json()) as { draft: { document: Record<string, unknown> } }, id);
+    expect(saved.draft.document.profile).toMatchObject({ unit: 'double-weave', warpColors: [[0, 1], [2]], weftColors: [[0, 1], [2]] });
+    expect((saved.draft.document.warpColors as number[]).slice(0, 4)).toEqual([0, 2, 1, 2]);
+
+    // Reopened later, the block design is the one kept with the draft.
+    await page.reload();
+    await design.waitFor();
+    await design.getByText('(kept with this draft)').waitFor();
+    expect(await design.getByLabel('Warp, Layer 1, place 2').inputValue()).toBe('1');
+    await showFront(page);
+    const before = await settledView(page, 'view-front');
+    await screenshot(page, 'block-design-used');
+
+    // Column 1 moves from block 1 to block 2: the faces change there.
+    await design.getByRole('button', { name: 'Column 1, block 2' }).click();
+    await design.getByRole('button', { name: 'Use as the draft' }).click();
+    const after = await settledView(page, 'view-front');
+    expect(after).not.toBe(before);
+    await screenshot(page, 'block-design-changed');
+
+    // End 2 (layer 2 of block 2 now, on shaft 7) moved to shaft 3, a shaft of block 1.
+    const grid = page.getByTestId('draft-canvas');
+    await grid.focus();
+    await page.keyboard.press('ArrowRight');
+    const message = page.getByTestId('editor-message');
+    for (let i = 0; i < 8 && !/shaft 3:/.test((await message.textContent()) ?? ''); i++) await page.keyboard.press('ArrowDown');
+    expect(await message.textContent()).toMatch(/^Threading, end 2, shaft 3:/);
+    await page.keyboard.press('Space');
+    const checks = page.getByTestId('checks');
+    await checks.getByRole('button', { name: /^End 2 \(layer 2\) is on shaft 3/ }).waitFor({ timeout: 20_000 });
+    expect(await checks.locator('li').count()).toBe(1);
+    await checks.getByRole('button', { name: 'Ends on the wrong shaft (1)' }).waitFor();
+    expect(await checks.textContent()).not.toMatch(/#[0-9a-f]{6}/i);
+    await screenshot(page, 'block-design-checks');
+    expect(app.browser.errors).toEqual([]);
+  });
+});
