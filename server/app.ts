@@ -3,12 +3,28 @@ import { resolve } from 'node:path';
 import { csrfSync } from 'csrf-sync';
 import express, { type Express } from 'express';
 import session from 'express-session';
+import { QueryTypes } from 'sequelize';
 import type { AppContext } from './context';
 import { routeNotFound, errorHandler } from './middleware/errors';
 import { securityHeaders } from './middleware/security';
 import { apiRouter } from './routes';
 
 export const SESSION_COOKIE = 'shedwright.sid';
+
+/** How long /readyz waits for MariaDB before calling the server not ready. */
+const READY_TIMEOUT_MS = 1000;
+
+/** Null when MariaDB answers within READY_TIMEOUT_MS, else what failed. */
+async function readiness(ctx: AppContext): Promise<string | null> {
+  let timer: NodeJS.Timeout | undefined;
+  const late = new Promise<string>((resolve) => { timer = setTimeout(() => resolve('the database did not answer within 1 s'), READY_TIMEOUT_MS); });
+  const check = ctx.sequelize.query('SELECT 1', { type: QueryTypes.SELECT }).then(() => null, () => 'the database cannot be reached');
+  try {
+    return await Promise.race([check, late]);
+  } finally {
+    clearTimeout(timer);
+  }
+}
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */
 export function createApp(ctx: AppContext): Express {
@@ -22,6 +38,13 @@ export function createApp(ctx: AppContext): Express {
   // Behind https there is a terminating proxy on this machine; trust it for the client address and protocol.
   if (secure) app.set('trust proxy', 'loopback');
   app.use(securityHeaders(config));
+
+  // For load balancers and orchestrators, without a session: the process answers; it can do its work.
+  app.get('/healthz', (_req, res) => { res.json({ ok: true }); });
+  app.get('/readyz', async (_req, res) => {
+    const problem = await readiness(ctx);
+    res.status(problem ? 503 : 200).json(problem ? { ok: false, problem } : { ok: true });
+  });
 
   const { csrfSynchronisedProtection } = csrfSync();
   const api = express.Router();

@@ -1,33 +1,24 @@
-import cluster from 'node:cluster';
 import type { Server } from 'node:http';
-import { ClusterMemoryStoreWorker } from '@express-rate-limit/cluster-memory-store';
 import { createApp } from './app';
-import { workerRelay } from './cluster/relay';
 import type { Config } from './config';
-import { createContext, type SiblingProcesses } from './context';
+import { createContext } from './context';
 import { migrate } from './db/migrate';
-import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
+import { startFakeSmtp } from './mail/fake-smtp';
+
+/** How long a stop waits for requests in flight before cutting them. */
+export const DRAIN_MS = 10_000;
 
 /**
- * Serves the API (and the built client, when present) from this process. On its own it also runs the
- * migrations and the fake SMTP server; as one worker of several (server/cluster/primary.ts) the
- * primary has done both, and the worker reaches the others through it.
- * Resolves once listening; SIGTERM (and SIGINT, when it runs alone) closes it down.
+ * Serves the API (and the built client, when present) from this one process, after running the
+ * migrations and starting the fake SMTP server. Resolves once listening.
+ * SIGTERM or SIGINT stops it cleanly: no new connections, requests in flight finish (for up to
+ * DRAIN_MS, then they are cut), then the database pool and mail close and the process exits, so a
+ * save that commits is also answered.
  */
 export async function serveApp(config: Config): Promise<Server> {
-  let smtp: FakeSmtp | null = null;
-  let siblings: SiblingProcesses | undefined;
-  let mailbox: Parameters<typeof createContext>[1];
-  if (cluster.isWorker) {
-    const link = workerRelay();
-    siblings = { relay: link.relay, rateLimitStore: (prefix) => new ClusterMemoryStoreWorker({ prefix }) };
-    mailbox = { port: config.smtpPort, mails: link.mails };
-  } else {
-    smtp = await startFakeSmtp(config.smtpPort);
-    mailbox = smtp;
-  }
-  const ctx = createContext(config, mailbox, siblings);
-  if (!cluster.isWorker) await migrate(ctx.sequelize);
+  const smtp = await startFakeSmtp(config.smtpPort);
+  const ctx = createContext(config, smtp);
+  await migrate(ctx.sequelize);
 
   const server = createApp(ctx).listen(config.port, config.host);
   await new Promise<void>((resolve) => {
@@ -38,16 +29,23 @@ export async function serveApp(config: Config): Promise<Server> {
     });
   });
 
-  async function shutdown() {
-    server.close();
-    server.closeAllConnections();
+  let stopping = false;
+  async function stop() {
+    if (stopping) return;
+    stopping = true;
+    const drained = new Promise<void>((resolve) => server.close(() => resolve()));
+    // Kept-alive connections with nothing in flight would hold the close open: end them as they fall idle.
+    server.closeIdleConnections();
+    const idle = setInterval(() => server.closeIdleConnections(), 100);
+    const cut = setTimeout(() => server.closeAllConnections(), DRAIN_MS);
+    await drained;
+    clearInterval(idle);
+    clearTimeout(cut);
     await ctx.close();
-    await smtp?.close();
+    await smtp.close();
     process.exit(0);
   }
-  process.on('SIGTERM', shutdown);
-  // Ctrl-C reaches every process of the group; the primary stops its workers itself (with SIGTERM),
-  // and must not take a worker that stopped first for one that died.
-  process.on('SIGINT', cluster.isWorker ? () => {} : shutdown);
+  process.on('SIGTERM', () => void stop());
+  process.on('SIGINT', () => void stop());
   return server;
 }

@@ -1,5 +1,4 @@
 import { randomBytes } from 'node:crypto';
-import { availableParallelism } from 'node:os';
 
 export interface DbConfig {
   host: string;
@@ -33,17 +32,6 @@ export interface Config {
   attachmentsDir: string;
   /** How long a session lasts after it was last saved; an older session cookie signs nobody in. */
   sessionMaxAgeMs: number;
-  /**
-   * Keep sessions, access rows and library pages in this process between requests (see
-   * server/models/access-cache.ts). Right for one app server; several servers on one database must
-   * turn it off, as one server would not see another's writes.
-   */
-  processCaches: boolean;
-  /**
-   * How many processes serve the app (server/cluster): one per CPU by default, as one process's
-   * single thread is what limits how many requests a machine answers.
-   */
-  workers: number;
   rateLimit: RateLimitConfig;
 }
 
@@ -78,8 +66,6 @@ export function loadConfig(env: Env = process.env): Config {
     bodyLimit: env.SHEDWRIGHT_BODY_LIMIT || '2mb',
     attachmentsDir: env.SHEDWRIGHT_ATTACHMENTS_DIR || '.data/attachments',
     sessionMaxAgeMs: int(env, 'SHEDWRIGHT_SESSION_MAX_AGE_MS', 30 * 24 * 60 * 60 * 1000),
-    processCaches: env.SHEDWRIGHT_PROCESS_CACHES !== '0',
-    workers: Math.max(1, int(env, 'SHEDWRIGHT_WORKERS', availableParallelism())),
     rateLimit: {
       windowMs: int(env, 'SHEDWRIGHT_RATE_WINDOW_MS', 15 * 60 * 1000),
       signIn: int(env, 'SHEDWRIGHT_SIGNIN_LIMIT', 10),

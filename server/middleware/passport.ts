@@ -2,13 +2,13 @@ import type { Request, Response } from 'express';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { Models, UserRow } from '../models';
-import { accountOf } from '../models/access-cache';
+import { accountOf } from '../models/access';
 import { checkCredentials } from '../services/auth';
 
 /**
  * A passport instance per app (not the global one), so apps on different databases can coexist in tests.
- * Only the user id goes into the session; each request looks the account up (in the access cache, which
- * any change to users empties) so a deleted account or a changed role takes effect at once.
+ * Only the user id goes into the session; each request reads the account from MariaDB, so a deleted
+ * account or a changed role takes effect at once on every server.
  */
 export function createPassport(models: Models): passport.PassportStatic {
   const instance = new passport.Passport() as passport.PassportStatic;

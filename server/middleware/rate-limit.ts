@@ -1,14 +1,10 @@
-import { rateLimit, type Store } from 'express-rate-limit';
+import { rateLimit } from 'express-rate-limit';
 import type { RateLimitConfig } from '../config';
 import { HttpError } from '../http/errors';
 
-/**
- * One limiter per kind of sensitive route, counting per client address within the window; `store`
- * shares the counts between the app's processes when it runs as several.
- */
-export function createLimiters(config: RateLimitConfig, store?: (prefix: string) => Store) {
+/** One limiter per kind of sensitive route, counting per client address within the window. */
+export function createLimiters(config: RateLimitConfig) {
   const make = (limit: number, what: string) => rateLimit({
-    ...(store ? { store: store(`${what}:`) } : {}),
     windowMs: config.windowMs,
     limit,
     standardHeaders: 'draft-8',

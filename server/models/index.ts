@@ -14,16 +14,13 @@ import { defineComment } from './comment';
 import { defineInvitation } from './invitation';
 import { defineShareLink } from './share-link';
 import { defineYarn } from './yarn';
-import type { CacheRelay } from '../cluster/relay';
-import { createAccessCache } from './access-cache';
+import { accessReads } from './access';
 
 /**
  * Defines every model on one Sequelize instance and wires the associations in this one place.
  * Models are defined per instance (not as shared classes) so two app instances can coexist in tests.
- * `processCaches` turns on the access cache (off by default: only the long-running app server wants it);
- * `relay` keeps it true to the caches of the app's other processes.
  */
-export function defineModels(sequelize: Sequelize, { processCaches = false, relay }: { processCaches?: boolean; relay?: CacheRelay } = {}) {
+export function defineModels(sequelize: Sequelize) {
   const models = {
     User: defineUser(sequelize),
     Studio: defineStudio(sequelize),
@@ -63,7 +60,7 @@ export function defineModels(sequelize: Sequelize, { processCaches = false, rela
 
   models.DraftPlan.belongsTo(User, { foreignKey: 'updatedById', as: 'updatedBy' });
   models.WeavingResult.belongsTo(User, { foreignKey: 'userId', as: 'weaver' });
-  return { ...models, access: createAccessCache(models, processCaches, relay) };
+  return { ...models, access: accessReads(models) };
 }
 
 export type Models = ReturnType<typeof defineModels>;

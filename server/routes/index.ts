@@ -48,7 +48,7 @@ interface Access {
  */
 export function apiRouter(app: AppContext): Router {
   const router = Router();
-  const limiters = createLimiters(app.config.rateLimit, app.rateLimitStore);
+  const limiters = createLimiters(app.config.rateLimit);
   for (const spec of routeTable) {
     if (spec.devOnly && !app.config.dev) continue;
     const chain: RequestHandler[] = [];

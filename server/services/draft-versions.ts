@@ -66,9 +66,7 @@ async function writeVersion(models: Models, draftId: number, document: Draft, ba
     }
     return true;
   });
-  if (!written) return null;
-  await models.access.draftSaved();
-  return version;
+  return written ? version : null;
 }
 
 /** The 409 for a save that lost to another (or 404 when the draft is gone meanwhile). */

@@ -92,13 +92,9 @@ const ORDER_KEYS = { updated: '`updatedAt`', name: '`name`', size: '`ends` * `pi
 type ListRow = Omit<SummarySource, 'tags' | 'structure'> & { tags: string | string[]; structure: string | string[] | null };
 const jsonList = (value: string | string[] | null): string[] => (typeof value === 'string' ? JSON.parse(value) as string[] : value ?? []);
 
-/**
- * The drafts a user owns or sees through a studio, filtered, sorted and paged, as the JSON text of a
- * DraftListResponse. Pages are kept in the library cache until the next write to drafts, users,
- * studios or memberships; they are sent far more often than read, so they are kept serialised.
- */
-export function listDraftsJson(models: Models, userId: number, query: DraftListQuery): Promise<string> {
-  return models.access.libraryPage(userId, JSON.stringify(query), async () => JSON.stringify(await readLibraryPage(models, userId, query)));
+/** The drafts a user owns or sees through a studio, filtered, sorted and paged, as the JSON text of a DraftListResponse. */
+export async function listDraftsJson(models: Models, userId: number, query: DraftListQuery): Promise<string> {
+  return JSON.stringify(await readLibraryPage(models, userId, query));
 }
 
 /**

@@ -12,10 +12,9 @@
  * Prints requests/s, p50/p95/p99 latency and error counts. Targets: p95 ≤ 50 ms (list),
  * ≤ 100 ms (save), zero errors; also the CPU time per request of the app, MariaDB and autocannon, and
  * how much of the machine's CPU was left idle.
- * Options: --duration=20 --connections=50 --only=list|save --cpu-prof=DIR; --workers=N runs the app as
- * N processes (as SHEDWRIGHT_WORKERS does; by default as many as the app runs, one per CPU);
+ * Options: --duration=20 --connections=50 --only=list|save --cpu-prof=DIR;
  * --server=express|node measures a floor instead of the app (save-floors.ts: the save's own work
- * without the app around it; save only).
+ * without the app around it, and for express the library page's too).
  */
 import { spawn } from 'node:child_process';
 import { once } from 'node:events';
@@ -39,7 +38,8 @@ const arg = (name: string, fallback: number) => Number(option(name) ?? fallback)
 const DURATION_S = arg('duration', 20);
 const CONNECTIONS = arg('connections', 50);
 const SERVER = option('server') ?? 'app';
-const ONLY = SERVER === 'app' ? option('only') : 'save';
+// The node:http floor answers only the save.
+const ONLY = SERVER === 'node' ? 'save' : option('only');
 const LIBRARY_SIZE = 1000;
 const PASSWORD = 'bench-password-loom';
 
@@ -120,7 +120,7 @@ const dbPid = Number(readFileSync(pidFile, 'utf8').trim());
 // --cpu-prof=DIR writes a V8 profile of the app process there when it exits.
 const profileDir = option('cpu-prof');
 const profile = profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [];
-const serverOptions = process.argv.filter((a) => /^--(server|workers)=/.test(a));
+const serverOptions = process.argv.filter((a) => a.startsWith("--server="));
 const child = spawn(process.execPath, [...profile, '--import', 'tsx', new URL('./drafts-load-server.ts', import.meta.url).pathname, ...serverOptions], {
   stdio: ['ignore', 'pipe', 'inherit'],
 });
@@ -147,12 +147,13 @@ try {
   for (let i = 0; i < CONNECTIONS + 1; i++) {
     saveDrafts.push(await createDraft(ctx.models, { ownerId: user.id, studioId: null, document: bigDraft(i), tags: [] }));
   }
-  // The floors answer only the save, and sign nobody in.
+  // The floors sign nobody in: the list floor is told whose library to read.
   const { cookie, csrf } = SERVER === 'app' ? await signIn(base, email) : { cookie: '', csrf: '' };
   const headers = { cookie, 'x-csrf-token': csrf, 'content-type': 'application/json' };
+  const listUrl = SERVER === 'app' ? `${base}/api/drafts` : `${base}/api/drafts?as=${user.id}`;
 
   const runs: Figures[] = [];
-  if (ONLY !== 'save') runs.push(await run('list (GET /api/drafts)', { url: `${base}/api/drafts`, headers }));
+  if (ONLY !== 'save') runs.push(await run('list (GET /api/drafts)', { url: listUrl, headers }));
 
   const documents = saveDrafts.map((_, i) => JSON.stringify(bigDraft(1000 + i)));
   const free = saveDrafts.map((d, i) => ({ id: d.id, version: 1, doc: documents[i] }));
@@ -192,6 +193,8 @@ try {
   const verdict = (f: Figures, target: number) => `${f.name}: p95 ${f.p95} ms (target ≤ ${target} ms) ${f.p95 <= target ? 'met' : 'MISSED'}, `
     + `${f.errors + f.timeouts + f.non2xx === 0 ? 'no errors' : 'ERRORS'}`;
   for (const f of runs) console.log(verdict(f, f.name.startsWith('list') ? 50 : 100));
+  // One line for tests/bench/floor-ratios.ts.
+  console.log(`FIGURES ${JSON.stringify(Object.fromEntries(runs.map((f) => [f.name.split(' ')[0], f.perSecond])))}`);
 } finally {
   child.kill('SIGTERM');
   await once(child, 'exit');

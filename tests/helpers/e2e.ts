@@ -14,7 +14,7 @@ export const artifactsDir = join(root, 'tests/e2e/artifacts');
 
 export interface AppServer {
   url: string;
-  /** The server's process: the primary when the app runs as several workers. */
+  /** The server's process. */
   pid: number;
   env: NodeJS.ProcessEnv;
   stop(): Promise<void>;
@@ -45,9 +45,6 @@ export async function startAppServer(extraEnv: NodeJS.ProcessEnv = {}): Promise<
     SHEDWRIGHT_SESSION_SECRET: 'e2e-session-secret-not-for-production',
     SHEDWRIGHT_STATIC_DIR: join(root, 'dist'),
     SHEDWRIGHT_DEV: '1',
-    // Two workers whatever the machine, as npm start runs on two CPUs: the tests then cover the relay
-    // between workers, and a many-CPU machine does not start a worker per CPU for every test file.
-    SHEDWRIGHT_WORKERS: '2',
     ...extraEnv,
   };
   const setup = spawnSync(process.execPath, ['--import', 'tsx', 'server/db/setup.ts'], { cwd: root, env, encoding: 'utf8' });

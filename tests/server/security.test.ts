@@ -606,7 +606,7 @@ describe('broken text', () => {
       const s = await makeStudio('Surrogates');
       const lone = 'Scarf \uD800 end';
       const answers = [
-        await s.owner.post('/api/drafts', { name: lone }),
+        await s.owner.post('/api/drafts', { name: lone, document: pointTwillScarf() }),
         await s.owner.patch(`/api/drafts/${s.draftId}`, { tags: ['wool', lone] }),
         await s.owner.send('put', `/api/drafts/${s.draftId}`, { document: { ...pointTwillScarf(), notes: `Notes ${lone}` }, baseVersion: 1 }),
         await s.owner.post(`/api/drafts/${s.draftId}/fork`, { name: lone }),
@@ -622,7 +622,7 @@ describe('broken text', () => {
       expect(imported.status, imported.text).toBe(422);
       expect(imported.body.error.message).toMatch(/broken character/);
       // Well-formed pairs are text like any other.
-      expect((await s.owner.post('/api/drafts', { name: 'Scarf 🧶' })).status).toBe(201);
+      expect((await s.owner.post('/api/drafts', { name: 'Scarf 🧶', document: pointTwillScarf() })).status).toBe(201);
       expect(errors.mock.calls.filter((c) => String(c[0]).startsWith('Unexpected error'))).toEqual([]);
     } finally {
       errors.mockRestore();

@@ -1,3 +1,4 @@
+import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { studioDetailResponseSchema, studioListResponseSchema } from '../../shared/api/studios';
 import { startTestServer, type TestServer } from '../helpers/server';
@@ -74,7 +75,7 @@ describe('drafts made in a studio belong to the studio', () => {
     const { client: author, user, studioId, ownerId } = await server.signInWithRole('editor');
     const owner = server.client();
     await owner.signIn((await server.ctx.models.User.findByPk(ownerId))!.email);
-    const made = await author.post('/api/drafts', { name: 'Studio scarf', studioId });
+    const made = await author.post('/api/drafts', { name: 'Studio scarf', document: pointTwillScarf(), studioId });
     expect(made.status).toBe(201);
     const draftId = made.body.draft.id as number;
     expect((await author.post(`/api/drafts/${draftId}/comments`, { text: 'Sley 2 per dent' })).status).toBe(201);
