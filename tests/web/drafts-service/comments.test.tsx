@@ -99,8 +99,14 @@ describe('comments', () => {
     fireEvent.change(comments.getByLabelText('End (optional)'), { target: { value: '30000' } });
     fireEvent.click(comments.getByRole('button', { name: 'Post comment' }));
     expect((await comments.findByRole('alert')).textContent).toContain('Could not post the comment. Some fields are not valid');
-    expect(comments.getByLabelText('End (optional)').getAttribute('aria-invalid')).toBe('true');
-    expect(comments.getByLabelText('Pick (optional)').getAttribute('aria-invalid')).toBe('false');
+    // The refused field is marked and says why in words tied to it, not by its red border alone.
+    const endField = comments.getByLabelText('End (optional)');
+    expect(endField.getAttribute('aria-invalid')).toBe('true');
+    const reason = document.getElementById(endField.getAttribute('aria-describedby') ?? '');
+    expect(reason?.textContent).toContain('Too big');
+    const pickField = comments.getByLabelText('Pick (optional)');
+    expect(pickField.getAttribute('aria-invalid')).not.toBe('true');
+    expect(pickField.getAttribute('aria-describedby')).toBeNull();
     expect(comments.getByLabelText<HTMLTextAreaElement>('Add a comment on version 4').value).toBe('Here');
   });
 
