@@ -52,16 +52,16 @@ describe('DraftEditor', () => {
     expect(screen.getByTestId('save-status').textContent).toContain('Saved');
   });
 
-  it('selects with shift and arrows and fills a point run with its key', () => {
+  it('selects with shift and arrows and fills a point draw with its key', () => {
     render(<DraftEditor draft={twill({ threading: Array.from({ length: 8 }, () => []) })} version={1} />);
     const grid = screen.getByTestId('draft-canvas');
     const press = keyboard(grid);
     for (let i = 0; i < 5; i++) press('ArrowRight', { shiftKey: true });
     press('2');
-    expect(screen.getByTestId('editor-message').textContent).toBe('Point run drawn.');
+    expect(screen.getByTestId('editor-message').textContent).toBe('Filled with a point draw.');
     // The Keys panel lists the shortcut that was just used.
     press('?');
-    expect(screen.getByTestId('keys-panel').textContent).toContain('Point run over the selection');
+    expect(screen.getByTestId('keys-panel').textContent).toContain('Fill the selection with a point draw');
   });
 
   it('lists floats over the limit in Checks, and a click jumps to the pick', async () => {
@@ -105,6 +105,6 @@ describe('DraftEditor', () => {
     press('ArrowUp');
     press('ArrowDown');
     expect(screen.getByTestId('editor-message').textContent).toBe('Threading, end 1, shaft 3: empty.');
-    expect(screen.queryByRole('button', { name: 'Straight run' })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Straight draw' })).toBeNull();
   });
 });

@@ -93,7 +93,7 @@ describe('runs and fills', () => {
     valid(e);
   });
 
-  it('fills with a point run using the engine point draw', () => {
+  it('fills with the point draw of the engine', () => {
     const e = fillRun(twill(), { grid: 'threading', from: 0, to: 7, low: 1, high: 4, kind: 'point' });
     // Source: pointDraw(4) = [1, 2, 3, 4, 3, 2], documented in shared/weave/sequences.ts.
     expect(e.threading.map((x) => x[0])).toEqual([1, 2, 3, 4, 3, 2, 1, 2]);

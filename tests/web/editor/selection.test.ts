@@ -1,6 +1,6 @@
 import { describe, expect, it, vi } from 'vitest';
 import { createEditor } from '../../../src/features/editor/store/editor';
-import { handleKey, type KeyLike } from '../../../src/features/editor/store/keys';
+import { handleKey, type KeyLike } from '../../../src/features/editor/store/commands';
 import { twill } from './fixtures';
 
 const key = (k: string, shiftKey = false): KeyLike => ({ key: k, shiftKey, ctrlKey: false, metaKey: false, altKey: false });

@@ -9,7 +9,7 @@ import { useStore } from '../store/create-store';
 import type { Editor, GridCell, ViewState } from '../store/editor';
 import type { RegionId } from '../canvas/layout';
 import { showsLayerRows } from '../store/grids';
-import { handleKey } from '../store/keys';
+import { handleKey } from '../store/commands';
 import { scrolledBy, wheelPixels, zoomedAbout, zoomedCell } from '../canvas/wheel';
 import { useEditorContext } from './editor-context';
 
@@ -246,9 +246,8 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
     editor.pointerUp();
   };
   const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
-    if (readOnly && !e.key.startsWith('Arrow') && e.key !== '[' && e.key !== ']') return;
     performance.mark('edit-start');
-    if (handleKey(editor, e)) e.preventDefault();
+    if (handleKey(editor, e, { readOnly })) e.preventDefault();
   };
 
   return (

@@ -1,6 +1,6 @@
-import { SHORTCUTS } from '../store/keys';
+import { SHORTCUTS } from '../store/commands';
 
-/** Keys: every shortcut the editor answers, from the same list that handles them. */
+/** Keys: every shortcut the editor answers, from the same command list that handles them and draws the toolbar. */
 export function KeysPanel({ onClose }: { onClose: () => void }) {
   return (
     <section aria-labelledby="keys-heading" className="rounded-md border border-line bg-surface p-3 shadow-sm" data-testid="keys-panel">

@@ -2,17 +2,40 @@ import { useState, type ReactNode } from 'react';
 import { MAX_SHAFTS, MAX_TREADLES, type RunChange } from '../../../../shared/weave';
 import { useStore } from '../store/create-store';
 import { setShafts, setTreadles } from '../store/edits';
-import type { Tool } from '../store/editor';
+import { COMMANDS, tooltipOf, type CommandId } from '../store/commands';
+import type { Editor, Tool } from '../store/editor';
 import { useEditorContext } from './editor-context';
 import { GoToBox } from './go-to-box';
 
-const TOOLS: { id: Tool; label: string; key: string }[] = [
-  { id: 'draw', label: 'Draw', key: 'D' },
-  { id: 'erase', label: 'Erase', key: 'E' },
-  { id: 'select', label: 'Select', key: 'S' },
+const TOOLS: { id: Tool; command: CommandId }[] = [
+  { id: 'draw', command: 'draw' },
+  { id: 'erase', command: 'erase' },
+  { id: 'select', command: 'select' },
 ];
 
 const btn = 'rounded border border-field bg-surface px-2 py-1 text-xs hover:bg-sunken disabled:opacity-50';
+
+/**
+ * A toolbar button drawn from the command list: its words, its tooltip with the key, and disabled
+ * while the command has nothing to act on.
+ */
+function CommandButton({ id, text, className = btn, pressed }: { id: CommandId; text?: string; className?: string; pressed?: boolean }) {
+  const { editor } = useEditorContext();
+  const command = COMMANDS[id];
+  const enabled = useEnabled(editor, id);
+  return (
+    <button type="button" className={className} aria-pressed={pressed} disabled={!enabled} onClick={() => command.run(editor)} title={tooltipOf(command)}>
+      {text ?? command.label}
+    </button>
+  );
+}
+
+function useEnabled(editor: Editor, id: CommandId): boolean {
+  const command = COMMANDS[id];
+  const byDoc = useStore(editor.doc, () => command.enabled?.(editor) ?? true);
+  const byView = useStore(editor.view, () => command.enabled?.(editor) ?? true);
+  return byDoc && byView;
+}
 
 function Group({ label, children }: { label: string; children: ReactNode }) {
   return (
@@ -55,31 +78,19 @@ export function Toolbar({ readOnly = false, onShowKeys }: { readOnly?: boolean; 
           <>
             <Group label="Tool">
               {TOOLS.map((t) => (
-                <button key={t.id} type="button" aria-pressed={tool === t.id} className={`${btn} aria-pressed:bg-accent aria-pressed:text-white`} onClick={() => editor.setView({ tool: t.id })} title={`${t.label} (${t.key})`}>
-                  {t.label}
-                </button>
+                <CommandButton key={t.id} id={t.command} pressed={tool === t.id} className={`${btn} aria-pressed:bg-accent aria-pressed:text-white`} />
               ))}
             </Group>
             <Group label="History">
-              <button type="button" className={btn} disabled={!undoLabel} onClick={() => editor.undo()} title="Undo (Ctrl/⌘ Z)">
-                Undo{undoLabel ? ` ${undoLabel.toLowerCase()}` : ''}
-              </button>
-              <button type="button" className={btn} disabled={!redoLabel} onClick={() => editor.redo()} title="Redo (Shift Ctrl/⌘ Z)">
-                Redo
-              </button>
+              <CommandButton id="undo" text={undoLabel ? `Undo ${undoLabel.toLowerCase()}` : 'Undo'} />
+              <CommandButton id="redo" text={redoLabel ? `Redo ${redoLabel.toLowerCase()}` : 'Redo'} />
             </Group>
-            <Group label="Runs over the selection">
-              <button type="button" className={btn} onClick={() => editor.fill('straight')} title="Straight run (1)">
-                Straight run
-              </button>
-              <button type="button" className={btn} onClick={() => editor.fill('point')} title="Point run (2)">
-                Point run
-              </button>
-              <button type="button" className={btn} onClick={() => editor.fill('broken')} title="Broken run (3)">
-                Broken run
-              </button>
-              <button type="button" className={btn} onClick={() => editor.repeatSelection(repeatTimes)} title="Repeat (P)">
-                Repeat
+            <Group label="Draws and repeats over the selection">
+              <CommandButton id="straightDraw" />
+              <CommandButton id="pointDraw" />
+              <CommandButton id="brokenDraw" />
+              <button type="button" className={btn} onClick={() => editor.repeatSelection(repeatTimes)} title={`Repeat the selection after itself, × times (${COMMANDS.repeat.keys} repeats once)`}>
+                {COMMANDS.repeat.label}
               </button>
               <label className="flex items-center gap-1 text-xs">
                 ×
@@ -92,36 +103,20 @@ export function Toolbar({ readOnly = false, onShowKeys }: { readOnly?: boolean; 
                 <option value="reverse">reversed</option>
                 <option value="swap">two values swapped</option>
               </select>
-              <button type="button" className={btn} onClick={() => editor.mirror()} title="Mirror (M)">
-                Mirror
-              </button>
-              <button type="button" className={btn} onClick={() => editor.reverse()} title="Reverse (R)">
-                Reverse
-              </button>
-              <button type="button" className={btn} onClick={() => editor.flip()} title="Upside down (F)">
-                Upside down
-              </button>
+              <CommandButton id="mirror" />
+              <CommandButton id="reverse" />
+              <CommandButton id="upsideDown" />
             </Group>
             <Group label="Ends and picks">
-              <button type="button" className={btn} onClick={() => editor.insert(1)} title="Insert (I)">
-                Insert
-              </button>
-              <button type="button" className={btn} onClick={() => editor.remove()} title="Delete (Delete)">
-                Delete
-              </button>
-              <button type="button" className={btn} onClick={() => editor.copy()} title="Copy (Ctrl/⌘ C)">
-                Copy
-              </button>
-              <button type="button" className={btn} onClick={() => editor.paste()} title="Paste (Ctrl/⌘ V)">
-                Paste
-              </button>
+              <CommandButton id="insert" />
+              <CommandButton id="delete" />
+              <CommandButton id="copy" />
+              <CommandButton id="paste" />
             </Group>
             <Group label="Picks">
               {control === 'treadling' ? (
                 <>
-                  <button type="button" className={btn} onClick={() => editor.treadleAsDrawnIn()} title="Treadle as drawn in (T)">
-                    Treadle as drawn in
-                  </button>
+                  <CommandButton id="treadleAsDrawnIn" />
                   <button type="button" className={btn} onClick={() => editor.toLiftPlan()}>
                     Use a lift plan
                   </button>

@@ -84,15 +84,16 @@ export function createDraftStore(initial: Draft, guard: EditGuard = () => true):
         edit.recipe(d, args);
       });
       if (next === base || patches.length === 0) return false;
-      if (!guard(base, next, edit.label)) return false;
+      const label = edit.labelFor(args);
+      if (!guard(base, next, label)) return false;
       if (gesture) {
-        if (gesture.patches.length === 0) gesture.label = edit.label;
+        if (gesture.patches.length === 0) gesture.label = label;
         gesture.patches.push(...patches);
         // Undoing a gesture runs its edits' inverses last-first.
         gesture.inverse = [...inverse, ...gesture.inverse];
         future = [];
       } else {
-        push({ label: edit.label, patches, inverse });
+        push({ label, patches, inverse });
       }
       publish(next);
       return true;

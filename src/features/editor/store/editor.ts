@@ -5,6 +5,7 @@ import { createDraftStore, type DraftStore, type EditGuard } from './draft-store
 import {
   copyRange,
   deleteThreadsEdit,
+  DRAW_NAMES,
   eraseRange,
   fillRun,
   flipRange,
@@ -346,7 +347,7 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {},
       const all = t.low === t.high;
       const high = all ? (t.grid === 'treadling' ? d.treadles : d.shafts) : t.high;
       const low = all ? 1 : t.low;
-      run(doc.apply(fillRun, { grid: t.grid, from: t.from, to: t.to, low, high, kind }), `${kind === 'straight' ? 'Straight' : kind === 'point' ? 'Point' : 'Broken'} run drawn.`, 'Nothing changed.');
+      run(doc.apply(fillRun, { grid: t.grid, from: t.from, to: t.to, low, high, kind }), `Filled with a ${DRAW_NAMES[kind].toLowerCase()}.`, 'Nothing changed.');
     },
     repeatSelection(times) {
       const t = target();

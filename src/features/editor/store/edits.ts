@@ -30,15 +30,16 @@ import { axisOf, isThreadRow, type GridId, type ListGridId, type ThreadRowId } f
 export interface Edit<A> {
   (draft: Draft, args: A): Draft;
   readonly recipe: (d: ImmerDraft<Draft>, args: A) => void;
-  readonly label: string;
+  /** What Undo and Redo call this edit ("Undo upside down"), named for what it did with these arguments. */
+  labelFor(args: A): string;
 }
 
-function edit<A>(label: string, recipe: (d: ImmerDraft<Draft>, args: A) => void): Edit<A> {
+function edit<A>(label: string | ((args: A) => string), recipe: (d: ImmerDraft<Draft>, args: A) => void): Edit<A> {
   const pure = (draft: Draft, args: A) =>
     produce(draft, (d) => {
       recipe(d, args);
     });
-  return Object.assign(pure, { recipe, label });
+  return Object.assign(pure, { recipe, labelFor: typeof label === 'string' ? () => label : label });
 }
 
 type D = ImmerDraft<Draft>;
@@ -205,7 +206,7 @@ export interface LayerFillArgs {
 }
 
 /** The layer rows' quick fills: alternate 1-2, by colour, by shaft (ends only). */
-export const fillLayers = edit<LayerFillArgs>('Layers', (d, { axis, by }) => {
+export const fillLayers = edit<LayerFillArgs>('Layer order', (d, { axis, by }) => {
   const draft = original(d) as Draft;
   const ends = axis === 'ends';
   const count = ends ? draft.threading.length : picksIn(draft);
@@ -274,7 +275,7 @@ export interface FlipArgs {
 }
 
 /** Flips the entries from..to upside down within the band low..high (shaft s becomes low + high − s). */
-export const flipRange = edit<FlipArgs>('Flip', (d, { grid, from, to, low: l, high: h }) => {
+export const flipRange = edit<FlipArgs>('Upside down', (d, { grid, from, to, low: l, high: h }) => {
   if (!editable(d, grid)) return;
   const limit = grid === 'treadling' ? d.treadles : d.shafts;
   const low = Math.max(1, Math.min(l, h));
@@ -337,7 +338,7 @@ export const pasteClip = edit<PasteArgs>('Paste', (d, { grid, at, clip }) => {
 });
 
 /** Sets the shaft count (1–32); shafts above the new count are taken out of every list. */
-export const setShafts = edit<{ shafts: number }>('Shafts', (d, { shafts }) => {
+export const setShafts = edit<{ shafts: number }>('Number of shafts', (d, { shafts }) => {
   const n = Math.max(1, Math.min(MAX_SHAFTS, Math.round(shafts)));
   if (n === d.shafts) return;
   if (n < d.shafts) {
@@ -349,7 +350,7 @@ export const setShafts = edit<{ shafts: number }>('Shafts', (d, { shafts }) => {
 });
 
 /** Sets the treadle count (1–32); the tie-up grows or shrinks and the treadling loses treadles above it. */
-export const setTreadles = edit<{ treadles: number }>('Treadles', (d, { treadles }) => {
+export const setTreadles = edit<{ treadles: number }>('Number of treadles', (d, { treadles }) => {
   const n = Math.max(1, Math.min(MAX_TREADLES, Math.round(treadles)));
   if (n === d.treadles) return;
   if (n < d.treadles) {
@@ -366,7 +367,7 @@ export const setTreadles = edit<{ treadles: number }>('Treadles', (d, { treadles
 const HEX = /^#[0-9a-f]{6}$/;
 
 /** Changes one palette colour ('#rrggbb'); every end and pick in it changes with it. */
-export const setPaletteColor = edit<{ index: number; color: string }>('Colour', (d, { index, color }) => {
+export const setPaletteColor = edit<{ index: number; color: string }>('Colour change', (d, { index, color }) => {
   const hex = color.toLowerCase();
   if (!HEX.test(hex) || index < 0 || index >= d.palette.length || d.palette[index] === hex) return;
   d.palette[index] = hex;
@@ -428,7 +429,7 @@ export const renameDraft = edit<{ name: string }>('Rename', (d, { name }) => {
 });
 
 /** Takes the whole result of an engine function, assigning only the fields it changed (small patches). */
-function wholeEdit<A>(label: string, fn: (draft: Draft, args: A) => Draft): Edit<A> {
+function wholeEdit<A>(label: string | ((args: A) => string), fn: (draft: Draft, args: A) => Draft): Edit<A> {
   return edit<A>(label, (d, args) => {
     const base = original(d) as Draft;
     const next = fn(base, args);
@@ -460,8 +461,11 @@ function drawOf(kind: RunKind, n: number): number[] {
   return straightDraw(n);
 }
 
-/** Fills the entries from..to with a straight, point or broken run over the shafts low..high. */
-export const fillRun = edit<FillArgs>('Run', (d, { grid, from, to, low, high, kind }) => {
+/** The trade's name for each kind of draw the fill writes. */
+export const DRAW_NAMES: Record<RunKind, string> = { straight: 'Straight draw', point: 'Point draw', broken: 'Broken draw' };
+
+/** Fills the entries from..to with a straight, point or broken draw over the shafts low..high. */
+export const fillRun = edit<FillArgs>(({ kind }) => DRAW_NAMES[kind], (d, { grid, from, to, low, high, kind }) => {
   const limit = grid === 'treadling' ? d.treadles : d.shafts;
   const lo = Math.max(1, Math.min(low, high));
   const hi = Math.min(limit, Math.max(low, high));
@@ -569,13 +573,13 @@ export const treadleAsDrawnInEdit = wholeEdit<void>('Treadle as drawn in', (draf
 );
 
 /** Switches the picks to a lift plan worked out from tie-up and treadling. */
-export const toLiftPlanEdit = wholeEdit<void>('Lift plan', (draft) => toLiftPlanDraft(draft));
+export const toLiftPlanEdit = wholeEdit<void>('Change to a lift plan', (draft) => toLiftPlanDraft(draft));
 
 /**
  * Switches the picks to tie-up and treadling for a loom with `treadles` treadles; the result says
  * why when it cannot be done (see {@link tryTreadling}), and the draft is left as it is.
  */
-export const toTreadlingEdit = wholeEdit<{ treadles: number }>('Tie-up and treadling', (draft, { treadles }) => {
+export const toTreadlingEdit = wholeEdit<{ treadles: number }>('Change to tie-up and treadling', (draft, { treadles }) => {
   const result = toTreadlingDraft(draft, treadles);
   return result.ok ? result.draft : draft;
 });
@@ -587,4 +591,4 @@ export function tryTreadling(draft: Draft, treadles: number): { ok: true } | { o
 }
 
 /** Replaces the whole draft (an expanded profile, say) as one undoable edit. */
-export const replaceDraft = wholeEdit<{ draft: Draft }>('Replace draft', (_draft, { draft }) => draft);
+export const replaceDraft = wholeEdit<{ draft: Draft }>('Replace the draft', (_draft, { draft }) => draft);
