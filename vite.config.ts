@@ -51,6 +51,8 @@ export default defineConfig({
           include: ['tests/web/**/*.test.{ts,tsx}'],
           environment: 'happy-dom',
           setupFiles: ['tests/helpers/web-setup.ts'],
+          // The canvas painters read their colours from the theme file, so the tests must see its text.
+          css: { include: [/src\/theme\.css/] },
         },
       },
       {

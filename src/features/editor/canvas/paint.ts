@@ -1,19 +1,20 @@
 import type { Cloth, Drawdown, Float } from '../../../../shared/weave';
 import { rowOfShaft } from './layout';
+import { THEME } from '@/lib/theme';
 import { pixel } from './bitmap';
 
-/** Grid and cloth tones from the app theme (src/index.css): ink on white, paper for the structure's weft. */
+/** Grid and cloth tones from the theme (src/theme.css): ink on white, a pale weft for the structure. */
 export const TONES = {
-  mark: pixel('#1e2126'),
-  empty: pixel('#ffffff'),
-  warpUp: pixel('#2b2f3a'),
-  weftUp: pixel('#f3efe6'),
+  mark: pixel(THEME.ink),
+  empty: pixel(THEME.surface),
+  warpUp: pixel(THEME.clothWarp),
+  weftUp: pixel(THEME.clothWeft),
   // Floats over the limit: danger red hatched with ink, so the mark shows without colour vision, on a
-  // structure dimmed to light tones: red is 3.8:1 against the lighter of them (WCAG SC 1.4.11 asks 3:1).
-  floatA: pixel('#a12a1f'),
-  floatB: pixel('#1e2126'),
-  dimUp: pixel('#b8babf'),
-  dimDown: pixel('#faf8f3'),
+  // structure dimmed to light tones.
+  floatA: pixel(THEME.danger),
+  floatB: pixel(THEME.ink),
+  dimUp: pixel(THEME.dimWarp),
+  dimDown: pixel(THEME.dimWeft),
 };
 
 /** Threading or tie-up: column = end (or treadle), row = shaft as the weaver counts them. */
@@ -43,7 +44,7 @@ export function paintColorOrder(out: Uint32Array, order: readonly number[], pale
  * Layer tones for the layer rows: dark and light in turn (1 dark blue, 2 light blue, 3 dark green,
  * 4 light green …), so neighbouring layers differ in lightness, not only in hue.
  */
-const LAYER_ROW_TONES = ['#2f44b0', '#a9b3e6', '#1f6a3b', '#a3cfb0', '#7a3b12', '#e3b98f', '#4b2a6b', '#c8b2de'].map(pixel);
+const LAYER_ROW_TONES = THEME.layerRows.map(pixel);
 
 /** A layer row: one cell per end or pick in its layer's tone (an empty list is layer 1 throughout). */
 export function paintLayerRow(out: Uint32Array, layers: readonly number[], count: number): void {
@@ -86,25 +87,37 @@ export function paintFloats(out: Uint32Array, dd: Drawdown, floats: readonly Flo
   }
 }
 
-/** The layer map's tones, layer 1 first; even layers are light and carry a diagonal stripe. */
-const LAYER_TONES = ['#2f44b0', '#e9ecfa', '#1f6a3b', '#f3efe6'];
-const LAYER_WORDS = LAYER_TONES.map(pixel);
-
-/** How layer n (1-based) looks in the layer map: its tone, and whether it is striped. */
-export function layerLook(layer: number): { tone: string; striped: boolean } {
-  return { tone: LAYER_TONES[(layer - 1) % LAYER_TONES.length], striped: layer % 2 === 0 };
-}
+/** How a layer's cells are patterned in the layer map, so layers never differ by colour alone. */
+export type LayerPattern = 'plain' | 'diagonal' | 'across' | 'upright';
+const LAYER_PATTERNS: readonly LayerPattern[] = ['plain', 'diagonal', 'across', 'upright'];
+const LAYER_WORDS = THEME.layers.map(pixel);
+/** The mark of each pattern: ink on the light tones, paper on the dark ones (layers 1 and 3). */
+const PATTERN_MARKS = THEME.layers.map((_, i) => pixel(i % 2 === 0 ? THEME.paper : THEME.ink));
 
 /**
- * Which layer is on top at each cell. Layer 1 solid, layer 2 light with a diagonal stripe, and so
- * on: the stripe tells the layers apart without colour.
+ * How layer n (1-based) looks in the layer map: its tone, its pattern and the pattern's mark. Layer 1
+ * is dark blue and plain, 2 light with diagonal stripes, 3 dark green with stripes across, 4 light
+ * with upright stripes; the layer map's key shows each with its number.
  */
+export function layerLook(layer: number): { tone: string; pattern: LayerPattern; mark: string } {
+  const i = (layer - 1) % THEME.layers.length;
+  return { tone: THEME.layers[i], pattern: LAYER_PATTERNS[i], mark: i % 2 === 0 ? THEME.paper : THEME.ink };
+}
+
+/** Whether the cell at end e, pick p carries the mark of a pattern. */
+function marked(pattern: LayerPattern, e: number, p: number): boolean {
+  if (pattern === 'diagonal') return (e + p) % 4 === 0;
+  if (pattern === 'across') return p % 4 === 0;
+  if (pattern === 'upright') return e % 4 === 0;
+  return false;
+}
+
+/** Which layer is on top at each cell, in its tone and pattern (see layerLook). */
 export function paintLayerMap(out: Uint32Array, top: Uint8Array, ends: number): void {
   for (let i = 0; i < top.length; i++) {
-    const layer = top[i];
+    const at = (top[i] - 1) % LAYER_WORDS.length;
     const e = i % ends;
     const p = (i - e) / ends;
-    const striped = layer % 2 === 0 && (e + p) % 4 === 0;
-    out[i] = striped ? TONES.mark : LAYER_WORDS[(layer - 1) % LAYER_WORDS.length];
+    out[i] = marked(LAYER_PATTERNS[at], e, p) ? PATTERN_MARKS[at] : LAYER_WORDS[at];
   }
 }

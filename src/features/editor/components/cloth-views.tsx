@@ -4,7 +4,7 @@ import { Image as KonvaImage, Layer, Stage } from 'react-konva';
 import type { LengthUnit } from '../../../../shared/weave';
 import { GridBitmap } from '../canvas/bitmap';
 import { MAX_ZOOM, type ViewFrame, type ViewPicture } from '../canvas/cloth-work';
-import { layerLook } from '../canvas/paint';
+import { layerLook, type LayerPattern } from '../canvas/paint';
 import type { ClothResults } from '../store/cloth-results';
 import { useStore } from '../store/create-store';
 import { CLOTH_VIEWS, type ClothView } from '../store/editor';
@@ -319,6 +319,10 @@ const ViewPanel = memo(function ViewPanel({ id, picture, cloth, overLimit }: Vie
   );
 });
 
+/** CSS for a layer pattern in the key, drawn like the picture's stripes. */
+const PATTERN_ANGLE: Record<LayerPattern, number | null> = { plain: null, diagonal: 135, across: 0, upright: 90 };
+const PATTERN_WORDS: Record<LayerPattern, string> = { plain: 'plain', diagonal: 'diagonal stripes', across: 'stripes across', upright: 'upright stripes' };
+
 /** The layer map's key: each layer's number beside its tone and pattern, so colour is never the only sign. */
 function LayerLegend() {
   const { editor } = useEditorContext();
@@ -329,18 +333,19 @@ function LayerLegend() {
     <ul aria-label="Layer map key" className="flex flex-wrap gap-3 text-xs" data-testid="layer-legend">
       {layers.map((n) => {
         const look = layerLook(n);
+        const angle = PATTERN_ANGLE[look.pattern];
         return (
           <li key={n} className="flex items-center gap-1">
             <span
               aria-hidden
-              className="inline-block h-3.5 w-3.5 rounded-sm border border-line"
+              className="inline-block h-3.5 w-3.5 rounded-sm border border-field"
               style={{
                 backgroundColor: look.tone,
-                backgroundImage: look.striped ? 'repeating-linear-gradient(135deg, #1e2126 0 1.5px, transparent 1.5px 5px)' : undefined,
+                backgroundImage: angle === null ? undefined : `repeating-linear-gradient(${angle}deg, ${look.mark} 0 1.5px, transparent 1.5px 5px)`,
               }}
             />
             <span>
-              Layer {n} on top{look.striped ? ' (striped)' : ' (plain)'}
+              Layer {n} on top ({PATTERN_WORDS[look.pattern]})
             </span>
           </li>
         );

@@ -12,12 +12,14 @@ import { showsLayerRows } from '../store/grids';
 import { handleKey } from '../store/commands';
 import { scrolledBy, wheelPixels, zoomedAbout, zoomedCell } from '../canvas/wheel';
 import { useEditorContext } from './editor-context';
+import { THEME, withAlpha } from '@/lib/theme';
 
-const LINE = '#ddd8cd';
-const LINE_STRONG = '#7d776b';
-const ACCENT = '#2f44b0';
-const DANGER = '#a12a1f';
-const MUTED = '#575c64';
+const LINE = THEME.line;
+const LINE_STRONG = THEME.field;
+const ACCENT = THEME.accent;
+const DANGER = THEME.danger;
+const MUTED = THEME.muted;
+const SELECTED = withAlpha(THEME.accent, 0.18);
 
 /** The draft's size as one string, so the layout (and React) changes only when a count changes. */
 const sizeKey = (d: Draft) =>
@@ -468,7 +470,7 @@ function OverlayLayer({ editor, layout }: { editor: Editor; layout: Layout }) {
       const r1 = Math.max(selection.from.row, selection.to.row);
       const p = cellBox(layout, r, c0, r0, scroll);
       shapes.push(
-        clipTo(r, 'sel', <Rect x={p.x} y={p.y} width={(c1 - c0 + 1) * cell} height={(r1 - r0 + 1) * cell} fill="rgba(47,68,176,0.18)" stroke={ACCENT} strokeWidth={1} dash={[4, 3]} />),
+        clipTo(r, 'sel', <Rect x={p.x} y={p.y} width={(c1 - c0 + 1) * cell} height={(r1 - r0 + 1) * cell} fill={SELECTED} stroke={ACCENT} strokeWidth={1} dash={[4, 3]} />),
       );
     }
   }
