@@ -29,18 +29,22 @@ export async function startFakeSmtp(port: number): Promise<FakeSmtp> {
       const chunks: Buffer[] = [];
       stream.on('data', (chunk: Buffer) => chunks.push(chunk));
       stream.on('end', () => {
-        const mail = parseMail(Buffer.concat(chunks).toString('utf8'));
-        const date = mail.date ? new Date(mail.date) : new Date();
-        captured.unshift({
-          id: randomUUID(),
-          to: mail.to,
-          subject: mail.subject,
-          text: mail.text,
-          ...(mail.html === undefined ? {} : { html: mail.html }),
-          date: (Number.isNaN(date.getTime()) ? new Date() : date).toISOString(),
-        });
-        captured.length = Math.min(captured.length, MAX_MAILS);
-        callback();
+        // The sender hears back only once the mail is in the list, so a test that sent one can read it.
+        parseMail(Buffer.concat(chunks)).then(
+          (mail) => {
+            captured.unshift({
+              id: randomUUID(),
+              to: mail.to,
+              subject: mail.subject,
+              text: mail.text,
+              ...(mail.html === undefined ? {} : { html: mail.html }),
+              date: mail.date ?? new Date().toISOString(),
+            });
+            captured.length = Math.min(captured.length, MAX_MAILS);
+            callback();
+          },
+          (error: Error) => callback(error),
+        );
       });
     },
   });
