@@ -3,6 +3,7 @@ import { hexToRgb, pickCount, type Draft } from '../../shared/weave';
 import { clothSett, computePlan, planBlocker, type ClothSett, type PlanDocument, type PlanOutputs } from '../../shared/plan';
 import { cellOrigin, gridBounds, type DraftShape, type GridPlacement } from '../../shared/print/draft-layout';
 import { PAGE_MARGIN, LEGEND_HEAD, LEGEND_ROW, PAGE_OVERLAP, planDraftPages, type PagePart, type PrintView, type ViewCut } from '../../shared/print/draft-pages';
+import { printWindow, windowWords, type PrintWindow } from '../../shared/print/print-range';
 import { LOOM_LIST_KINDS, pageSize, type LoomListKind, type PrintMeta, type PrintOptions, type Rect } from '../../shared/print/types';
 import type { Span } from '../../shared/print/page-split';
 import { fontData } from './fonts';
@@ -93,9 +94,10 @@ export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
   const shape = draftShape(draft);
   const views: PrintView[] = sources.layers ? ['structure', 'front', 'back', 'layers'] : ['structure'];
   const legend = legendRows(draft);
-  const layout = planDraftPages({ page, shape, arrangement: options, views, legendRows: legend.length, maxViewSheets: MAX_VIEW_SHEETS });
+  const window = printWindow(draft, options.range);
+  const layout = planDraftPages({ page, shape, arrangement: options, views, legendRows: legend.length, maxViewSheets: MAX_VIEW_SHEETS, window, fitWidth: options.fitWidth });
   const tiled = layout.pages.flatMap((p) => p.parts).some((p) => p.kind === 'draft' && p.across * p.down > 1);
-  const ctx: DrawContext = { doc, draft, sett: clothSett(draft, input.plan), options, shape, legend, sources, images: new Map(), ink: new GridInk(doc), tiled, viewCut: layout.viewCut };
+  const ctx: DrawContext = { doc, draft, sett: clothSett(draft, input.plan), options, shape, legend, sources, images: new Map(), ink: new GridInk(doc), tiled, viewCut: layout.viewCut, window };
   const breathe = turnTaker();
   for (const [i, p] of layout.pages.entries()) {
     await breathe();
@@ -110,7 +112,7 @@ export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
   const yarnNames = (colour: number) => legend.find((r) => r.colour === colour)?.yarns ?? 'no yarn named';
   drawPlanPage(doc, draft, yarnNames, input.plan && outputs ? { doc: input.plan, outputs } : undefined);
   const which = input.lists ?? (outputs ? LOOM_LIST_KINDS : (['threading', 'weaving'] as const));
-  await drawLoomLists(doc, draft, yarnNames, which, listOrientation(input.plan, options.workingOrder), outputs, breathe);
+  await drawLoomLists(doc, draft, yarnNames, which, listOrientation(input.plan, options.workingOrder), outputs, breathe, { ...window.picks, repeat: window.part === 'repeat' });
 
   doc.end();
   return finished;
@@ -141,6 +143,8 @@ interface DrawContext {
   /** The draft needs more than one sheet. */
   tiled: boolean;
   viewCut?: ViewCut;
+  /** The ends and picks this print shows. */
+  window: PrintWindow;
 }
 
 function draftShape(draft: Draft): DraftShape {
@@ -183,12 +187,19 @@ function drawTitleBlock(ctx: DrawContext, meta: PrintMeta): void {
   const by = [meta.author && `By ${meta.author}`, meta.studio, meta.date, `version ${meta.version}`].filter(Boolean).join(' · ');
   text(doc, by, PAGE_MARGIN, PAGE_MARGIN + 20, BODY_SIZE, MUTED);
   text(doc, summary(ctx), PAGE_MARGIN, PAGE_MARGIN + 31, BODY_SIZE);
-  const notes: string[] = [];
+  const notes: string[] = [windowNote(ctx.window, ctx.shape)].filter(Boolean);
   if (ctx.shape.ends + ctx.shape.picks > 0 && ctx.tiled) {
     notes.push(`The draft is split into sheets; dark bars in the margins mark the ${PAGE_OVERLAP} ends or picks each sheet repeats from its neighbour, to line them up.`);
   }
   if (viewCut) notes.push(viewCutNote(viewCut));
   notes.forEach((n, i) => text(doc, n, PAGE_MARGIN, PAGE_MARGIN + 42 + i * 8, LABEL_SIZE + 1, MUTED));
+}
+
+/** Says which part of the draft the sheets show, and where the rest is; empty when they show it all. */
+export function windowNote(w: PrintWindow, shape: { ends: number; picks: number }): string {
+  const what = windowWords(w, shape);
+  if (what === 'every end and pick') return '';
+  return `The draft sheets and cloth views show ${w.part === 'repeat' ? `one repeat, ${what}` : what}; the threading, sleying and tying-on lists cover the whole warp.`;
 }
 
 /** Says which ends and picks the cut views show, and that the draft sheets show them all. */
@@ -302,15 +313,15 @@ function colourStrip(doc: Doc, draft: Draft, g: GridPlacement, colours: number[]
 }
 
 /** Shades the cells a sheet shares with its neighbours, in the number band beside them. */
-function overlapMarks(doc: Doc, g: GridPlacement, cols: Span, rows: Span, total: { ends: number; picks: number }, band: { endY: number; pickX: number; pickWidth: number }): void {
+function overlapMarks(doc: Doc, g: GridPlacement, cols: Span, rows: Span, window: { ends: Span; picks: Span }, band: { endY: number; pickX: number; pickWidth: number }): void {
   const shades: Rect[] = [];
   const endsShared: number[] = [];
-  if (cols.start > 0) for (let i = 0; i < PAGE_OVERLAP; i++) endsShared.push(i);
-  if (cols.end < total.ends) for (let i = 1; i <= PAGE_OVERLAP; i++) endsShared.push(cols.end - cols.start - i);
+  if (cols.start > window.ends.start) for (let i = 0; i < PAGE_OVERLAP; i++) endsShared.push(i);
+  if (cols.end < window.ends.end) for (let i = 1; i <= PAGE_OVERLAP; i++) endsShared.push(cols.end - cols.start - i);
   for (const i of endsShared) shades.push({ x: cellOrigin(g, i, 0).x, y: band.endY, width: g.cell, height: 3 });
   const picksShared: number[] = [];
-  if (rows.start > 0) for (let i = 0; i < PAGE_OVERLAP; i++) picksShared.push(i);
-  if (rows.end < total.picks) for (let i = 1; i <= PAGE_OVERLAP; i++) picksShared.push(rows.end - rows.start - i);
+  if (rows.start > window.picks.start) for (let i = 0; i < PAGE_OVERLAP; i++) picksShared.push(i);
+  if (rows.end < window.picks.end) for (let i = 1; i <= PAGE_OVERLAP; i++) picksShared.push(rows.end - rows.start - i);
   for (const i of picksShared) shades.push({ x: band.pickX + band.pickWidth - 3, y: cellOrigin(g, 0, i).y, width: 3, height: g.cell });
   if (!shades.length) return;
   for (const r of shades) doc.rect(r.x, r.y, r.width, r.height);
@@ -378,7 +389,7 @@ function drawDraftTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'draft'
     loom.push({ s: String(t + 1), x: cellOrigin(l.treadling, t, 0).x + l.cell / 2, y: labelTop(l.endLabels.y + 6), centred: true });
   }
   writeText(doc, loom, LABEL_SIZE, MUTED);
-  overlapMarks(doc, l.drawdown, tile.cols, tile.rows, shape, {
+  overlapMarks(doc, l.drawdown, tile.cols, tile.rows, ctx.window, {
     endY: l.endLabels.y + l.endLabels.height - 3,
     pickX: l.pickLabels.x,
     pickWidth: l.pickLabels.width,
@@ -386,7 +397,7 @@ function drawDraftTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'draft'
 }
 
 function drawViewTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'view' }>): void {
-  const { doc, options, shape } = ctx;
+  const { doc, options } = ctx;
   const { tile, layout: l, view } = part;
   const cut = ctx.viewCut ? ` (ends ${spanText(tile.cols)}, picks ${spanText(tile.rows)} only)` : '';
   const sheet = part.across * part.down > 1 ? ` (sheet ${tile.index + 1} of ${part.across * part.down})` : cut;
@@ -398,14 +409,20 @@ function drawViewTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'view' }
     placeImage(doc, image(ctx, view), l.grid, tile.cols, tile.rows);
     ctx.ink.grid(l.grid, tile.cols.start, tile.rows.start, options.numberEvery);
   }
-  writeText(doc, [...endNumbers(l.grid, tile.cols, l.endLabels.y, options.numberEvery), ...pickNumbers(l.grid, tile.rows, l.pickLabels.x, options.numberEvery)], LABEL_SIZE, INK);
-  overlapMarks(doc, l.grid, tile.cols, tile.rows, shape, {
+  // Smaller view cells number fewer ends, so the numbers never run into each other.
+  let every: number = options.numberEvery;
+  while (every * l.grid.cell < VIEW_NUMBER_ROOM) every += options.numberEvery;
+  writeText(doc, [...endNumbers(l.grid, tile.cols, l.endLabels.y, every), ...pickNumbers(l.grid, tile.rows, l.pickLabels.x, every)], LABEL_SIZE, INK);
+  overlapMarks(doc, l.grid, tile.cols, tile.rows, ctx.window, {
     endY: l.endLabels.y + l.endLabels.height - 3,
     pickX: l.pickLabels.x,
     pickWidth: l.pickLabels.width,
   });
   if (view === 'layers') layerNumbers(ctx, l.grid, tile.cols, tile.rows);
 }
+
+/** Points between two numbers along a view's edge: room for four digits at the label size. */
+const VIEW_NUMBER_ROOM = 16;
 
 /** Pixels of cloth per point of a cell side on the page: about 150 per inch, at least 2 a cell. */
 const FACE_PIXELS_PER_POINT = 150 / 72;
@@ -428,7 +445,7 @@ function facePixels(src: ClothSources, face: 'front' | 'back', g: GridPlacement,
 /** The layer on top written in each area of the layer map, so the map never relies on colour alone. */
 function layerNumbers(ctx: DrawContext, g: GridPlacement, cols: Span, rows: Span): void {
   const regions = ctx.sources.layers?.regions ?? [];
-  ctx.doc.font('semibold').fontSize(Math.min(8, g.cell * 1.2));
+  ctx.doc.font('semibold').fontSize(Math.min(8, Math.max(6, g.cell * 1.2)));
   for (const r of regions) {
     const e0 = Math.max(r.firstEnd, cols.start);
     const e1 = Math.min(r.lastEnd, cols.end - 1);

@@ -12,6 +12,7 @@ import {
   type Orientation,
   type PlanDocument,
   type PlanOutputs,
+  type ShaftNumbering,
   type ThreadingStep,
   type WeavingList,
   type YarnAmount,
@@ -179,6 +180,11 @@ function range(from: number, to: number): string {
   return from === to ? String(from) : `${from}–${to}`;
 }
 
+/** How the shafts on the weaving list are numbered, as the weaver chose it. */
+function numberingWords(n: ShaftNumbering): string {
+  return n === 'near' ? 'Shaft 1 is the shaft nearest you at the front of the loom.' : 'Shaft 1 is the shaft farthest from you at the front of the loom (the back shaft).';
+}
+
 function orientationWords(o: Orientation): string {
   const numbering = o.shaftNumbering === 'near' ? 'shaft 1 nearest you' : 'shaft 1 farthest from you';
   return `Working from the ${o.side} of the loom, ${o.direction.replace(/-/g, ' ')}, ${numbering}.`;
@@ -196,6 +202,8 @@ export async function drawLoomLists(
   orientation: Orientation,
   outputs?: PlanOutputs,
   breathe: () => Promise<void> = async () => {},
+  /** The picks the weaving list shows (0-based, [start, end)); default every pick of the draft. */
+  picks?: { start: number; end: number; repeat: boolean },
 ): Promise<void> {
   const threading = outputs?.threading ?? draftThreading(draft, orientation);
   const weaving = outputs?.weaving ?? weavingList(draft, { totalPicks: pickCount(draft), shaftNumbering: orientation.side === 'front' ? orientation.shaftNumbering : orientation.shaftNumbering === 'near' ? 'far' : 'near' });
@@ -203,7 +211,7 @@ export async function drawLoomLists(
     if (kind === 'threading') await threadingList(doc, threading, orientation, breathe);
     else if (kind === 'sleying' && outputs) await sleyingList(doc, outputs, orientation, breathe);
     else if (kind === 'tie-on' && outputs) await tieOnList(doc, outputs, orientation, breathe);
-    else if (kind === 'weaving') await weavingPages(doc, draft, weaving, yarnNames, breathe, outputs?.picksReason);
+    else if (kind === 'weaving') await weavingPages(doc, draft, picks ? picksWithin(weaving, picks) : weaving, yarnNames, breathe, outputs?.picksReason, picks);
   }
 }
 
@@ -222,13 +230,13 @@ type Breathe = () => Promise<void>;
 async function threadingList(doc: Doc, groups: Group<ThreadingStep>[], o: Orientation, breathe: Breathe): Promise<void> {
   const flow = new Flow(doc, 'Threading');
   flow.line(orientationWords(o), MUTED);
-  flow.line(`Each group lists its ends in the order you reach them, with the shaft for each. ${REST}`, MUTED, BODY_SIZE - 1);
+  flow.line(`Each group lists its ends in the order you reach them, with the shaft for each${groups.some((g) => g.items.some((s) => s.dent !== undefined)) ? ' and the dent it is sleyed in' : ''}. ${REST}`, MUTED, BODY_SIZE - 1);
   for (const g of groups) {
     await breathe();
     const first = g.items[0];
     const last = g.items[g.items.length - 1];
     if (!first || !last) continue;
-    const steps = g.items.map((s) => `${s.end}: ${s.shafts.length ? s.shafts.join('+') : 'no shaft'}${s.selvedge ? ' (selvedge)' : ''}`).join('   ');
+    const steps = g.items.map((s) => `${s.end}: ${s.shafts.length ? s.shafts.join('+') : 'no shaft'}${s.dent !== undefined ? ` (dent ${s.dent})` : ''}${s.selvedge ? ' (selvedge)' : ''}`).join('   ');
     flow.tick(`Group ${g.index} of ${g.of}`, `Ends ${range(first.end, last.end)}  —  ${steps}`);
   }
 }
@@ -259,12 +267,34 @@ async function tieOnList(doc: Doc, outputs: PlanOutputs, o: Orientation, breathe
   }
 }
 
-async function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames: YarnNames, breathe: Breathe, picksReason?: string): Promise<void> {
+/** The rows of a weaving list inside picks [start, end), a row cut where the window cuts it. */
+function picksWithin(list: WeavingList, picks: { start: number; end: number }): WeavingList {
+  const rows = list.rows
+    .filter((r) => r.toPick > picks.start && r.fromPick <= picks.end)
+    .map((r) => {
+      const fromPick = Math.max(r.fromPick, picks.start + 1);
+      const toPick = Math.min(r.toPick, picks.end);
+      return { ...r, fromPick, toPick, times: toPick - fromPick + 1 };
+    });
+  return { ...list, rows };
+}
+
+async function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames: YarnNames, breathe: Breathe, picksReason?: string, window?: { start: number; end: number; repeat: boolean }): Promise<void> {
   const flow = new Flow(doc, draft.control === 'liftplan' ? 'Lift plan' : 'Treadling');
   const times = picksReason
     ? `${picksReason} `
     : list.repeats > 0 ? `Weave the sequence ${plural(list.repeats, 'time')}${list.extraPicks ? `, then picks 1–${list.extraPicks} once more` : ''}. ` : '';
-  flow.line(`${times}${list.picksPerUnit} picks per ${list.unit}. Shafts are numbered from the front of the loom.`, MUTED);
+  flow.line(`${times}${list.picksPerUnit} picks per ${list.unit}. ${numberingWords(list.shaftNumbering)}`, MUTED);
+  const all = list.picksInSequence;
+  if (window && (window.start > 0 || window.end < all)) {
+    const n = window.end - window.start;
+    const shown = `picks ${range(window.start + 1, window.end)}`;
+    if (window.repeat && window.start === 0) {
+      const whole = Math.floor(all / n);
+      const rest = all % n;
+      flow.line(`This list shows one repeat, ${shown}: the draft's ${plural(all, 'pick')} are this repeat ${plural(whole, 'time')}${rest ? `, then picks 1–${rest} once more` : ''}.`, INK);
+    } else flow.line(`This list shows ${shown} of the draft's ${all}, as chosen for this print.`, INK);
+  }
   flow.line(`Tick each line as you weave it. ${REST}`, MUTED, BODY_SIZE - 1);
   const layered = draft.weftLayers.some((l) => l > 1);
   for (const r of list.rows) {

@@ -90,6 +90,9 @@ export function printPdf(p: Printable, q: PrintQuery): Promise<Buffer> {
           shaftsFromBottom: q.shaftsFromBottom,
           numberEvery: q.numberEvery,
           workingOrder,
+          // Naming ends or picks is asking for a range.
+          range: { ...(q.part ? { part: q.part } : q.ends || q.picks ? { part: 'range' as const } : {}), ...(q.ends ? { ends: q.ends } : {}), ...(q.picks ? { picks: q.picks } : {}) },
+          fitWidth: q.fitWidth,
         },
       });
     } catch (err) {

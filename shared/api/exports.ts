@@ -19,6 +19,23 @@ const listNames = z
     return [...new Set(names)] as LoomList[];
   });
 
+/** `ends=1-80`: the first and last, 1-based, as the weaver numbers them. */
+const numberRange = z
+  .string()
+  .max(40)
+  .transform((s, ctx) => {
+    const m = /^\s*(\d{1,6})\s*[-–]\s*(\d{1,6})\s*$/.exec(s) ?? /^\s*(\d{1,6})\s*$/.exec(s);
+    const from = m ? Number(m[1]) : NaN;
+    const to = m ? Number(m[2] ?? m[1]) : NaN;
+    if (!m || from < 1 || to < from) {
+      ctx.addIssue({ code: 'custom', message: 'give the first and last, like 1-80 (first at least 1, last not before first)' });
+      return z.NEVER;
+    }
+    return { from, to };
+  });
+
+export const printParts = ['whole', 'repeat', 'range'] as const;
+
 export const printQuerySchema = z
   .object({
     paper: z.enum(['a4', 'letter']).default('a4'),
@@ -33,6 +50,13 @@ export const printQuerySchema = z
     from: z.enum(['front', 'back']).optional(),
     direction: z.enum(['right-to-left', 'left-to-right']).optional(),
     shaftNumbering: z.enum(['near', 'far']).optional(),
+    /** What the draft sheets show: omitted, one repeat for a draft that repeats, else the whole draft. */
+    part: z.enum(printParts).optional(),
+    /** With part=range: the ends and picks to print (omitted: all of them). */
+    ends: numberRange.optional(),
+    picks: numberRange.optional(),
+    /** Every printed end across one page width. */
+    fitWidth: flag.default(false),
   })
   .strict();
 export type PrintQuery = z.output<typeof printQuerySchema>;

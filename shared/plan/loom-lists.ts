@@ -176,6 +176,8 @@ export interface WeavingList {
   extraPicks: number;
   picksPerUnit: number;
   unit: Draft['sett']['unit'];
+  /** How `raised` numbers the shafts, seen from the front of the loom. */
+  shaftNumbering: ShaftNumbering;
 }
 
 export interface WeavingListOptions {
@@ -230,6 +232,7 @@ export function weavingList(draft: Draft, options: WeavingListOptions): WeavingL
     extraPicks: picks ? totalPicks % picks : 0,
     picksPerUnit: options.picksPerUnit ?? draft.sett.weft,
     unit: options.unit ?? draft.sett.unit,
+    shaftNumbering,
   };
 }
 

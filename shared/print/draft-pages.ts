@@ -1,7 +1,8 @@
-import { chooseCellSize } from './cell-size';
+import { chooseCellSize, MAX_CELL_MM, PT_PER_MM } from './cell-size';
 import {
   draftCapacity,
   draftTileSize,
+  LABEL_COLUMN,
   placeDraftTile,
   placeViewTile,
   viewCapacity,
@@ -10,7 +11,7 @@ import {
   type DraftTileLayout,
   type ViewTileLayout,
 } from './draft-layout';
-import { splitGrid, type Span, type Tile } from './page-split';
+import { splitGrid, type GridSplit, type Span, type Tile } from './page-split';
 import type { DraftArrangement, Rect, Size } from './types';
 
 /** Cloth views printed after the draft itself, each as a plain grid. */
@@ -50,7 +51,17 @@ export interface DraftPagesInput {
    * onwards). The draft sheets always carry every end and pick; the views repeat them.
    */
   maxViewSheets?: number;
+  /** The ends and picks to print (0-based, [start, end)); default every one. Numbers stay the draft's. */
+  window?: { ends: Span; picks: Span };
+  /**
+   * Print every end of the window across one page width, with cells as small as that needs (down
+   * to MIN_FIT_CELL_MM); the picks still run onto as many pages as they need.
+   */
+  fitWidth?: boolean;
 }
+
+/** The smallest cell "fit the width" may use: finer than this a printer blurs the marks (common practice). */
+export const MIN_FIT_CELL_MM = 0.5;
 
 /** What a view printed when it was cut to its first sheet. */
 export interface ViewCut {
@@ -63,6 +74,8 @@ export interface ViewCut {
 export interface DraftPages {
   /** Cell size in points. */
   cell: number;
+  /** Cell size of the cloth views, in points: at most `cell`. */
+  viewCell: number;
   /** Area inside the margins and below the head, shared by every draft page. */
   body: Rect;
   pages: PrintPage[];
@@ -86,17 +99,44 @@ export function planDraftPages(input: DraftPagesInput): DraftPages {
     height: input.page.height - 2 * PAGE_MARGIN - HEAD_HEIGHT,
   };
   // Candidate sizes only need counting; placing every part is left to the chosen one.
-  const cell = chooseCellSize((c) => layoutAt(input, body, c, true)?.pages.length ?? Number.POSITIVE_INFINITY);
-  const laid = layoutAt(input, body, cell, false);
+  const count = (c: number, v: number) => layoutAt(input, body, c, true, v)?.pages.length ?? Number.POSITIVE_INFINITY;
+  const cell = input.fitWidth ? fitWidthCell(input, body) : chooseCellSize((c) => count(c, c));
+  // The cloth views are pictures, read by eye rather than counted cell by cell: they may be
+  // smaller than the draft's cells when that saves sheets (two views to a page, say).
+  const cellMm = cell / PT_PER_MM;
+  const viewCell = input.fitWidth || cellMm <= MIN_VIEW_CELL_MM ? cell : chooseCellSize((v) => count(cell, v), MIN_VIEW_CELL_MM, cellMm);
+  const laid = layoutAt(input, body, cell, false, viewCell);
   if (!laid) throw new RangeError('the draft does not fit on this paper even at the smallest cell size');
-  return { cell, body, ...laid };
+  return { cell, viewCell, body, ...laid };
 }
 
-function layoutAt(input: DraftPagesInput, body: Rect, cell: number, countOnly: boolean): { pages: PrintPage[]; viewCut?: ViewCut } | null {
+/** The smallest cell of a cloth view: a millimetre still shows each end and pick (common practice). */
+export const MIN_VIEW_CELL_MM = 1;
+
+/** The window's ends and picks, every one when no window is given. */
+function windowOf(input: DraftPagesInput): { ends: Span; picks: Span } {
+  return input.window ?? { ends: { start: 0, end: input.shape.ends }, picks: { start: 0, end: input.shape.picks } };
+}
+
+/** The largest cell (up to the usual largest) that puts every end of the window across one page. */
+function fitWidthCell(input: DraftPagesInput, body: Rect): number {
+  const ends = Math.max(1, windowOf(input).ends.end - windowOf(input).ends.start);
+  const { pickColumns } = input.shape;
+  // draftTileSize's width, solved for the cell: LABEL_COLUMN + (pickColumns + 3 + ends) · cell ≤ width.
+  const fit = Math.floor(((body.width - LABEL_COLUMN) / (pickColumns + 3 + ends)) * 1000) / 1000;
+  const cell = Math.min(fit, MAX_CELL_MM * PT_PER_MM);
+  if (cell < MIN_FIT_CELL_MM * PT_PER_MM) {
+    const most = Math.floor((body.width - LABEL_COLUMN) / (MIN_FIT_CELL_MM * PT_PER_MM)) - pickColumns - 3;
+    throw new RangeError(`${ends} ends do not fit across one page (at most ${Math.max(0, most)} on this paper): print a range of ends, or turn the page to landscape`);
+  }
+  return cell;
+}
+
+function layoutAt(input: DraftPagesInput, body: Rect, cell: number, countOnly: boolean, viewCell = cell): { pages: PrintPage[]; viewCut?: ViewCut } | null {
   const overlap = input.overlap ?? PAGE_OVERLAP;
   const { shape, arrangement } = input;
   const cap = draftCapacity(body.width, body.height, shape, cell);
-  const vcap = viewCapacity(body.width, body.height, cell);
+  const vcap = viewCapacity(body.width, body.height, viewCell);
   if (Math.min(cap.cols, cap.rows, vcap.cols, vcap.rows) <= overlap) return null;
 
   const pages: PrintPage[] = [];
@@ -129,7 +169,19 @@ function layoutAt(input: DraftPagesInput, body: Rect, cell: number, countOnly: b
   };
   const last = () => pages[pages.length - 1];
 
-  const split = splitGrid(shape.ends, shape.picks, cap.cols, cap.rows, overlap);
+  const win = windowOf(input);
+  const within = (g: GridSplit): GridSplit => ({
+    ...g,
+    tiles: g.tiles.map((t) => ({
+      ...t,
+      cols: { start: t.cols.start + win.ends.start, end: t.cols.end + win.ends.start },
+      rows: { start: t.rows.start + win.picks.start, end: t.rows.end + win.picks.start },
+    })),
+  });
+  const wEnds = win.ends.end - win.ends.start;
+  const wPicks = win.picks.end - win.picks.start;
+  // Fitting the width keeps every end of the window on one sheet across.
+  const split = within(splitGrid(wEnds, wPicks, input.fitWidth ? Math.max(cap.cols, wEnds, overlap + 1) : cap.cols, cap.rows, overlap));
   for (const tile of split.tiles) {
     const cols = tile.cols.end - tile.cols.start;
     const rows = tile.rows.end - tile.rows.start;
@@ -143,7 +195,7 @@ function layoutAt(input: DraftPagesInput, body: Rect, cell: number, countOnly: b
 
   let viewCut: ViewCut | undefined;
   for (const view of input.views) {
-    let vsplit = splitGrid(shape.ends, shape.picks, vcap.cols, vcap.rows, overlap);
+    let vsplit = within(splitGrid(wEnds, wPicks, input.fitWidth ? Math.max(vcap.cols, wEnds, overlap + 1) : vcap.cols, vcap.rows, overlap));
     if (input.maxViewSheets !== undefined && vsplit.tiles.length > input.maxViewSheets) {
       const first = vsplit.tiles[0];
       viewCut = { ends: first.cols, picks: first.rows, fullSheets: vsplit.tiles.length };
@@ -153,11 +205,11 @@ function layoutAt(input: DraftPagesInput, body: Rect, cell: number, countOnly: b
     for (const tile of vsplit.tiles) {
       const cols = tile.cols.end - tile.cols.start;
       const rows = tile.rows.end - tile.rows.start;
-      const at = place(viewTileSize(cols, rows, cell), own);
+      const at = place(viewTileSize(cols, rows, viewCell), own);
       if (countOnly) continue;
       // The back is seen turned over, so its ends run the other way across the page.
       const seen = view === 'back' ? { ...arrangement, treadlingRight: !arrangement.treadlingRight } : arrangement;
-      const layout = placeViewTile(at.x, at.y, cols, rows, cell, seen);
+      const layout = placeViewTile(at.x, at.y, cols, rows, viewCell, seen);
       last().parts.push({ kind: 'view', view, tile, across: vsplit.across, down: vsplit.down, layout });
     }
     if (own) newRow();

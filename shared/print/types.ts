@@ -1,4 +1,5 @@
 import type { Orientation } from '../plan/loom-lists';
+import type { PrintRangeChoice } from './print-range';
 
 /** Paper sizes a printed draft comes on. */
 export type Paper = 'a4' | 'letter';
@@ -61,6 +62,10 @@ export interface PrintOptions extends DraftArrangement {
   numberEvery: NumberEvery;
   /** The order the loom-side lists follow; the saved plan's settings fill what is left out. */
   workingOrder?: Partial<Orientation>;
+  /** Which ends and picks the draft sheets and cloth views show; default one repeat, or all when the draft does not repeat. */
+  range?: PrintRangeChoice;
+  /** Every printed end across one page width. */
+  fitWidth?: boolean;
 }
 
 /** Loom-side lists a print can carry after the plan. */

@@ -92,12 +92,21 @@ describe('GET /api/drafts/:id/print.pdf', () => {
     ['threadingAbove=maybe', 'threadingAbove'],
     ['from=side', 'from'],
     ['colour=red', '_'],
+    ['ends=9-3', 'ends'],
+    ['part=half', 'part'],
   ])('answers a bad query (%s) with 400 naming the field', async (query, field) => {
     const s = await scene();
     const res = await s.viewer.get(`/api/drafts/${s.draftId}/print.pdf?${query}`);
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('validation');
     expect(Object.keys(res.body.error.fields)).toContain(field);
+  });
+
+  it('refuses a range past the draft with 422 saying how many picks it has', async () => {
+    const s = await scene();
+    const res = await s.viewer.get(`/api/drafts/${s.draftId}/print.pdf?part=range&picks=1-99999`);
+    expect(res.status).toBe(422);
+    expect(res.body.error.message).toMatch(/^the draft has \d+ picks, so picks 1–99999 cannot be printed$/);
   });
 
   it('keeps answering other requests while a large draft prints', async () => {
@@ -107,7 +116,7 @@ describe('GET /api/drafts/:id/print.pdf', () => {
     const delay = monitorEventLoopDelay({ resolution: 5 });
     delay.enable();
     const started = performance.now();
-    const printing = fetchBinary(s.viewer, `/api/drafts/${s.draftId}/print.pdf?lists=`);
+    const printing = fetchBinary(s.viewer, `/api/drafts/${s.draftId}/print.pdf?part=whole&lists=`);
     // Ask for the session repeatedly while the print runs; each answer should come back promptly.
     const waits: number[] = [];
     let done = false;

@@ -1,4 +1,5 @@
 import { exportQuery, type PngViewName } from '../../../shared/api/exports';
+import type { PrintPart } from '../../../shared/print/print-range';
 import type { LoomList, WorkingOrder } from '../../../shared/api/plans';
 import type { Arrangement } from '../editor';
 
@@ -17,12 +18,25 @@ export function printArrangement(editor: Arrangement): PrintArrangement {
   return { threadingAbove: !editor.threadingBelow, treadlingRight: !editor.treadlingLeft, shaftsFromBottom: !editor.shaftsFromTop };
 }
 
+/** 1-based first and last, as the weaver names ends and picks. */
+export interface NumberRange {
+  from: number;
+  to: number;
+}
+
 export interface PrintChoices extends PrintArrangement {
   paper: 'a4' | 'letter';
   orientation: 'portrait' | 'landscape';
   numberEvery: 4 | 8 | 10;
   lists: LoomList[];
   workingOrder: WorkingOrder;
+  /** What the draft sheets show. */
+  part: PrintPart;
+  /** With `range`: the ends and picks to print. */
+  ends: NumberRange;
+  picks: NumberRange;
+  /** Every printed end across one page width. */
+  fitWidth: boolean;
 }
 
 /** Where the printed draft is: `base` is `/api/drafts/7` or `/api/shared/<token>`. */
@@ -38,6 +52,10 @@ export function printUrl(base: string, c: PrintChoices): string {
     from: c.workingOrder.side,
     direction: c.workingOrder.direction,
     shaftNumbering: c.workingOrder.shaftNumbering,
+    part: c.part,
+    ends: c.part === 'range' ? `${c.ends.from}-${c.ends.to}` : undefined,
+    picks: c.part === 'range' ? `${c.picks.from}-${c.picks.to}` : undefined,
+    fitWidth: c.fitWidth || undefined,
   })}`;
 }
 

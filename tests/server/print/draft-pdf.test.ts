@@ -12,12 +12,13 @@ import { pageSize, type PrintOptions } from '../../../shared/print/types';
 import { renderDraftPdf } from '../../../server/print/draft-pdf';
 import { doubleWeaveProfile } from '../../helpers/draft-fixtures';
 import { checkerboard, HARBOUR, MUSTARD } from '../../helpers/print-fixtures';
+import { doubleWeaveTableMat } from '../../../server/db/seeders/demo-drafts';
 
 const work = mkdtempSync(join(tmpdir(), 'shedwright-print-'));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
 
 const meta = { title: 'Checkerboard sampler', author: 'Wren Example', studio: 'Invented Studio', date: '2 March 2025', version: 7 };
-const options: PrintOptions = { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, numberEvery: 4 };
+const options: PrintOptions = { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, numberEvery: 4, range: { part: 'whole' } };
 
 async function readBack(pdf: Buffer): Promise<{ total: number; pages: string[]; text: string }> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
@@ -200,6 +201,34 @@ describe('renderDraftPdf', () => {
     expect(pages[1]).toMatch(/Warp yarn per colour[\s\S]*Deep navy/);
     for (const heading of ['Threading', 'Sleying', 'Tying on', 'Lift plan']) expect(text).toContain(heading);
     expect(text).toContain('Working from the front of the loom, right to left');
+  });
+
+  it('prints the demo double-weave mat by default (one repeat) in at most 12 A4 pages, with everything the loom needs', async () => {
+    const mat = doubleWeaveTableMat('harbour');
+    const plan = { ...defaultPlan('inch'), warpYarn: { text: '8/2 cotton', byColor: {} }, weftYarn: { text: '8/2 cotton', byColor: {} } };
+    const { range: _whole, ...defaults } = options;
+    const { total, pages, text } = await readBack(await renderDraftPdf({ draft: mat, meta: { ...meta, title: mat.name }, plan, options: defaults }));
+    console.log(`demo mat, default print: ${total} A4 pages`);
+    expect(total).toBeLessThanOrEqual(12);
+    expect(pages[0]).toContain('one repeat, ends 1–80 of 440 and picks 1–80 of 560');
+    for (const heading of ['Front face', 'Back face', 'Layer map', 'Colours and yarns', 'Reed and dents', 'Threading', 'Sleying', 'Tying on', 'Lift plan']) expect(text).toContain(heading);
+    // The threading list covers the whole warp, to the last end.
+    expect(text).toMatch(/Ends 440–|–440\b|\b440: /);
+    // Each end's dent is on its own line of the threading list.
+    expect(text).toMatch(/\b1: \d \(dent \d+\)/);
+    // The lift plan lists the repeat once and says how often it is woven.
+    expect(text).toContain("the draft's 560 picks are this repeat 7 times");
+    expect(text).not.toContain('Pick 81 ');
+    expect(text).toContain('Shaft 1 is the shaft nearest you at the front of the loom.');
+  });
+
+  it('prints a chosen range of ends and picks numbered as in the draft, and the whole draft on request', async () => {
+    const draft = checkerboard(120, 90);
+    const { pages: ranged } = await readBack(await renderDraftPdf({ draft, meta, options: { ...options, range: { part: 'range', ends: { from: 41, to: 60 }, picks: { from: 11, to: 30 } } }, lists: ['weaving'] }));
+    expect(ranged[0]).toContain('ends 41–60 of 120 and picks 11–30 of 90');
+    expect(ranged.join('\n')).toContain('This list shows picks 11–30 of the draft');
+    const { pages: whole } = await readBack(await renderDraftPdf({ draft, meta, options, lists: [] }));
+    expect(whole[0]).not.toContain('of 120');
   });
 
   it('follows the chosen working order in the lists', async () => {

@@ -37,8 +37,26 @@ describe('PrintOptions', () => {
     ({ query } = printQuery(printLink()));
     expect(query).toEqual({
       paper: 'letter', orientation: 'landscape', threadingAbove: true, treadlingRight: false, shaftsFromBottom: false, numberEvery: 10,
-      lists: ['threading', 'weaving'], from: 'back', direction: 'left-to-right', shaftNumbering: 'far',
+      lists: ['threading', 'weaving'], from: 'back', direction: 'left-to-right', shaftNumbering: 'far', part: 'whole', fitWidth: false,
     });
+  });
+
+  it('prints one repeat by default for a draft that repeats, and the whole draft, a range or the width on one page on request', () => {
+    const { unmount } = render(<PrintOptions base="/api/drafts/7" ends={440} picks={560} layered repeat={{ ends: 80, picks: 80 }} files />);
+    expect(printQuery(printLink()).query).toMatchObject({ part: 'repeat', fitWidth: false });
+    expect((screen.getByLabelText('One repeat (80 ends × 80 picks)') as HTMLInputElement).checked).toBe(true);
+    fireEvent.click(screen.getByLabelText('The whole draft (440 ends × 560 picks)'));
+    expect(printQuery(printLink()).query).toMatchObject({ part: 'whole' });
+    fireEvent.click(screen.getByLabelText('Some ends and picks'));
+    fireEvent.change(screen.getByLabelText('Ends from'), { target: { value: '41' } });
+    fireEvent.change(screen.getByLabelText('Picks from'), { target: { value: '600' } });
+    fireEvent.click(screen.getByLabelText('Fit the width to one page (smaller cells)'));
+    // A pick past the draft is brought back inside it rather than sent.
+    expect(printQuery(printLink()).query).toMatchObject({ part: 'range', ends: { from: 41, to: 440 }, picks: { from: 560, to: 560 }, fitWidth: true });
+    unmount();
+    render(<PrintOptions base="/api/drafts/7" ends={60} picks={40} layered={false} repeat={{ ends: 60, picks: 40 }} />);
+    expect(screen.queryByLabelText(/One repeat/)).toBeNull();
+    expect(printQuery(printLink()).query).toMatchObject({ part: 'whole' });
   });
 
   it('offers pictures of the cloth laid out like the print, and the draft files', () => {
@@ -81,14 +99,18 @@ describe('print links', () => {
       direction: fc.constantFrom('right-to-left' as const, 'left-to-right' as const),
       shaftNumbering: fc.constantFrom('near' as const, 'far' as const),
     }),
+    part: fc.constantFrom('whole' as const, 'repeat' as const, 'range' as const),
+    ends: fc.tuple(fc.integer({ min: 1, max: 20_000 }), fc.integer({ min: 0, max: 500 })).map(([from, more]) => ({ from, to: from + more })),
+    picks: fc.tuple(fc.integer({ min: 1, max: 20_000 }), fc.integer({ min: 0, max: 500 })).map(([from, more]) => ({ from, to: from + more })),
+    fitWidth: fc.boolean(),
   });
 
   it('reads back on the server as exactly the choices made', () => {
     fc.assert(
       fc.property(choices, (c) => {
         const { query } = printQuery(printUrl('/api/drafts/1', c));
-        const { workingOrder: w, ...rest } = c;
-        expect(query).toEqual({ ...rest, from: w.side, direction: w.direction, shaftNumbering: w.shaftNumbering });
+        const { workingOrder: w, ends, picks, ...rest } = c;
+        expect(query).toEqual({ ...rest, from: w.side, direction: w.direction, shaftNumbering: w.shaftNumbering, ...(c.part === 'range' ? { ends, picks } : {}) });
       }),
     );
   });

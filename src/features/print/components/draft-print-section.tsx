@@ -1,11 +1,14 @@
+import { useMemo } from 'react';
+import { draftRepeat } from '../../../../shared/print/print-range';
 import { isLayered, pickCount, type Draft } from '../../../../shared/weave';
 import type { PrintArrangement } from '../print-links';
 import { PrintOptions } from './print-options';
 
 /** The draft page's Print section for the open draft's stored document. */
 export function DraftPrintSection({ draftId, draft, arrangement }: { draftId: number; draft: Draft; arrangement?: PrintArrangement }) {
+  const repeat = useMemo(() => draftRepeat(draft), [draft]);
   return (
     <PrintOptions base={`/api/drafts/${draftId}`} ends={draft.threading.length} picks={pickCount(draft)} layered={isLayered(draft)}
-      arrangement={arrangement} files />
+      arrangement={arrangement} repeat={repeat} files />
   );
 }

@@ -3,7 +3,7 @@ import type { PngViewName } from '../../../../shared/api/exports';
 import { loomLists, type LoomList, type WorkingOrder } from '../../../../shared/api/plans';
 import { buttonClasses } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/field';
-import { pngUrl, printUrl, type PrintArrangement, type PrintChoices } from '../print-links';
+import { pngUrl, printUrl, type NumberRange, type PrintArrangement, type PrintChoices } from '../print-links';
 
 export interface PrintOptionsProps {
   /** `/api/drafts/7` or `/api/shared/<token>`. */
@@ -16,6 +16,8 @@ export interface PrintOptionsProps {
   arrangement?: PrintArrangement;
   /** Also offer the draft's WIF and JSON files (not through a public link). */
   files?: boolean;
+  /** The draft's repeat (ends × picks); null or equal to the whole draft when it does not repeat. */
+  repeat?: { ends: number; picks: number } | null;
 }
 
 const LIST_LABELS: Record<LoomList, string> = { threading: 'Threading', sleying: 'Sleying', tieon: 'Tying on', weaving: 'Treadling or lift plan' };
@@ -35,9 +37,14 @@ export function pictureScale(ends: number, picks: number): number | null {
  * Print and Export: paper, arrangement, numbering, which loom-side lists and in which working
  * order, then a link that opens the printed draft, and links to pictures and files of the draft.
  */
-export function PrintOptions({ base, ends, picks, layered, arrangement, files = false }: PrintOptionsProps) {
+export function PrintOptions({ base, ends, picks, layered, arrangement, files = false, repeat = null }: PrintOptionsProps) {
   const headingId = useId();
+  const repeats = repeat !== null && (repeat.ends < ends || repeat.picks < picks);
   const [choices, setChoices] = useState<PrintChoices>(() => ({
+    part: repeats ? 'repeat' : 'whole',
+    ends: { from: 1, to: Math.max(1, ends) },
+    picks: { from: 1, to: Math.max(1, picks) },
+    fitWidth: false,
     paper: 'a4',
     orientation: 'portrait',
     threadingAbove: arrangement?.threadingAbove ?? true,
@@ -72,6 +79,23 @@ export function PrintOptions({ base, ends, picks, layered, arrangement, files = 
           <option value="10">10th end and pick</option>
         </SelectField>
       </div>
+
+      <fieldset className="flex flex-col gap-1">
+        <legend className="font-medium">What to print</legend>
+        <Radio name={`${headingId}-part`} label={`The whole draft (${ends} ends × ${picks} picks)`} checked={choices.part === 'whole'} onChange={() => set({ part: 'whole' })} />
+        {repeats && repeat && (
+          <Radio name={`${headingId}-part`} label={`One repeat (${repeat.ends} ends × ${repeat.picks} picks)`} checked={choices.part === 'repeat'} onChange={() => set({ part: 'repeat' })} />
+        )}
+        <Radio name={`${headingId}-part`} label="Some ends and picks" checked={choices.part === 'range'} onChange={() => set({ part: 'range' })} />
+        {choices.part === 'range' && (
+          <div className="ml-6 flex flex-wrap gap-4">
+            <RangeFields word="Ends" total={ends} value={choices.ends} onChange={(v) => set({ ends: v })} />
+            <RangeFields word="Picks" total={picks} value={choices.picks} onChange={(v) => set({ picks: v })} />
+          </div>
+        )}
+        <Check label="Fit the width to one page (smaller cells)" checked={choices.fitWidth} onChange={(v) => set({ fitWidth: v })} />
+        <p className="text-xs text-muted">The threading, sleying and tying-on lists always cover the whole warp.</p>
+      </fieldset>
 
       <fieldset className="flex flex-col gap-1">
         <legend className="font-medium">Arrangement</legend>
@@ -140,5 +164,35 @@ function Check({ label, checked, onChange }: { label: string; checked: boolean; 
       <input type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} />
       {label}
     </label>
+  );
+}
+
+function Radio({ name, label, checked, onChange }: { name: string; label: string; checked: boolean; onChange: () => void }) {
+  return (
+    <label className="flex items-center gap-2">
+      <input type="radio" name={name} checked={checked} onChange={onChange} />
+      {label}
+    </label>
+  );
+}
+
+/** First and last end (or pick) of a range, kept inside 1 … total and first ≤ last. */
+function RangeFields({ word, total, value, onChange }: { word: string; total: number; value: NumberRange; onChange: (v: NumberRange) => void }) {
+  const top = Math.max(1, total);
+  const clamp = (n: number) => Math.min(top, Math.max(1, Math.round(Number.isFinite(n) ? n : 1)));
+  return (
+    <fieldset className="flex items-end gap-2">
+      <legend className="sr-only">{word}</legend>
+      <label className="flex flex-col text-xs font-medium">
+        {word} from
+        <input type="number" min={1} max={top} className="w-24 rounded-md border border-field px-2 py-1 text-sm" value={value.from}
+          onChange={(e) => { const from = clamp(e.target.valueAsNumber); onChange({ from, to: Math.max(from, value.to) }); }} />
+      </label>
+      <label className="flex flex-col text-xs font-medium">
+        to
+        <input type="number" min={1} max={top} className="w-24 rounded-md border border-field px-2 py-1 text-sm" value={value.to}
+          onChange={(e) => { const to = clamp(e.target.valueAsNumber); onChange({ from: Math.min(value.from, to), to }); }} />
+      </label>
+    </fieldset>
   );
 }
