@@ -2,11 +2,36 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { VitePWA } from 'vite-plugin-pwa';
 
 const apiPort = Number(process.env.SHEDWRIGHT_PORT ?? 4780);
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  plugins: [
+    react(),
+    tailwindcss(),
+    // The service worker (Workbox, generated at build time) keeps the built app on the device, so the
+    // At the loom page reloads at a loom with no connection; the page keeps its own copy of the draft,
+    // plan and place. API answers are never cached by it: the pages know how old their copies are.
+    VitePWA({
+      strategies: 'generateSW',
+      filename: 'service-worker.js',
+      // src/main.tsx registers it, in the built app only.
+      injectRegister: false,
+      manifest: false,
+      registerType: 'autoUpdate',
+      workbox: {
+        globPatterns: ['**/*.{js,css,html,woff,woff2,svg,png,ico}'],
+        // Every page of the app is index.html; /api and the server's own pages are not.
+        navigateFallback: '/index.html',
+        navigateFallbackDenylist: [/^\/api\//, /^\/admin\//, /^\/healthz$/, /^\/readyz$/],
+        maximumFileSizeToCacheInBytes: 5 * 1024 * 1024,
+        cleanupOutdatedCaches: true,
+        clientsClaim: true,
+        skipWaiting: true,
+      },
+    }),
+  ],
   // `@/…` is `src/…` (tsconfig.json says the same for the type checker and the linter).
   resolve: { alias: { '@': fileURLToPath(new URL('./src', import.meta.url)) } },
   server: {
@@ -17,10 +42,7 @@ export default defineConfig({
   build: {
     outDir: 'dist',
     rolldownOptions: {
-      // The service worker must be served from the root to control every page.
-      input: { main: 'index.html', 'service-worker': 'src/service-worker.ts' },
       output: {
-        entryFileNames: (chunk) => (chunk.name === 'service-worker' ? 'service-worker.js' : 'assets/[name]-[hash].js'),
         codeSplitting: {
           groups: [
             { name: 'canvas', test: /node_modules[\\/](konva|react-konva)/ },
