@@ -14,6 +14,8 @@ export interface RateLimitConfig {
   signIn: number;
   /** Forgot and reset requests per window and client address. */
   passwordReset: number;
+  /** Sign-ups (and the links from their mails) per window and client address. */
+  signUp: number;
 }
 
 export interface Config {
@@ -70,6 +72,7 @@ export function loadConfig(env: Env = process.env): Config {
       windowMs: int(env, 'SHEDWRIGHT_RATE_WINDOW_MS', 15 * 60 * 1000),
       signIn: int(env, 'SHEDWRIGHT_SIGNIN_LIMIT', 10),
       passwordReset: int(env, 'SHEDWRIGHT_RESET_LIMIT', 5),
+      signUp: int(env, 'SHEDWRIGHT_SIGNUP_LIMIT', 5),
     },
   };
 }

@@ -1,8 +1,9 @@
-import type { AuthResponse, ForgotBody, ResetBody, SignInBody, SignUpBody } from '../../shared/api/auth';
+import type { AuthResponse, ConfirmSignUpBody, ForgotBody, ResetBody, SignInBody, SignUpBody, SignUpResponse } from '../../shared/api/auth';
+import { afterAnswer } from '../http/after-answer';
 import { HttpError } from '../http/errors';
 import { authenticateLocal, logIn, logOut } from '../middleware/passport';
 import type { Ctx } from '../http/handler';
-import { endSessionsOf, requestPasswordReset, resetPassword, signUp as createAccount } from '../services/auth';
+import { confirmSignUp as makeAccount, endSessionsOf, requestPasswordReset, requestSignUp, resetPassword } from '../services/auth';
 import { loadSessionUser } from '../services/users';
 
 type In<B> = Ctx<B, unknown, unknown>;
@@ -23,8 +24,18 @@ export async function session(ctx: In<unknown>) {
   ctx.res.json({ user });
 }
 
-export async function signUp(ctx: In<SignUpBody>) {
-  const user = await createAccount(ctx.app.models, ctx.body);
+/**
+ * The same answer, at once, for every address: the account is made from the mailed link, and the
+ * owner of a taken address is mailed instead of the caller being told.
+ */
+export async function signUp({ app, body, res }: In<SignUpBody>) {
+  res.status(202).json({ ok: true } satisfies SignUpResponse);
+  afterAnswer(res, 'handle a sign-up', () => requestSignUp(app.models, app.mailer, app.config.publicUrl, body));
+}
+
+/** The link from a sign-up mail: makes the account and signs it in. */
+export async function confirmSignUp(ctx: In<ConfirmSignUpBody>) {
+  const user = await makeAccount(ctx.app.models, ctx.body);
   await logIn(ctx.req, user);
   ctx.res.status(201).json(await signedIn(ctx, user.id));
 }
@@ -43,14 +54,10 @@ export async function signOut({ req, res }: In<unknown>) {
   res.json({ csrfToken: req.csrfToken!(true) });
 }
 
+/** The same answer, at once, for every address: whether it has an account is found out after answering. */
 export async function forgot({ app, body, res }: In<ForgotBody>) {
-  try {
-    await requestPasswordReset(app.models, app.mailer, app.config.publicUrl, body.email);
-  } catch (err) {
-    // Still 202: an error answer would tell the caller that this e-mail has an account.
-    console.error('Could not send a password reset mail:', err instanceof Error ? err.message : err);
-  }
   res.status(202).json({ ok: true });
+  afterAnswer(res, 'send a password reset mail', () => requestPasswordReset(app.models, app.mailer, app.config.publicUrl, body.email));
 }
 
 /** A new password ends every session the account had, and signs in this one afresh. */

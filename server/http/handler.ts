@@ -37,7 +37,7 @@ export interface RouteSpec {
   /** Reads a multipart file (after the access check, before validation); see middleware/upload. */
   upload?: RequestHandler;
   /** Rate-limited routes share a counter per limiter and client address. */
-  limiter?: 'signIn' | 'passwordReset';
+  limiter?: 'signIn' | 'passwordReset' | 'signUp';
   body?: z.ZodType;
   query?: z.ZodType;
   params?: z.ZodType;

@@ -14,5 +14,6 @@ export function createLimiters(config: RateLimitConfig) {
   return {
     signIn: make(config.signIn, 'sign-in attempts'),
     passwordReset: make(config.passwordReset, 'password reset requests'),
+    signUp: make(config.signUp, 'sign-ups from your address'),
   };
 }

@@ -6,6 +6,7 @@ import { defineLoomProgress } from './loom-progress';
 import { defineWeavingResult } from './weaving-result';
 import { defineMembership } from './membership';
 import { definePasswordReset } from './password-reset';
+import { definePendingSignUp } from './pending-sign-up';
 import { defineSession } from './session';
 import { defineStudio } from './studio';
 import { defineUser } from './user';
@@ -28,6 +29,7 @@ export function defineModels(sequelize: Sequelize) {
     Draft: defineDraft(sequelize),
     DraftVersion: defineDraftVersion(sequelize),
     PasswordReset: definePasswordReset(sequelize),
+    PendingSignUp: definePendingSignUp(sequelize),
     Session: defineSession(sequelize),
     DraftPlan: defineDraftPlan(sequelize),
     LoomProgress: defineLoomProgress(sequelize),

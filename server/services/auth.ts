@@ -1,22 +1,83 @@
 import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
-import type { ResetBody, SignUpBody } from '../../shared/api/auth';
+import type { ConfirmSignUpBody, ResetBody, SignUpBody } from '../../shared/api/auth';
 import type { Mailer } from '../mail/mailer';
-import { conflict, HttpError } from '../http/errors';
+import { HttpError } from '../http/errors';
 import type { Models, UserRow } from '../models';
 import { dummyPasswordHash, hashPassword, verifyPassword } from './passwords';
 import { newToken, tokenHash } from './tokens';
 
 export const RESET_TOKEN_TTL_MS = 60 * 60 * 1000;
 
-/** Creates an account; 409 when the e-mail is taken. */
-export async function signUp(models: Models, body: SignUpBody): Promise<UserRow> {
-  const passwordHash = await hashPassword(body.password);
-  try {
-    return await models.User.create({ email: body.email, name: body.name, passwordHash });
-  } catch (err) {
-    if (err instanceof UniqueConstraintError) throw conflict('An account with this e-mail already exists');
-    throw err;
+/**
+ * Makes an account at once, for accounts the server makes itself (tools, load tests): people
+ * signing up get theirs from the mailed link (requestSignUp, confirmSignUp).
+ */
+export async function createAccount(models: Models, body: { email: string; name: string; password: string }): Promise<UserRow> {
+  return models.User.create({ email: body.email, name: body.name, passwordHash: await hashPassword(body.password) });
+}
+
+export const SIGN_UP_TOKEN_TTL_MS = 24 * 60 * 60 * 1000;
+
+/**
+ * The work behind a sign-up, done after the caller has had the same answer whatever the address:
+ * a new address gets a link that makes the account; the owner of a taken address gets a note
+ * saying someone tried, and nothing changes on the account.
+ */
+export async function requestSignUp(
+  models: Models, mailer: Mailer, publicUrl: string, body: SignUpBody, now = new Date(),
+): Promise<void> {
+  const owner = await models.User.findOne({ where: { email: body.email } });
+  if (owner) {
+    await mailer.send({
+      to: owner.email,
+      subject: 'Someone tried to make a Shedwright account with your address',
+      text: `Hello ${owner.name},\n\nSomeone (perhaps you) asked to make a new Shedwright account with this e-mail address, which already has one.\n`
+        + `Nothing has changed on your account. If it was you, sign in instead:\n\n${publicUrl}/sign-in\n\n`
+        + `If you have forgotten your password, choose a new one here:\n\n${publicUrl}/forgot\n\n`
+        + 'If it was not you, ignore this mail.\n',
+    });
+    return;
   }
+  const token = newToken();
+  await models.PendingSignUp.create({
+    email: body.email,
+    name: body.name,
+    passwordHash: await hashPassword(body.password),
+    tokenHash: tokenHash(token),
+    expiresAt: new Date(now.getTime() + SIGN_UP_TOKEN_TTL_MS),
+  });
+  const next = body.next ? `&next=${encodeURIComponent(body.next)}` : '';
+  const link = `${publicUrl}/welcome?token=${encodeURIComponent(token)}${next}`;
+  await mailer.send({
+    to: body.email,
+    subject: 'Finish making your Shedwright account',
+    text: `Hello ${body.name},\n\nOpen this link within a day to finish making your Shedwright account:\n\n${link}\n\n`
+      + 'If you did not ask for an account, ignore this mail; none will be made.\n',
+  });
+}
+
+/** Makes the account a mailed sign-up link stands for; the link works once, within its day. */
+export async function confirmSignUp(models: Models, body: ConfirmSignUpBody, now = new Date()): Promise<UserRow> {
+  const invalid = new HttpError(400, 'bad_request', 'This link is invalid, has been used or has expired; sign in, or sign up again');
+  const user = await models.User.sequelize!.transaction(async (transaction) => {
+    const pending = await models.PendingSignUp.findOne({ where: { tokenHash: tokenHash(body.token) }, transaction });
+    if (!pending) return null;
+    // A conditional update claims the link, so two clicks at once make one account.
+    const [claimed] = await models.PendingSignUp.update(
+      { usedAt: now },
+      { where: { id: pending.id, usedAt: null, expiresAt: { [Op.gt]: now } }, transaction },
+    );
+    if (claimed !== 1) return null;
+    try {
+      return await models.User.create({ email: pending.email, name: pending.name, passwordHash: pending.passwordHash }, { transaction });
+    } catch (err) {
+      // The address got an account since (another link of the same address was opened first).
+      if (err instanceof UniqueConstraintError) return null;
+      throw err;
+    }
+  });
+  if (!user) throw invalid;
+  return user;
 }
 
 /** The user when e-mail and password match, else null (same work either way). */

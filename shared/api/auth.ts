@@ -17,12 +17,28 @@ const email = z.string().trim().toLowerCase().pipe(z.email().max(254));
 const password = z.string().min(PASSWORD_MIN_LENGTH, `At least ${PASSWORD_MIN_LENGTH} characters`)
   .max(PASSWORD_MAX_LENGTH);
 
+/** A page of this site to go to once signed in: a path, never another site (`//host` or `/\\host`). */
+export const nextPathSchema = z.string().max(500).regex(/^\/(?![/\\])/, 'must be a path on this site');
+
 export const signUpBodySchema = z.object({
   email,
   password,
   name: z.string().trim().min(1).max(100),
+  /** Where the link in the mail leads once the account is made (an invitation's join page, say). */
+  next: nextPathSchema.optional(),
 });
 export type SignUpBody = z.infer<typeof signUpBodySchema>;
+
+/**
+ * The answer to every well-formed sign-up, whether or not the address has an account: the account is
+ * made from the link mailed to the address, and an owner of a taken address is mailed instead.
+ */
+export const signUpResponseSchema = z.object({ ok: z.literal(true) });
+export type SignUpResponse = z.infer<typeof signUpResponseSchema>;
+
+/** The token from the link a sign-up mails. */
+export const confirmSignUpBodySchema = z.object({ token: z.string().min(1).max(200) });
+export type ConfirmSignUpBody = z.infer<typeof confirmSignUpBodySchema>;
 
 export const signInBodySchema = z.object({
   email,

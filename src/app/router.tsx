@@ -16,6 +16,7 @@ export function createRoutes(): RouteObject[] {
       children: [
         { path: '/sign-in', lazy: { Component: async () => (await import('./routes/sign-in')).SignInRoute } },
         { path: '/sign-up', lazy: { Component: async () => (await import('./routes/sign-up')).SignUpRoute } },
+        { path: '/welcome', lazy: { Component: async () => (await import('./routes/welcome')).WelcomeRoute } },
         { path: '/forgot', lazy: { Component: async () => (await import('./routes/forgot')).ForgotRoute } },
         { path: '/reset', lazy: { Component: async () => (await import('./routes/reset')).ResetRoute } },
         { path: '/admin/mails', lazy: { Component: async () => (await import('./routes/admin-mails')).AdminMailsRoute } },

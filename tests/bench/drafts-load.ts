@@ -28,7 +28,7 @@ import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { startFakeSmtp } from '../../server/mail/fake-smtp';
 import { derivedColumns } from '../../server/services/draft-derived';
 import { createDraft } from '../../server/services/drafts';
-import { signUp } from '../../server/services/auth';
+import { createAccount } from '../../server/services/auth';
 import { testConfig, uniqueEmail } from '../helpers/test-db';
 import { bigDraft } from './drafts-load-data';
 import { cpuMs, idleMs, stolenMs, treeCpuMs } from './proc-stat';
@@ -131,7 +131,7 @@ const [line] = await Promise.race([
 const base = `http://127.0.0.1:${/listening (\d+)/.exec(String(line))![1]}`;
 
 const email = uniqueEmail('bench');
-const user = await signUp(ctx.models, { email, password: PASSWORD, name: 'Load tester' });
+const user = await createAccount(ctx.models, { email, password: PASSWORD, name: 'Load tester' });
 try {
   const small = pointTwillScarf();
   const derived = derivedColumns(small);

@@ -90,7 +90,7 @@ describe('accessibility (axe-core, WCAG 2.2 A and AA)', () => {
     const { page } = app.browser;
     await app.browser.context.clearCookies();
     const pages = [
-      '/sign-in', '/sign-up', '/forgot', '/reset?token=not-a-real-reset-token', `/shared/${fixtures.shareToken}`, '/admin/mails',
+      '/sign-in', '/sign-up', '/welcome?token=not-a-real-sign-up-token', '/forgot', '/reset?token=not-a-real-reset-token', `/shared/${fixtures.shareToken}`, '/admin/mails',
       '/no-such-page',
     ];
     expect(await auditPages(page, pages)).toBe('');

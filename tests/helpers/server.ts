@@ -8,7 +8,7 @@ import { createContext, type AppContext } from '../../server/context';
 import { migrate } from '../../server/db/migrate';
 import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
 import type { UserRow } from '../../server/models';
-import { signUp } from '../../server/services/auth';
+import { createAccount } from '../../server/services/auth';
 import { createStudio } from '../../server/services/studios';
 import { testConfig, uniqueEmail } from './test-db';
 
@@ -70,9 +70,15 @@ export interface TestServer {
   createUser(options?: { name?: string; isAdmin?: boolean; email?: string; password?: string }): Promise<UserRow>;
   /**
    * The newest mail to `email` (whose subject matches `subject`, if given), waiting for it: mails
-   * are sent after the request that causes them has been answered.
+   * are sent after the request that causes them has been answered. With `after`, waits until more
+   * than that many such mails have come.
    */
-  mailTo(email: string, subject?: RegExp): Promise<CapturedMail>;
+  mailTo(email: string, subject?: RegExp, after?: number): Promise<CapturedMail>;
+  /**
+   * Signs up through the API as a person does: the sign-up, then the link from its mail opened by
+   * the same client, which signs it in. Answers with the link's response (201 with the session).
+   */
+  signUp(client: TestClient, body: { email: string; name: string; password?: string; next?: string }): ReturnType<TestClient['post']>;
   /** A fresh user signed in, holding `role` in a fresh studio (owned by another fresh user unless role is owner). */
   signInWithRole(role: StudioRole): Promise<{ client: TestClient; user: UserRow; studioId: number; ownerId: number }>;
   close(): Promise<void>;
@@ -89,7 +95,7 @@ export async function startTestServer(overrides: Partial<Config> = {}): Promise<
   const app = createApp(ctx);
 
   const createUser: TestServer['createUser'] = async (options = {}) => {
-    const user = await signUp(ctx.models, {
+    const user = await createAccount(ctx.models, {
       email: options.email ?? uniqueEmail(),
       name: options.name ?? 'Test Weaver',
       password: options.password ?? TEST_PASSWORD,
@@ -98,20 +104,29 @@ export async function startTestServer(overrides: Partial<Config> = {}): Promise<
     return user;
   };
 
+  const mailTo: TestServer['mailTo'] = async (email, subject, after = 0) => {
+    const started = Date.now();
+    for (;;) {
+      const mails = smtp.mails().filter((m) => m.to.includes(email) && (!subject || subject.test(m.subject)));
+      if (mails.length > after) return mails[0];
+      if (Date.now() - started > 10_000) throw new Error(`no mail to ${email} arrived`);
+      await new Promise((resolve) => setTimeout(resolve, 20));
+    }
+  };
+
   return {
     app,
     ctx,
     smtp,
     client: () => new TestClient(app),
     createUser,
-    async mailTo(email, subject) {
-      const started = Date.now();
-      for (;;) {
-        const mail = smtp.mails().find((m) => m.to.includes(email) && (!subject || subject.test(m.subject)));
-        if (mail) return mail;
-        if (Date.now() - started > 10_000) throw new Error(`no mail to ${email} arrived`);
-        await new Promise((resolve) => setTimeout(resolve, 20));
-      }
+    mailTo,
+    async signUp(client, body) {
+      const asked = await client.post('/api/auth/sign-up', { password: TEST_PASSWORD, ...body });
+      if (asked.status !== 202) throw new Error(`sign-up as ${body.email} failed: ${asked.status} ${JSON.stringify(asked.body)}`);
+      const mail = await mailTo(body.email.toLowerCase(), /Finish making/);
+      const token = decodeURIComponent(/\/welcome\?token=([\w%-]+)/.exec(mail.text)![1]);
+      return client.post('/api/auth/sign-up/confirm', { token });
     },
     async signInWithRole(role) {
       const user = await createUser({ name: `Test ${role}` });

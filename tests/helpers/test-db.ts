@@ -19,7 +19,7 @@ export function testConfig(overrides: Partial<Config> = {}): Config {
     publicUrl: 'http://127.0.0.1:4780',
     sessionSecret: 'test-secret-shared-by-app-instances',
     staticDir: '.no-static-dir-in-tests',
-    rateLimit: { windowMs: 60_000, signIn: 10_000, passwordReset: 10_000 },
+    rateLimit: { windowMs: 60_000, signIn: 10_000, passwordReset: 10_000, signUp: 10_000 },
     ...overrides,
   };
 }

@@ -59,13 +59,27 @@ async function freshResetToken(): Promise<string> {
   return token;
 }
 
+/** A sign-up waiting for its link, for a fresh address. */
+async function signUpToken(): Promise<string> {
+  const token = randomBytes(32).toString('base64url');
+  await server.ctx.models.PendingSignUp.create({
+    email: uniqueEmail('matrix-welcome'), name: 'Welcome', passwordHash: 'not-a-real-hash',
+    tokenHash: tokenHash(token), expiresAt: new Date(Date.now() + 60_000),
+  });
+  return token;
+}
+
 const cases: Record<string, Case> = {
   'GET /api/csrf': { path: () => '/api/csrf', success: 200 },
   'GET /api/session': { path: () => '/api/session', success: 200 },
   'POST /api/auth/sign-up': {
     path: () => '/api/auth/sign-up', changes: 'session',
     body: () => ({ email: uniqueEmail('matrix'), password: TEST_PASSWORD, name: 'Matrix' }),
-    success: 201,
+    success: 202,
+  },
+  // The link works for whoever opens it: it is the permission, like a reset link.
+  'POST /api/auth/sign-up/confirm': {
+    path: () => '/api/auth/sign-up/confirm', changes: 'session', body: async () => ({ token: await signUpToken() }), success: 201,
   },
   'POST /api/auth/sign-in': {
     path: () => '/api/auth/sign-in', changes: 'session', body: () => ({ email: people.viewer.email, password: TEST_PASSWORD }), success: 200,

@@ -14,10 +14,10 @@ const sessionCookie = (res: { headers: Record<string, unknown> }) =>
 const sid = (cookie: string | undefined) => cookie?.split(';')[0];
 
 describe('sign-up, sign-in, sign-out', () => {
-  it('signs up, is signed in, signs out, signs back in', async () => {
+  it('signs up through the mailed link, is signed in, signs out, signs back in', async () => {
     const client = server.client();
     const email = uniqueEmail('signup');
-    const up = await client.post('/api/auth/sign-up', { email: email.toUpperCase(), password: TEST_PASSWORD, name: 'Wren' });
+    const up = await server.signUp(client, { email: email.toUpperCase(), password: TEST_PASSWORD, name: 'Wren' });
     expect(up.status).toBe(201);
     const parsed = authResponseSchema.parse(up.body);
     expect(parsed.user).toMatchObject({ email, name: 'Wren', isAdmin: false, memberships: [] });
@@ -35,14 +35,22 @@ describe('sign-up, sign-in, sign-out', () => {
     expect(back.body.user.email).toBe(email);
   });
 
-  it('rejects a taken e-mail with 409 and a short password with 400', async () => {
-    const user = await server.createUser();
-    const taken = await server.client().post('/api/auth/sign-up', { email: user.email, password: TEST_PASSWORD, name: 'X' });
-    expect(taken.status).toBe(409);
-    expect(apiErrorSchema.parse(taken.body).error.code).toBe('conflict');
+  it('makes one account from a sign-up link, once; refuses a made-up link and a short password', async () => {
+    const email = uniqueEmail('once');
+    const first = server.client();
+    expect((await server.signUp(first, { email, name: 'Once' })).status).toBe(201);
+    const token = decodeURIComponent(/token=([\w%-]+)/.exec((await server.mailTo(email, /Finish making/)).text)![1]);
+    const again = await server.client().post('/api/auth/sign-up/confirm', { token });
+    expect(again.status).toBe(400);
+    expect(apiErrorSchema.parse(again.body).error.message).toMatch(/invalid, has been used or has expired/);
+    expect((await server.client().post('/api/auth/sign-up/confirm', { token: 'made-up-token' })).status).toBe(400);
+    expect(await server.ctx.models.User.count({ where: { email } })).toBe(1);
     const short = await server.client().post('/api/auth/sign-up', { email: uniqueEmail(), password: 'short', name: 'X' });
     expect(short.status).toBe(400);
     expect(short.body.error.fields.password).toBeTruthy();
+    const elsewhere = await server.client().post('/api/auth/sign-up', { email: uniqueEmail(), password: TEST_PASSWORD, name: 'X', next: '//evil.example/' });
+    expect(elsewhere.status).toBe(400);
+    expect(elsewhere.body.error.fields.next).toBeTruthy();
   });
 
   it('answers a wrong password and an unknown e-mail alike with 401', async () => {
@@ -124,7 +132,7 @@ describe('CSRF', () => {
 
 describe('rate limits', () => {
   it('answers 429 after the configured number of sign-in attempts', async () => {
-    const limited = await startTestServer({ rateLimit: { windowMs: 60_000, signIn: 3, passwordReset: 2 } });
+    const limited = await startTestServer({ rateLimit: { windowMs: 60_000, signIn: 3, passwordReset: 2, signUp: 10_000 } });
     try {
       const client = limited.client();
       const attempt = () => client.post('/api/auth/sign-in', { email: uniqueEmail('limit'), password: 'wrong-password' });
@@ -145,8 +153,9 @@ describe('rate limits', () => {
 describe('forgot and reset password', () => {
   const linkIn = (text: string) => text.match(/https?:\/\/\S+\/reset\?token=([\w%-]+)/);
 
-  async function mailedToken(email: string): Promise<string> {
-    const mail = await server.mailTo(email, /reset/i);
+  /** The token of the newest reset mail to `email`, once more than `after` of them have come. */
+  async function mailedToken(email: string, after = 0): Promise<string> {
+    const mail = await server.mailTo(email, /reset/i, after);
     const link = linkIn(mail.text);
     expect(link?.[0].startsWith('http://127.0.0.1:4780/reset?token=')).toBe(true);
     return decodeURIComponent(link![1]);
@@ -190,7 +199,7 @@ describe('forgot and reset password', () => {
     await server.client().post('/api/auth/forgot', { email: user.email });
     const older = await mailedToken(user.email);
     await server.client().post('/api/auth/forgot', { email: user.email });
-    const newer = await mailedToken(user.email);
+    const newer = await mailedToken(user.email, 1);
     expect(newer).not.toBe(older);
     const resetter = server.client();
     expect((await resetter.post('/api/auth/reset', { token: newer, password: 'a-fresh-long-password' })).status).toBe(200);
@@ -230,6 +239,7 @@ describe('passwords stay secret', () => {
       const client = server.client();
       const bodies = [
         await client.post('/api/auth/sign-up', { email, password, name: 'Quiet' }),
+        await server.signUp(client, { email, password, name: 'Quiet' }),
         await client.get('/api/session'),
         await client.post('/api/auth/sign-out'),
         await client.post('/api/auth/sign-in', { email, password }),
@@ -245,6 +255,92 @@ describe('passwords stay secret', () => {
       }
     } finally {
       for (const spy of spies) spy.mockRestore();
+    }
+  });
+});
+
+describe('nobody learns who has an account', () => {
+  /**
+   * Holds every mail until `release` is called: an answer that comes while its mail is held did
+   * not wait for the mail (nor for whatever the server does before sending it).
+   */
+  function holdMails() {
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => { release = resolve; });
+    const send = server.ctx.mailer.send.bind(server.ctx.mailer);
+    const spy = vi.spyOn(server.ctx.mailer, 'send').mockImplementation(async (mail) => { await held; await send(mail); });
+    return { spy, release: () => { release(); spy.mockRestore(); } };
+  }
+  /**
+   * A POST from its own client, giving up after 20 s only to tell a hung request from an answer
+   * (the answers that pass wait for nothing): the error instead of a response when it hangs.
+   */
+  async function post(path: string, body: object, client = server.client()) {
+    const token = await client.csrf();
+    return client.agent.post(path).set('x-csrf-token', token).send(body).timeout(20_000).then((r) => r, (err: Error) => err);
+  }
+
+  it('finding 6: forgot password answers a known and an unknown address in the same words, before any mail is sent', async () => {
+    const user = await server.createUser();
+    const unknown = uniqueEmail('nobody');
+    const hold = holdMails();
+    const [k, u] = await Promise.all([user.email, unknown].map((email) => post('/api/auth/forgot', { email })));
+    const sentWhileAnswering = server.smtp.mails().filter((m) => m.to.includes(user.email)).length;
+    hold.release();
+    expect(k).not.toBeInstanceOf(Error);
+    expect(u).not.toBeInstanceOf(Error);
+    if (k instanceof Error || u instanceof Error) return;
+    expect(k.status).toBe(202);
+    expect(u.status).toBe(202);
+    expect(k.text).toBe(u.text);
+    expect(sentWhileAnswering).toBe(0);
+    // The mail still goes, after the answer.
+    expect((await server.mailTo(user.email, /reset/i)).text).toMatch(/reset\?token=/);
+  });
+
+  it('finding 6: sign-up answers a taken address in the same words as a new one, before any mail, and mails the owner instead', async () => {
+    const owner = await server.createUser({ name: 'Owner of the address' });
+    const fresh = uniqueEmail('fresh');
+    const hold = holdMails();
+    const attacker = server.client();
+    const newcomer = server.client();
+    const body = (email: string) => ({ email, password: 'an-attackers-password', name: 'Somebody' });
+    const [taken, free] = await Promise.all([post('/api/auth/sign-up', body(owner.email), attacker), post('/api/auth/sign-up', body(fresh), newcomer)]);
+    const sentWhileAnswering = server.smtp.mails().filter((m) => m.to.includes(owner.email) || m.to.includes(fresh)).length;
+    hold.release();
+    expect(taken).not.toBeInstanceOf(Error);
+    expect(free).not.toBeInstanceOf(Error);
+    if (taken instanceof Error || free instanceof Error) return;
+    expect([taken.status, free.status]).toEqual([202, 202]);
+    expect(taken.text).toBe(free.text);
+    expect(sentWhileAnswering).toBe(0);
+    // Nobody is signed in by asking.
+    expect((await attacker.get('/api/session')).body).toEqual({ user: null });
+    expect((await newcomer.get('/api/session')).body).toEqual({ user: null });
+
+    // The owner hears of it and keeps the account as it was; the new address gets its link.
+    const note = await server.mailTo(owner.email, /tried to make a Shedwright account/);
+    expect(note.text).toMatch(/Nothing has changed on your account/);
+    expect(note.text).not.toMatch(/token=/);
+    expect((await server.client().post('/api/auth/sign-in', { email: owner.email, password: 'an-attackers-password' })).status).toBe(401);
+    expect((await server.client().post('/api/auth/sign-in', { email: owner.email, password: TEST_PASSWORD })).status).toBe(200);
+    expect(await server.ctx.models.User.count({ where: { email: owner.email } })).toBe(1);
+    expect((await server.mailTo(fresh, /Finish making/)).text).toMatch(/\/welcome\?token=/);
+  });
+
+  it('finding 6: sign-ups are limited per client address', async () => {
+    const limited = await startTestServer({ rateLimit: { windowMs: 60_000, signIn: 10_000, passwordReset: 10_000, signUp: 3 } });
+    try {
+      const client = limited.client();
+      const signUp = () => client.post('/api/auth/sign-up', { email: uniqueEmail('many'), password: TEST_PASSWORD, name: 'Many' });
+      for (let i = 0; i < 3; i++) expect((await signUp()).status).not.toBe(429);
+      const blocked = await signUp();
+      expect(blocked.status).toBe(429);
+      expect(blocked.body.error).toMatchObject({ code: 'rate_limited', message: expect.stringMatching(/sign-ups/) });
+      // A taken address counts like any other: the limit says nothing about who has an account.
+      expect((await client.post('/api/auth/sign-up', { email: (await limited.createUser()).email, password: TEST_PASSWORD, name: 'Taken' })).status).toBe(429);
+    } finally {
+      await limited.close();
     }
   });
 });

@@ -15,7 +15,7 @@ import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { encodePngRgb } from '../../server/print/png';
 import { createDraft } from '../../server/services/drafts';
 import { sniffImageType } from '../../server/services/photos';
-import { startTestServer, TEST_PASSWORD, type TestClient, type TestServer } from '../helpers/server';
+import { startTestServer, type TestClient, type TestServer } from '../helpers/server';
 import { uniqueEmail } from '../helpers/test-db';
 
 let server: TestServer;
@@ -95,7 +95,7 @@ describe('studio invitations', () => {
 
     const newcomer = server.client();
     expect((await newcomer.post('/api/invitations/accept', { token })).status).toBe(401);
-    await newcomer.post('/api/auth/sign-up', { email, password: TEST_PASSWORD, name: 'Newcomer' });
+    expect((await server.signUp(newcomer, { email, name: 'Newcomer' })).status).toBe(201);
     const joined = acceptInviteResponseSchema.parse((await newcomer.post('/api/invitations/accept', { token })).body);
     expect(joined.studio).toEqual({ id: s.studioId, name: 'Test studio', role: 'editor' });
     expect((await newcomer.get(`/api/drafts/${s.draftId}`)).body.draft.role).toBe('editor');
@@ -134,14 +134,14 @@ describe('studio invitations', () => {
     expect(wrongMember.body.error.message).toMatch(/sent to another e-mail address/);
     expect((await s.viewer.get(`/api/drafts/${s.draftId}`)).body.draft.role).toBe('viewer');
     const stranger = server.client();
-    await stranger.post('/api/auth/sign-up', { email: uniqueEmail('stranger'), password: TEST_PASSWORD, name: 'Stranger' });
+    expect((await server.signUp(stranger, { email: uniqueEmail('stranger'), name: 'Stranger' })).status).toBe(201);
     expect((await stranger.post('/api/invitations/accept', { token })).status).toBe(403);
     expect((await stranger.get(`/api/studios/${s.studioId}`)).status).toBe(404);
     expect(await server.ctx.models.Invitation.findOne({ where: { email: invited } })).toMatchObject({ acceptedAt: null, acceptedById: null });
 
     // The person it was sent to signs up with that address (in another case) and joins.
     const meant = server.client();
-    await meant.post('/api/auth/sign-up', { email: invited.toUpperCase(), password: TEST_PASSWORD, name: 'Invited' });
+    expect((await server.signUp(meant, { email: invited.toUpperCase(), name: 'Invited' })).status).toBe(201);
     expect((await meant.post('/api/invitations/accept', { token })).body.studio).toEqual({ id: s.studioId, name: 'Test studio', role: 'editor' });
   });
 });

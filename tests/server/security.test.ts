@@ -95,6 +95,7 @@ const validBodies: Record<string, (s: Studio) => unknown> = {
   'POST /api/auth/sign-in': (s) => ({ email: s.ownerEmail, password: TEST_PASSWORD }),
   'POST /api/auth/forgot': () => ({ email: uniqueEmail('sec') }),
   'POST /api/auth/reset': () => ({ token: randomBytes(32).toString('base64url'), password: 'another-long-password' }),
+  'POST /api/auth/sign-up/confirm': () => ({ token: randomBytes(32).toString('base64url') }),
   'POST /api/studios': () => ({ name: 'Security studio' }),
   'PATCH /api/studios/:id/members/:userId': () => ({ role: 'editor' }),
   'POST /api/drafts': () => ({ name: 'Security draft', tags: ['sec'] }),
@@ -153,7 +154,8 @@ describe("another studio's things", () => {
   const notApplicable: Record<string, string> = {
     'GET /api/csrf': 'the caller\'s own session',
     'GET /api/session': 'the caller\'s own session',
-    'POST /api/auth/sign-up': 'makes a new account',
+    'POST /api/auth/sign-up': 'answers alike for every e-mail and mails the address (auth.test.ts)',
+    'POST /api/auth/sign-up/confirm': 'the token is the permission',
     'POST /api/auth/sign-in': 'the caller\'s own account',
     'POST /api/auth/sign-out': 'the caller\'s own session',
     'POST /api/auth/forgot': 'answers alike for every e-mail (auth.test.ts)',
@@ -397,7 +399,7 @@ describe('sessions', () => {
 
 describe('sign-in rate limit', () => {
   it('answers 429 once the limit is reached, even to the right password, and counts resets on their own', async () => {
-    const limited = await startTestServer({ attachmentsDir, rateLimit: { windowMs: 60_000, signIn: 3, passwordReset: 2 } });
+    const limited = await startTestServer({ attachmentsDir, rateLimit: { windowMs: 60_000, signIn: 3, passwordReset: 2, signUp: 10_000 } });
     try {
       const user = await limited.createUser();
       const client = limited.client();
@@ -458,6 +460,7 @@ describe('passwords', () => {
       const email = uniqueEmail('quiet');
       const client = server.client();
       texts.push((await client.post('/api/auth/sign-up', { email, password: first, name: 'Quiet' })).text);
+      texts.push((await server.signUp(client, { email, password: first, name: 'Quiet' })).text);
       texts.push((await client.post('/api/auth/sign-out')).text);
       texts.push((await client.post('/api/auth/sign-in', { email, password: `${first}-wrong` })).text);
       texts.push((await client.post('/api/auth/sign-in', { email, password: first })).text);

@@ -7,6 +7,7 @@ import * as listIndexes from './0004-list-indexes';
 import * as structureBackfill from './0005-structure-backfill';
 import * as saveProcedure from './0006-save-procedure';
 import * as workingVersions from './0007-working-versions';
+import * as pendingSignUps from './0008-pending-sign-ups';
 
 /**
  * Every migration, oldest first. Listed by hand rather than globbed so the list is type-checked and
@@ -20,4 +21,5 @@ export const migrations: RunnableMigration<QueryInterface>[] = [
   { name: '0005-structure-backfill', ...structureBackfill },
   { name: '0006-save-procedure', ...saveProcedure },
   { name: '0007-working-versions', ...workingVersions },
+  { name: '0008-pending-sign-ups', ...pendingSignUps },
 ];

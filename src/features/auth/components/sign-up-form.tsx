@@ -3,18 +3,40 @@ import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
 import { Field } from '../../../components/ui/field';
-import { fieldErrorsOf, isApiError } from '../../../lib/api-client';
+import { fieldErrorsOf } from '../../../lib/api-client';
 import { MIN_PASSWORD_LENGTH, useSignUp } from '../api/sign-up';
 
-/** Name, e-mail and password for a new account, signed in straight away (the page moves on from the session cache). */
+/**
+ * Name, e-mail and password for a new account. The account is made from the link mailed to the
+ * address, so the answer says the same whether or not the address has an account already.
+ */
 export function SignUpForm({ next }: { next?: string }) {
   const signUp = useSignUp();
   const [local, setLocal] = useState<Record<string, string>>({});
+  const [sentTo, setSentTo] = useState('');
   const apiFields = fieldErrorsOf(signUp.error);
-  // A taken address is a conflict (409) about the e-mail field, whether or not the server names the field.
   const fields: Record<string, string> = { ...apiFields, ...local };
-  if (isApiError(signUp.error, 409) && !fields.email) fields.email = signUp.error.message;
-  const showNotice = signUp.isError && Object.keys(apiFields).length === 0 && !isApiError(signUp.error, 409);
+  const showNotice = signUp.isError && Object.keys(apiFields).length === 0;
+
+  if (signUp.isSuccess) {
+    return (
+      <div role="status" className="flex flex-col gap-3 text-sm">
+        <p>
+          We sent a link to <strong>{sentTo}</strong>. Open it within a day to finish making your account; the link signs you
+          in.
+        </p>
+        <p className="text-muted">
+          If the address already has an account, the mail says so instead, and you can sign in or choose a new password.
+        </p>
+        {import.meta.env.DEV && (
+          <p>
+            Working locally? <Link to="/admin/mails">Open the captured mails</Link>.
+          </p>
+        )}
+        <Link to={next ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'}>Back to sign in</Link>
+      </div>
+    );
+  }
 
   const submit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -31,7 +53,8 @@ export function SignUpForm({ next }: { next?: string }) {
     setLocal(errors);
     if (Object.keys(errors).length > 0) return;
     signUp.reset();
-    signUp.mutate(input);
+    setSentTo(input.email);
+    signUp.mutate(next ? { ...input, next } : input);
   };
 
   return (
