@@ -227,7 +227,9 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
   const bgHex = options.background ?? '#e4e1da';
   const bg = packedRgba(bgHex);
   const bgN = Number.parseInt(bgHex.slice(1, 7), 16);
-  const bgRgb = [(bgN >>> 16) & 255, (bgN >>> 8) & 255, bgN & 255];
+  const bgR = (bgN >>> 16) & 255;
+  const bgG = (bgN >>> 8) & 255;
+  const bgB = bgN & 255;
   words.fill(bg);
   if (ends === 0 || picks === 0 || W === 0 || H === 0) return { width: W, height: H, rgba };
 
@@ -258,25 +260,6 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
   // where it meets each end (lit over an end, shaded under it).
   const warpAlong = new Float32Array(ends);
   const weftLit = new Float32Array(ends);
-  const acc = new Float64Array(3);
-  /** Lays a shaded colour (a table index) over the pixel being built, by how much of it it covers. */
-  const lay = (index: number, alpha: number) => {
-    const i = index * 4;
-    acc[0] += (bytes[i] - acc[0]) * alpha;
-    acc[1] += (bytes[i + 1] - acc[1]) * alpha;
-    acc[2] += (bytes[i + 2] - acc[2]) * alpha;
-  };
-  /** One layer's end and pick over the pixel, the one underneath first. */
-  const layThreads = (ax: number, ay: number, up: boolean, warp: number, weft: number) => {
-    if (up) {
-      if (ay > 0) lay(weft, ay);
-      if (ax > 0) lay(warp, ax);
-    } else {
-      if (ax > 0) lay(warp, ax);
-      if (ay > 0) lay(weft, ay);
-    }
-  };
-
   for (let y = 0; y < H; y++) {
     const pc = ys.cell[y];
     if (pc < 0) continue;
@@ -323,25 +306,56 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
         continue;
       }
       // Edges and gaps: the background, then the layer beneath in its shadow, then the layer on
-      // top, each laid over what is there by how much of the pixel it covers.
-      acc[0] = bgRgb[0];
-      acc[1] = bgRgb[1];
-      acc[2] = bgRgb[2];
+      // top, each laid over what is there by how much of the pixel it covers (the thread
+      // underneath at a crossing first). Written out in full: this is the hottest loop of the views.
+      let r = bgR;
+      let g = bgG;
+      let b = bgB;
       const below = lower ? lower[cellRow + ec] : top;
       if (below !== top) {
         const axLow = endLayer[et] === below ? ax : 0;
         const ayLow = weftLayer === below ? ay : 0;
         if (axLow > 0 || ayLow > 0) {
-          const lowWarp = warpBase[et] + level(xs.shade[x] * warpAlong[et] * LOWER_LAYER_SHADE);
-          const lowWeft = weftBase[pt] + level(weftShade * along * LOWER_LAYER_SHADE);
-          layThreads(axLow, ayLow, up, lowWarp, lowWeft);
+          const lw = (warpBase[et] + level(xs.shade[x] * warpAlong[et] * LOWER_LAYER_SHADE)) * 4;
+          const lf = (weftBase[pt] + level(weftShade * along * LOWER_LAYER_SHADE)) * 4;
+          const i1 = up ? lf : lw;
+          const a1 = up ? ayLow : axLow;
+          const i2 = up ? lw : lf;
+          const a2 = up ? axLow : ayLow;
+          if (a1 > 0) {
+            r += (bytes[i1] - r) * a1;
+            g += (bytes[i1 + 1] - g) * a1;
+            b += (bytes[i1 + 2] - b) * a1;
+          }
+          if (a2 > 0) {
+            r += (bytes[i2] - r) * a2;
+            g += (bytes[i2 + 1] - g) * a2;
+            b += (bytes[i2 + 2] - b) * a2;
+          }
         }
       }
-      if (axTop > 0 || ayTop > 0) layThreads(axTop, ayTop, up, warp, weft);
+      if (axTop > 0 || ayTop > 0) {
+        const tw = warp * 4;
+        const tf = weft * 4;
+        const i1 = up ? tf : tw;
+        const a1 = up ? ayTop : axTop;
+        const i2 = up ? tw : tf;
+        const a2 = up ? axTop : ayTop;
+        if (a1 > 0) {
+          r += (bytes[i1] - r) * a1;
+          g += (bytes[i1 + 1] - g) * a1;
+          b += (bytes[i1 + 2] - b) * a1;
+        }
+        if (a2 > 0) {
+          r += (bytes[i2] - r) * a2;
+          g += (bytes[i2 + 1] - g) * a2;
+          b += (bytes[i2 + 2] - b) * a2;
+        }
+      }
       const i = (out + x) * 4;
-      rgba[i] = acc[0];
-      rgba[i + 1] = acc[1];
-      rgba[i + 2] = acc[2];
+      rgba[i] = r;
+      rgba[i + 1] = g;
+      rgba[i + 2] = b;
     }
   }
   return { width: W, height: H, rgba };

@@ -10,6 +10,7 @@ import { colourAndWeaveSampler, pointTwillScarf, straightTwillTrial } from '../.
 import { saveDraft } from '../../server/services/draft-versions';
 import { createDraft } from '../../server/services/drafts';
 import { STRUCTURE_TAGS } from '../../server/services/draft-derived';
+import { clothSources, threadImage } from '../../server/print/raster';
 import { STRUCTURES } from '../../src/features/library/drafts-search';
 import { startTestServer, type TestClient, type TestServer } from '../helpers/server';
 
@@ -41,6 +42,30 @@ function pngSize(bytes: Buffer): { width: number; height: number } {
   expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
   expect(bytes.subarray(12, 16).toString('latin1')).toBe('IHDR');
   return { width: bytes.readUInt32BE(16), height: bytes.readUInt32BE(20) };
+}
+
+/** The RGB pixels of a PNG as the server writes it (8-bit RGB, filter 0 on every row). */
+function pngPixels(bytes: Buffer): { width: number; height: number; rgb: Uint8Array } {
+  const { width, height } = pngSize(bytes);
+  const chunks: Buffer[] = [];
+  for (let at = 8; at < bytes.length; ) {
+    const length = bytes.readUInt32BE(at);
+    if (bytes.subarray(at + 4, at + 8).toString('latin1') === 'IDAT') chunks.push(bytes.subarray(at + 8, at + 8 + length));
+    at += 12 + length;
+  }
+  const raw = inflateSync(Buffer.concat(chunks));
+  const rgb = new Uint8Array(width * height * 3);
+  for (let y = 0; y < height; y++) {
+    const row = y * (width * 3 + 1);
+    expect(raw[row]).toBe(0);
+    rgb.set(raw.subarray(row + 1, row + 1 + width * 3), y * width * 3);
+  }
+  return { width, height, rgb };
+}
+
+/** The library thumbnail's picture of a document, from the engine: its cloth thread by thread, ends 2 pixels apart. */
+function thumbnailOf(document: Draft): { width: number; height: number; rgb: Uint8Array } {
+  return threadImage(clothSources(document), 'colour', 2);
 }
 
 describe('saving versions', () => {
@@ -214,13 +239,11 @@ describe('thumbnails and the library', () => {
     expect(item.structure).toEqual(['twill']);
     const png = await s.viewer.client.agent.get(item.thumbnailUrl!).buffer(true);
     expect(png.headers['content-type']).toBe('image/png');
-    // 60 × 60 cells at 2 pixels each.
-    const bytes = png.body as Buffer;
-    expect(pngSize(bytes)).toEqual({ width: 120, height: 120 });
-    // The first pixel is warp colour or weft colour of the scarf, as the drawdown says.
-    const idatAt = bytes.indexOf('IDAT');
-    const raw = inflateSync(bytes.subarray(idatAt + 4, idatAt + 4 + bytes.readUInt32BE(idatAt - 4)));
-    expect(['#1f5f6b', '#efe6d2']).toContain(`#${raw.subarray(1, 4).toString('hex')}`);
+    // 60 ends × 60 picks at 20 per inch, ends 2 pixels apart: 120 × 120 pixels.
+    const pic = pngPixels(png.body as Buffer);
+    expect([pic.width, pic.height]).toEqual([120, 120]);
+    // The scarf's own cloth, drawn thread by thread, pixel for pixel.
+    expect(pic).toEqual(thumbnailOf(pointTwillScarf()));
 
     const ids = async (q: string) => draftListResponseSchema.parse((await s.viewer.client.get(`/api/drafts?studio=${s.studioId}&${q}`)).body).items.map((d) => d.id);
     expect(await ids('structure=twill')).toEqual([s.draftId]);
@@ -231,19 +254,17 @@ describe('thumbnails and the library', () => {
 
   it('renders the thumbnail again for the new version after a save, in the new colours', async () => {
     const s = await studioScene();
-    const firstPixel = async (url: string) => {
-      const bytes = (await s.viewer.client.agent.get(url).buffer(true)).body as Buffer;
-      const idatAt = bytes.indexOf('IDAT');
-      const raw = inflateSync(bytes.subarray(idatAt + 4, idatAt + 4 + bytes.readUInt32BE(idatAt - 4)));
-      return `#${raw.subarray(1, 4).toString('hex')}`;
-    };
-    expect(['#1f5f6b', '#efe6d2']).toContain(await firstPixel(`/api/drafts/${s.draftId}/thumbnail.png?v=1`));
+    const fetched = async (url: string) => pngPixels((await s.viewer.client.agent.get(url).buffer(true)).body as Buffer);
+    const before = await fetched(`/api/drafts/${s.draftId}/thumbnail.png?v=1`);
+    expect(before).toEqual(thumbnailOf(pointTwillScarf()));
     const recoloured = { ...pointTwillScarf(), palette: ['#aa0000', '#00aa00'] };
     expect((await put(s.editor.client, s.draftId, { document: recoloured, baseVersion: 1 })).status).toBe(200);
     const list = draftListResponseSchema.parse((await s.viewer.client.get(`/api/drafts?studio=${s.studioId}`)).body);
     const url = list.items.find((d) => d.id === s.draftId)!.thumbnailUrl!;
     expect(url).toBe(`/api/drafts/${s.draftId}/thumbnail.png?v=2`);
-    expect(['#aa0000', '#00aa00']).toContain(await firstPixel(url));
+    const after = await fetched(url);
+    expect(after).toEqual(thumbnailOf(recoloured));
+    expect(after.rgb).not.toEqual(before.rgb);
   });
 
   it('offers the client exactly the structures the server tags', () => {

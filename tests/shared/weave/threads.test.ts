@@ -163,7 +163,8 @@ describe('renderThreads', () => {
         }
       }
     }
-  });
+    // Two 1760 × 2240 pictures checked pixel by pixel: allow for a busy machine (no timing is asserted).
+  }, 60_000);
 
   it('draws any window as the same pixels as that part of the whole picture, on either face and at any zoom', () => {
     fc.assert(

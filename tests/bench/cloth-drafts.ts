@@ -1,0 +1,53 @@
+// Drafts for the cloth-view benchmark (tests/bench/cloth.bench.ts), built the same way in Node and
+// in the browser page it loads.
+import { expandProfile } from '../../shared/weave/profile';
+import type { Draft } from '../../shared/weave/types';
+
+export interface ClothBenchCase {
+  label: string;
+  ends: number;
+  picks: number;
+  /** Device pixels per end. */
+  zoom: number;
+  /** Milliseconds the cloth issue allows for one view at this size. */
+  goal: number;
+}
+
+export const CLOTH_BENCH_CASES: readonly ClothBenchCase[] = [
+  { label: '440 × 560 at 4 px per thread', ends: 440, picks: 560, zoom: 4, goal: 100 },
+  { label: '2000 × 2000 at 1 px per thread', ends: 2000, picks: 2000, zoom: 1, goal: 500 },
+];
+
+/**
+ * A two-block double weave of `ends` × `picks` (8 shafts, 40 ends and picks per inch) with a
+ * colour-and-weave order in layer 1 and named cotton yarns, so the thread sizes come from the yarn
+ * counts and both faces differ block by block: the kind of draft the views are for.
+ */
+export function benchDraft(ends: number, picks: number): Draft {
+  const endsPerUnit = ends % 16 === 0 && ends / 16 <= 200 ? 16 : 4;
+  const picksPerUnit = picks % 16 === 0 && picks / 16 <= 200 ? 16 : 4;
+  const columns = ends / endsPerUnit;
+  const rows = picks / picksPerUnit;
+  const draft = expandProfile(
+    {
+      name: `Bench ${ends} × ${picks}`,
+      threading: Array.from({ length: columns }, (_, i) => (Math.floor(i / 5) % 2) + 1),
+      treadling: Array.from({ length: rows }, (_, r) => [(Math.floor(r / 7) % 2) + 1]),
+      endsPerUnit,
+      picksPerUnit,
+      palette: ['#22303c', '#efe6d2', '#9a3b2e'],
+      warpColors: [[0, 1], [2]],
+      weftColors: [[0, 1], [2]],
+      sett: { warp: 40, weft: 40, unit: 'inch' },
+    },
+    'double-weave',
+  );
+  return {
+    ...draft,
+    yarns: [
+      { id: 'charcoal', name: 'Charcoal 8/2 cotton', color: 0 },
+      { id: 'oat', name: 'Oat 8/2 cotton', color: 1 },
+      { id: 'rust', name: 'Rust 8/2 cotton', color: 2 },
+    ],
+  };
+}

@@ -1,0 +1,121 @@
+/*
+ * Cloth-view benchmark: `npx tsx tests/bench/cloth.bench.ts [--runs 9] [--node-only]`.
+ *
+ * Goals (the cloth views' issue): one thread-by-thread view of 440 × 560 threads at 4 px per thread
+ * in ≤ 100 ms in the worker, and of 2000 × 2000 at 1 px per thread in ≤ 500 ms; and, measured in
+ * the same run, how the thread renderer's time compares with drawing the same view as flat cells
+ * (one flat square per cell, the cloth views' old way) at the same size.
+ *
+ * Two places, same code:
+ *   1. Node: the worker's own function (createClothWorker) and the two renderers called directly.
+ *   2. Debian's Chromium: the editor's real cloth worker (a Web Worker, pictures handed back as
+ *      ImageBitmaps through OffscreenCanvas), timed from postMessage to the answer on the page;
+ *      and the two renderers on the page's thread for the ratio.
+ * "view" times are a new window of a draft the worker already holds (pan or zoom: the picture
+ * only); "new draft" times include the drawdown, layers, thread sizes and Checks worked out first.
+ * Prints figures; it is not a pass/fail test.
+ */
+import { mkdtempSync, rmSync } from 'node:fs';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { chromium } from 'playwright-core';
+import { build, preview } from 'vite';
+import { computeDrawdown } from '../../shared/weave/drawdown';
+import { simulateLayers } from '../../shared/weave/layers';
+import { renderCells } from '../../shared/weave/picture';
+import { renderThreads } from '../../shared/weave/threads';
+import { threadSizesFor } from '../../shared/plan/thread-sizes';
+import { createClothWorker, type ClothRequest } from '../../src/features/editor/canvas/cloth-work';
+import { paintFaceCells } from './cloth-page/flat-cells';
+import { benchDraft, CLOTH_BENCH_CASES } from './cloth-drafts';
+import type { BenchRow } from './cloth-page/main';
+
+const arg = (name: string, fallback: string) => {
+  const i = process.argv.indexOf(`--${name}`);
+  return i >= 0 ? process.argv[i + 1] : fallback;
+};
+const RUNS = Number(arg('runs', '9'));
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+const ms = (n: number) => `${n.toFixed(1)} ms`;
+
+function timed(run: () => unknown): number[] {
+  run(); // warm up the JIT
+  const out: number[] = [];
+  for (let i = 0; i < RUNS; i++) {
+    const t0 = performance.now();
+    run();
+    out.push(performance.now() - t0);
+  }
+  return out;
+}
+
+function printRows(place: string, rows: BenchRow[]): void {
+  for (const r of rows) {
+    const verdict = r.view <= r.goal ? 'within' : 'OVER';
+    console.log(
+      `${place} | ${r.label}, ${r.face}: view ${ms(r.view)} (goal ≤ ${r.goal} ms: ${verdict}), new draft ${ms(r.newDraft)}; ` +
+        `renderThreads ${ms(r.threads)} vs flat cells ${ms(r.flat)} = ${(r.threads / r.flat).toFixed(1)} × (${r.width} × ${r.height} px)`,
+    );
+  }
+}
+
+function nodeRows(): BenchRow[] {
+  const rows: BenchRow[] = [];
+  for (const c of CLOTH_BENCH_CASES) {
+    const draft = benchDraft(c.ends, c.picks);
+    const drawdown = computeDrawdown(draft);
+    const layers = simulateLayers(draft, undefined, { drawdown });
+    const sizes = threadSizesFor(draft);
+    for (const face of ['colour', 'front'] as const) {
+      const pixelsPerInch = c.zoom * sizes.endsPerInch;
+      const threadsPic = () => renderThreads({ draft, drawdown, layers: face === 'colour' ? undefined : layers, sizes }, { face, pixelsPerInch });
+      const { width, height } = threadsPic();
+      const cells = paintFaceCells(draft, drawdown, face === 'colour' ? null : layers);
+      const flat = () => renderCells(cells, c.ends, c.picks, { cellSize: c.zoom, window: { x: 0, y: 0, width, height } });
+      const frame = (x: number) => ({ zoom: c.zoom, x, y: 0, width, height });
+      let id = 0;
+      const work = createClothWorker();
+      const request = (revision: number, x: number): ClothRequest => ({ id: ++id, draft, revision, views: [face], floatLimit: 7, tiles: 1, frames: { [face]: frame(x) } });
+      let revision = 0;
+      const newDraft = timed(() => work(request(++revision, 0)));
+      const view = timed(() => work(request(revision, id % 2)));
+      rows.push({ label: c.label, face, goal: c.goal, width, height, view: median(view), newDraft: median(newDraft), threads: median(timed(threadsPic)), flat: median(timed(flat)) });
+    }
+  }
+  return rows;
+}
+
+async function browserRows(): Promise<BenchRow[]> {
+  const root = new URL('../..', import.meta.url).pathname;
+  const outDir = mkdtempSync(join(tmpdir(), 'shedwright-cloth-bench-dist-'));
+  const profile = mkdtempSync(join(tmpdir(), 'shedwright-cloth-bench-'));
+  const input = join(root, 'tests/bench/cloth-page/index.html');
+  await build({ root, configFile: join(root, 'vite.config.ts'), logLevel: 'warn', build: { outDir, emptyOutDir: true, rolldownOptions: { input } } });
+  const server = await preview({ root, configFile: join(root, 'vite.config.ts'), logLevel: 'warn', build: { outDir }, preview: { port: 0, host: '127.0.0.1' } });
+  const address = server.httpServer.address();
+  const port = typeof address === 'object' && address ? address.port : 4173;
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: ['--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+  try {
+    const page = context.pages()[0] ?? (await context.newPage());
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await page.goto(`http://127.0.0.1:${port}/tests/bench/cloth-page/index.html`);
+    await page.waitForFunction(() => 'runClothBench' in window, undefined, { timeout: 60_000 });
+    const rows = await page.evaluate((runs) => (window as unknown as { runClothBench(runs: number): Promise<BenchRow[]> }).runClothBench(runs), RUNS);
+    if (errors.length > 0) throw new Error(errors.join('\n'));
+    return rows;
+  } finally {
+    await context.close();
+    await server.close();
+    rmSync(profile, { recursive: true, force: true });
+    rmSync(outDir, { recursive: true, force: true });
+  }
+}
+
+console.log(`load average ${loadavg().map((l) => l.toFixed(1)).join(' ')} on ${availableParallelism()} cores; medians of ${RUNS} runs`);
+printRows('node    ', nodeRows());
+if (!process.argv.includes('--node-only')) printRows('chromium', await browserRows());
