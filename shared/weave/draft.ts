@@ -96,6 +96,12 @@ const blockDesignSchema = z.strictObject(
     warpColors: colourOrders,
     weftColors: colourOrders,
     blockWarpColors: z.array(colourOrders, { error: 'must be a list, one entry per block' }).max(MAX_SHAFTS, { error: 'has more blocks than shafts' }).optional(),
+    tieup: z
+      .array(z.array(blockNumber, { error: 'must be a list of block numbers' }), { error: 'must be a list of block treadles' })
+      .min(1, { error: 'needs at least one block treadle' })
+      .max(MAX_SHAFTS, { error: 'has more block treadles than shafts' })
+      .optional(),
+    blockWeftColors: z.array(colourOrders, { error: 'must be a list, one entry per block' }).max(MAX_SHAFTS, { error: 'has more blocks than shafts' }).optional(),
   },
   { error: 'must be a block design object' },
 );
@@ -392,6 +398,7 @@ function checkDesignColours(problems: Problems, design: Record<string, unknown>,
   check(design.warpColors, 'warp colour');
   check(design.weftColors, 'weft colour');
   if (Array.isArray(design.blockWarpColors)) design.blockWarpColors.forEach((orders: unknown, b) => check(orders, `block ${b + 1} warp colour`));
+  if (Array.isArray(design.blockWeftColors)) design.blockWeftColors.forEach((orders: unknown, b) => check(orders, `block ${b + 1} weft colour`));
 }
 
 function resolveControl(raw: Record<string, unknown>): Draft['control'] {

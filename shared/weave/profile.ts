@@ -204,9 +204,16 @@ function checkProfile(profile: Profile, unit: ProfileUnit): { endsPerUnit: numbe
     if (!Number.isInteger(b) || b < 1) problems.push(`profile column ${i + 1}: ${String(b)} is not a block number (they start at 1)`);
     else blocks = Math.max(blocks, b);
   });
+  const treadles = profile.tieup?.length;
   profile.treadling.forEach((row, i) => {
     for (const b of row) {
-      if (!Number.isInteger(b) || b < 1) problems.push(`profile row ${i + 1}: ${String(b)} is not a block number (they start at 1)`);
+      if (treadles === undefined && (!Number.isInteger(b) || b < 1)) problems.push(`profile row ${i + 1}: ${String(b)} is not a block number (they start at 1)`);
+      if (treadles !== undefined && (!Number.isInteger(b) || b < 1 || b > treadles)) problems.push(`profile row ${i + 1}: ${String(b)} is not one of the ${plural(treadles, 'block treadle')}`);
+    }
+  });
+  profile.tieup?.forEach((blocksOf, t) => {
+    for (const b of blocksOf) {
+      if (!Number.isInteger(b) || b < 1) problems.push(`block treadle ${t + 1}: ${String(b)} is not a block number (they start at 1)`);
     }
   });
   const most = maxBlocks(unit);
@@ -231,8 +238,56 @@ function checkProfile(profile: Profile, unit: ProfileUnit): { endsPerUnit: numbe
   profile.blockWarpColors?.forEach((orders, b) => {
     if (orders && orders.length > 0) checkOrders(orders, unit.warpSets, `block ${b + 1} warp`);
   });
+  profile.blockWeftColors?.forEach((orders, b) => {
+    if (orders && orders.length > 0) checkOrders(orders, unit.weftSets, `block ${b + 1} weft`);
+  });
   if (problems.length > 0) throw new Error(`The profile cannot be expanded: ${problems.join('; ')}`);
   return { endsPerUnit, picksPerUnit, blocks };
+}
+
+/** The blocks showing the pattern in profile row `r`: the row itself, or through the block tie-up the blocks its treadles are tied to. */
+export function profileRowBlocks(design: Pick<BlockDesign, 'treadling' | 'tieup'>, r: number): number[] {
+  const row = design.treadling[r] ?? [];
+  if (!design.tieup) return row;
+  return [...new Set(row.flatMap((t) => design.tieup?.[t - 1] ?? []))].sort((a, b) => a - b);
+}
+
+/**
+ * The weft block of profile row `r`, for its own weft colours: its lowest block treadle under a
+ * block tie-up, else the lowest block showing the pattern in it; 0 for none.
+ */
+export function profileRowWeftBlock(design: Pick<BlockDesign, 'treadling'>, r: number): number {
+  const row = design.treadling[r] ?? [];
+  return row.length > 0 ? Math.min(...row) : 0;
+}
+
+/**
+ * A block lift plan given as a block tie-up and treadling, one block treadle per different row
+ * (in order of first use): the same cloth, for a weaver who treadles the blocks.
+ */
+export function toBlockTreadling(design: BlockDesign): BlockDesign {
+  if (design.tieup) return design;
+  const tieup: number[][] = [];
+  const index = new Map<string, number>();
+  const treadling = design.treadling.map((row) => {
+    if (row.length === 0) return [];
+    const key = [...row].sort((a, b) => a - b).join(',');
+    let t = index.get(key);
+    if (t === undefined) {
+      tieup.push([...row].sort((a, b) => a - b));
+      t = tieup.length;
+      index.set(key, t);
+    }
+    return [t];
+  });
+  return { ...design, tieup: tieup.length > 0 ? tieup : [[1]], treadling };
+}
+
+/** A block treadling given as the block lift plan it weaves (the tie-up dropped). */
+export function toBlockLiftPlan(design: BlockDesign): BlockDesign {
+  if (!design.tieup) return design;
+  const { tieup: _tieup, ...rest } = design;
+  return { ...rest, treadling: design.treadling.map((_, r) => profileRowBlocks(design, r)) };
 }
 
 /**
@@ -275,13 +330,16 @@ export function expandProfile(profile: Profile, unitId: ProfileUnitId, options: 
   const weftLayers: number[] = [];
   const weftBlocks: number[] = [];
   const weftSetCount = new Array<number>(unit.weftSets.length).fill(0);
-  profile.treadling.forEach((row, r) => {
-    const pattern = Array.from({ length: blocks }, (_, b) => row.includes(b + 1));
+  profile.treadling.forEach((_, r) => {
+    const shown = profileRowBlocks(profile, r);
+    const pattern = Array.from({ length: blocks }, (_, b) => shown.includes(b + 1));
+    const own = profile.blockWeftColors?.[profileRowWeftBlock(profile, r) - 1];
+    const orders = own && own.length > 0 ? own : profile.weftColors;
     for (let i = 0; i < picksPerUnit; i++) {
       const k = i % unit.height;
       lifts.push(recipe.lift(k, pattern));
       const set = recipe.pickSets[k];
-      const order = profile.weftColors[set];
+      const order = orders[set];
       weftColors.push(order[weftSetCount[set]++ % order.length]);
       weftLayers.push(set + 1);
       weftBlocks.push(r + 1);

@@ -76,6 +76,18 @@ export interface BlockDesign {
   weftColors: number[][];
   /** Per block (entry block − 1): its own warp colour orders per set; a missing or empty entry uses `warpColors`. */
   blockWarpColors?: number[][][];
+  /**
+   * A block tie-up: per block treadle, the blocks where it shows the pattern. When given, the
+   * profile rows are a block treadling: each row of `treadling` names the block treadles pressed
+   * (1-based), not blocks.
+   */
+  tieup?: number[][];
+  /**
+   * Per weft block (entry block − 1): its own weft colour orders per set; a missing or empty entry
+   * uses `weftColors`. A row's weft block is its (first) block treadle under a block tie-up, else
+   * the first block showing the pattern in it; a row showing none uses `weftColors`.
+   */
+  blockWeftColors?: number[][][];
 }
 
 export interface Draft {

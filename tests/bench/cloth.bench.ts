@@ -38,23 +38,29 @@ const RUNS = Number(arg('runs', '9'));
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 const ms = (n: number) => `${n.toFixed(1)} ms`;
 
-function timed(run: () => unknown): number[] {
+/** Median wall and CPU milliseconds of RUNS runs (CPU time, because a busy machine stretches wall time, not CPU time). */
+function timed(run: () => unknown): { wall: number; cpu: number } {
   run(); // warm up the JIT
-  const out: number[] = [];
+  const wall: number[] = [];
+  const cpu: number[] = [];
   for (let i = 0; i < RUNS; i++) {
+    const c0 = process.cpuUsage();
     const t0 = performance.now();
     run();
-    out.push(performance.now() - t0);
+    wall.push(performance.now() - t0);
+    const c = process.cpuUsage(c0);
+    cpu.push((c.user + c.system) / 1000);
   }
-  return out;
+  return { wall: median(wall), cpu: median(cpu) };
 }
 
 function printRows(place: string, rows: BenchRow[]): void {
   for (const r of rows) {
     const verdict = r.view <= r.goal ? 'within' : 'OVER';
+    const cpu = (v: number | undefined) => (v === undefined ? '' : ` [CPU ${ms(v)}]`);
     console.log(
-      `${place} | ${r.label}, ${r.face}: view ${ms(r.view)} (goal ≤ ${r.goal} ms: ${verdict}), new draft ${ms(r.newDraft)}; ` +
-        `renderThreads ${ms(r.threads)} vs flat cells ${ms(r.flat)} = ${(r.threads / r.flat).toFixed(1)} × (${r.width} × ${r.height} px)`,
+      `${place} | ${r.label}, ${r.face}: view ${ms(r.view)}${cpu(r.cpu?.view)} (goal ≤ ${r.goal} ms: ${verdict}), new draft ${ms(r.newDraft)}${cpu(r.cpu?.newDraft)}; ` +
+        `renderThreads ${ms(r.threads)}${cpu(r.cpu?.threads)} vs flat cells ${ms(r.flat)}${cpu(r.cpu?.flat)} = ${(r.threads / r.flat).toFixed(1)} × (${r.width} × ${r.height} px)`,
     );
   }
 }
@@ -79,7 +85,20 @@ function nodeRows(): BenchRow[] {
       let revision = 0;
       const newDraft = timed(() => work(request(++revision, 0)));
       const view = timed(() => work(request(revision, id % 2)));
-      rows.push({ label: c.label, face, goal: c.goal, width, height, view: median(view), newDraft: median(newDraft), threads: median(timed(threadsPic)), flat: median(timed(flat)) });
+      const threads = timed(threadsPic);
+      const flatTime = timed(flat);
+      rows.push({
+        label: c.label,
+        face,
+        goal: c.goal,
+        width,
+        height,
+        view: view.wall,
+        newDraft: newDraft.wall,
+        threads: threads.wall,
+        flat: flatTime.wall,
+        cpu: { view: view.cpu, newDraft: newDraft.cpu, threads: threads.cpu, flat: flatTime.cpu },
+      });
     }
   }
   return rows;

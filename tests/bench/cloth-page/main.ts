@@ -22,6 +22,8 @@ export interface BenchRow {
   newDraft: number;
   threads: number;
   flat: number;
+  /** The same as CPU time, where it can be measured (Node). */
+  cpu?: { view: number; newDraft: number; threads: number; flat: number };
 }
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];

@@ -14,6 +14,7 @@ import {
   type Orientation,
 } from '../../../shared/plan/loom-lists';
 import { expandWarp } from '../../../shared/plan/warp';
+import { alternateLayers, layersByShaft } from '../../../shared/weave/layer-lists';
 import { STRAIGHT_4, TWILL_22_LIFTS, makeDraft } from './draft-fixtures';
 
 const orientation = fc.record({
@@ -126,6 +127,34 @@ describe('lists from a draft', () => {
         for (const d of dents) expect(new Set(d.ends.map((e) => e.layer)).size).toBe(d.ends.length);
       }),
     );
+  });
+
+  it('lists and sleys ends and picks in the layers the layer rows give them', () => {
+    // An 8-shaft double weave threaded straight: the layer rows' quick fills put the ends on shafts
+    // 1-2 and 5-6 in layer 1 and the rest in layer 2 (by shaft), and the picks alternate 1-2.
+    const threading = Array.from({ length: 16 }, (_, i) => [(i % 8) + 1]);
+    const liftplan = Array.from({ length: 6 }, (_, i) => [(i % 8) + 1]);
+    let warpLayers = layersByShaft([], threading, 1, 8, 2);
+    warpLayers = layersByShaft(warpLayers, threading, 1, 2, 1);
+    warpLayers = layersByShaft(warpLayers, threading, 5, 6, 1);
+    const weftLayers = alternateLayers([], liftplan.length, 0, liftplan.length - 1);
+    const draft = makeDraft({ shafts: 8, threading, liftplan, warpLayers, weftLayers });
+    const expected = threading.map(([s]) => ([1, 2, 5, 6].includes(s) ? 1 : 2));
+    expect(warpLayers).toEqual(expected);
+
+    const warp = wholeWarp(draft);
+    const listed = threadingSteps(draft, warp, DEFAULT_ORIENTATION, 4).flatMap((g) => g.items);
+    expect(listed.map((step) => [step.end, step.layer]).sort((a, b) => a[0] - b[0])).toEqual(expected.map((l, i) => [i + 1, l]));
+    // Two ends per dent under the layer rule: each dent takes one end of each layer, layer 1 first,
+    // closing a dent early rather than take two of one layer.
+    const dents = sleyingSteps(warp, DEFAULT_ORIENTATION, [2], 4, { layerRule: true, layerOrder: [1, 2] }).flatMap((g) => g.items);
+    for (const d of dents) {
+      expect(new Set(d.ends.map((e) => e.layer)).size).toBe(d.ends.length);
+      d.ends.forEach((e) => expect(e.layer).toBe(expected[e.end - 1]));
+    }
+    // Ends 1, 2 (layer 1) then 3, 4 (layer 2): end 2 cannot join end 1, so dents close early.
+    expect(dents.slice(0, 3).map((d) => d.ends.map((e) => e.end))).toEqual([[1], [2, 3], [4]]);
+    expect(weavingList(draft, { totalPicks: 6 }).rows.map((r) => r.layer)).toEqual([1, 2, 1, 2, 1, 2]);
   });
 
   it('tie-on groups bundle every end once', () => {

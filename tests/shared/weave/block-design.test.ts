@@ -4,7 +4,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { createDraft, parseDraft, type DraftError } from '../../../shared/weave/draft';
 import { simulateLayers } from '../../../shared/weave/layers';
-import { applyProfile, expandProfile, maxBlocks, profileUnit } from '../../../shared/weave/profile';
+import { applyProfile, expandProfile, maxBlocks, profileUnit, toBlockLiftPlan, toBlockTreadling } from '../../../shared/weave/profile';
 import { changedRun, repeatWithChange } from '../../../shared/weave/sequences';
 import type { BlockDesign } from '../../../shared/weave/types';
 
@@ -116,6 +116,39 @@ describe('expanding block designs (worked by hand)', () => {
     expect(draft.warpColors).toEqual([DARK, LIGHT, DARK, LIGHT, RUST, LIGHT, RUST, LIGHT, DARK, LIGHT, DARK, LIGHT]);
   });
 
+  it('gives the picks of a weft block their own colour orders where the design says', () => {
+    // Rows 1 and 3 show block 1 (weft block 1), row 2 shows block 2 (weft block 2): weft block 2's
+    // picks take rust in layer 1 and light in layer 2; the others the design's own dark and light.
+    const draft = expandProfile(
+      { threading: [1, 2], treadling: [[1], [2], [1]], palette: PALETTE, warpColors: [[DARK], [LIGHT]], weftColors: [[DARK], [LIGHT]], blockWeftColors: [[], [[RUST], [LIGHT]]] },
+      'double-weave',
+    );
+    expect(draft.weftColors).toEqual([DARK, LIGHT, DARK, LIGHT, RUST, LIGHT, RUST, LIGHT, DARK, LIGHT, DARK, LIGHT]);
+    // So block 2 of row 2 (layer 1 up there) shows rust picks beside its dark ends on the front.
+    const sim = simulateLayers(draft);
+    const frontOfBlock2Row2 = new Set<number>();
+    for (let pick = 4; pick < 8; pick++) for (let end = 4; end < 8; end++) frontOfBlock2Row2.add(sim.front.colorAt(end, pick));
+    expect([...frontOfBlock2Row2].sort()).toEqual([DARK, RUST]);
+  });
+
+  it('weaves a block treadling through a block tie-up as the block lift plan it stands for', () => {
+    // Block treadle 1 shows block 1, treadle 2 shows block 2, treadle 3 both: rows press 1, 2, 3, 1,
+    // so the lift plan they stand for is [1], [2], [1, 2], [1].
+    const colours = { palette: PALETTE, warpColors: [[DARK], [LIGHT]], weftColors: [[DARK], [LIGHT]] };
+    const treadled: BlockDesign = { unit: 'double-weave', threading: [1, 2, 2, 1], tieup: [[1], [2], [1, 2]], treadling: [[1], [2], [3], [1]], ...colours };
+    const lifted: BlockDesign = { unit: 'double-weave', threading: [1, 2, 2, 1], treadling: [[1], [2], [1, 2], [1]], ...colours };
+    expect(expandProfile({ ...treadled, palette: PALETTE }, 'double-weave')).toEqual(expandProfile({ ...lifted, palette: PALETTE }, 'double-weave'));
+    expect(toBlockLiftPlan(treadled)).toEqual(lifted);
+    // And back: one block treadle per different row, in order of first use.
+    expect(toBlockTreadling(lifted)).toEqual(treadled);
+    expect(toBlockLiftPlan(toBlockTreadling({ ...lifted, treadling: [[2], [], [1, 2], [2]] }))).toEqual({ ...lifted, treadling: [[2], [], [1, 2], [2]] });
+    // A row pressing a treadle the tie-up does not have is refused, naming it.
+    expect(() => expandProfile({ ...treadled, treadling: [[4]], palette: PALETTE }, 'double-weave')).toThrow(/profile row 1: 4 is not one of the 3 block treadles/);
+    // Under a tie-up a row's weft block is its treadle: treadle 3's picks take their own colours.
+    const own = expandProfile({ ...treadled, palette: PALETTE, blockWeftColors: [[], [], [[RUST], [RUST]]] }, 'double-weave');
+    expect(own.weftColors).toEqual([...[DARK, LIGHT, DARK, LIGHT], ...[DARK, LIGHT, DARK, LIGHT], ...[RUST, RUST, RUST, RUST], ...[DARK, LIGHT, DARK, LIGHT]]);
+  });
+
   it('refuses more than 200 profile columns or rows', () => {
     const profile = { palette: PALETTE, warpColors: [[0], [1]], weftColors: [[0], [1]] };
     expect(() => expandProfile({ ...profile, threading: new Array(200).fill(1), treadling: new Array(200).fill([1]) }, 'double-weave')).not.toThrow();
@@ -139,6 +172,12 @@ describe('the block design in the draft document', () => {
     const draft = applyProfile(createDraft({ palette: PALETTE }), design).draft;
     expect(draft.profile).toEqual(design);
     expect(parseDraft(JSON.parse(JSON.stringify(draft)))).toEqual(draft);
+    // A block treadling with its tie-up, and weft colours per block, round-trip too.
+    const treadled: BlockDesign = { ...toBlockTreadling(design), blockWeftColors: [[[LIGHT], [DARK]]] };
+    const again = applyProfile(createDraft({ palette: PALETTE }), treadled).draft;
+    expect(again.profile).toEqual(treadled);
+    expect(parseDraft(JSON.parse(JSON.stringify(again)))).toEqual(again);
+    expect(again.liftplan).toEqual(applyProfile(createDraft({ palette: PALETTE }), { ...design, blockWeftColors: [[[LIGHT], [DARK]]] }).draft.liftplan);
   });
 
   it('loads the stored format-2 document with its block design', () => {

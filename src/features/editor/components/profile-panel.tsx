@@ -12,6 +12,8 @@ import {
   PROFILE_UNITS,
   profileUnit,
   renderCloth,
+  toBlockLiftPlan,
+  toBlockTreadling,
   type BlockDesign,
   type Draft,
   type DraftYarn,
@@ -35,7 +37,9 @@ const START: BlockDesign = {
 };
 
 /** Blocks the design uses or names. */
-const blocksIn = (d: BlockDesign) => Math.max(1, ...d.threading, ...d.treadling.flat());
+const blocksIn = (d: BlockDesign) => Math.max(1, ...d.threading, ...(d.tieup ? d.tieup.flat() : d.treadling.flat()));
+/** Most block treadles a block tie-up may have. */
+const MAX_BLOCK_TREADLES = 32;
 
 const clamp = (v: number, lo: number, hi: number) => Math.max(lo, Math.min(hi, Math.round(v) || lo));
 
@@ -45,8 +49,8 @@ function fitOrders(orders: readonly number[][], sets: number, paletteSize: numbe
 }
 
 /**
- * The block design: a profile (block threading and block lift plan) with a unit and colour orders
- * per layer, expanded live. It opens on the design kept with the draft, and "Use as the draft"
+ * The block design: a profile (block threading, and a block lift plan or a block tie-up and
+ * treadling) with a unit and colour orders per layer, per warp block and per weft block, expanded live. It opens on the design kept with the draft, and "Use as the draft"
  * expands it into the draft (keeping palette, yarns and what was drawn around it) and keeps it.
  */
 export function ProfilePanel() {
@@ -75,6 +79,7 @@ export function ProfilePanel() {
       warpColors: fitOrders(design.warpColors, unit.warpSets.length, palette.length),
       weftColors: fitOrders(design.weftColors, unit.weftSets.length, palette.length),
       blockWarpColors: design.blockWarpColors?.map((o) => (o.length > 0 ? fitOrders(o, unit.warpSets.length, palette.length) : [])),
+      blockWeftColors: design.blockWeftColors?.map((o) => (o.length > 0 ? fitOrders(o, unit.weftSets.length, palette.length) : [])),
     }),
     [design, unit, palette.length],
   );
@@ -90,8 +95,27 @@ export function ProfilePanel() {
   const setBlockCount = (n: number) => {
     const b = clamp(n, 1, most);
     setBlocks(b);
-    update({ threading: design.threading.map((x) => Math.min(x, b)), treadling: design.treadling.map((row) => row.filter((x) => x <= b)), blockWarpColors: design.blockWarpColors?.slice(0, b) });
+    const fewer = (rows: number[][]) => rows.map((row) => row.filter((x) => x <= b));
+    update({
+      threading: design.threading.map((x) => Math.min(x, b)),
+      ...(design.tieup ? { tieup: fewer(design.tieup) } : { treadling: fewer(design.treadling), blockWeftColors: design.blockWeftColors?.slice(0, b) }),
+      blockWarpColors: design.blockWarpColors?.slice(0, b),
+    });
   };
+  const treadled = design.tieup !== undefined;
+  const treadles = design.tieup?.length ?? 0;
+  const setTreadleCount = (n: number) => {
+    const t = clamp(n, 1, MAX_BLOCK_TREADLES);
+    const tieup = design.tieup ?? [];
+    update({
+      tieup: Array.from({ length: t }, (_, i) => tieup[i] ?? []),
+      treadling: design.treadling.map((row) => row.filter((x) => x <= t)),
+      blockWeftColors: design.blockWeftColors?.slice(0, t),
+    });
+  };
+  /** Weft blocks: a row's block treadle under a tie-up, else the first block it shows. */
+  const weftBlocks = treadled ? treadles : blocks;
+  const rowChoices = Array.from({ length: treadled ? treadles : blocks }, (_, i) => i + 1);
   const use = () => {
     try {
       const result = applyProfile(editor.doc.get().draft, fitted);
@@ -130,6 +154,18 @@ export function ProfilePanel() {
           </select>
         </label>
         <NumberField label="Blocks" value={blocks} min={1} max={most} onChange={setBlockCount} />
+        <label className="flex items-center gap-1">
+          Rows as
+          <select
+            value={treadled ? 'treadling' : 'liftplan'}
+            onChange={(e) => setDesign((d) => (e.target.value === 'treadling' ? toBlockTreadling(d) : toBlockLiftPlan(d)))}
+            className="rounded border border-field bg-surface px-1"
+          >
+            <option value="liftplan">a block lift plan</option>
+            <option value="treadling">a block tie-up and treadling</option>
+          </select>
+        </label>
+        {treadled && <NumberField label="Block treadles" value={treadles} min={1} max={MAX_BLOCK_TREADLES} onChange={setTreadleCount} />}
         <NumberField
           label="Profile columns"
           value={design.threading.length}
@@ -183,19 +219,45 @@ export function ProfilePanel() {
       </div>
       <FillColumns columns={design.threading.length} blocks={blocks} onFill={(from, to, b) => update({ threading: design.threading.map((x, i) => (i >= from && i <= to ? b : x)) })} />
 
+      {design.tieup && (
+        <div className="overflow-x-auto">
+          <table className="border-collapse" aria-label="Block tie-up: the blocks each block treadle shows the pattern in">
+            <tbody>
+              {design.tieup.map((shows, t) => (
+                <tr key={t}>
+                  <th scope="row" className="pr-1 text-right font-normal whitespace-nowrap text-muted">
+                    Treadle {t + 1}
+                  </th>
+                  {blockNumbers.map((b) => (
+                    <td key={b} className="p-0">
+                      <button
+                        type="button"
+                        aria-label={`Treadle ${t + 1} shows the pattern in block ${b}`}
+                        aria-pressed={shows.includes(b)}
+                        onClick={() => update({ tieup: design.tieup!.map((x, i) => (i !== t ? x : toggled(x, b))) })}
+                        className="block size-6 border border-field bg-surface aria-pressed:bg-ink"
+                      />
+                    </td>
+                  ))}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
       <div className="max-h-64 overflow-auto">
-        <table className="border-collapse" aria-label="Profile rows: the blocks showing the pattern (layer 1 on top) in each row">
+        <table className="border-collapse" aria-label={treadled ? 'Block treadling: the block treadles pressed in each row' : 'Profile rows: the blocks showing the pattern (layer 1 on top) in each row'}>
           <tbody>
             {design.treadling.map((row, r) => (
               <tr key={r}>
                 <th scope="row" className="pr-1 text-right font-normal whitespace-nowrap text-muted">
                   Row {r + 1}
                 </th>
-                {blockNumbers.map((b) => (
+                {rowChoices.map((b) => (
                   <td key={b} className="p-0">
                     <button
                       type="button"
-                      aria-label={`Row ${r + 1}, block ${b} shows the pattern`}
+                      aria-label={treadled ? `Row ${r + 1}, treadle ${b} pressed` : `Row ${r + 1}, block ${b} shows the pattern`}
                       aria-pressed={row.includes(b)}
                       onClick={() => update({ treadling: design.treadling.map((x, i) => (i !== r ? x : toggled(x, b))) })}
                       className="block size-6 border border-field bg-surface aria-pressed:bg-ink"
@@ -207,7 +269,12 @@ export function ProfilePanel() {
           </tbody>
         </table>
       </div>
-      <FillRows rows={design.treadling.length} blocks={blocks} onFill={(from, to, b, show) => update({ treadling: design.treadling.map((x, i) => (i < from || i > to ? x : show === x.includes(b) ? x : toggled(x, b))) })} />
+      <FillRows
+        rows={design.treadling.length}
+        choices={rowChoices.length}
+        what={treadled ? 'treadle' : 'block'}
+        onFill={(from, to, b, show) => update({ treadling: design.treadling.map((x, i) => (i < from || i > to ? x : show === x.includes(b) ? x : toggled(x, b))) })}
+      />
 
       <fieldset className="flex flex-col gap-1">
         <legend className="font-medium">Colour orders (each repeats over its layer’s threads)</legend>
@@ -233,6 +300,28 @@ export function ProfilePanel() {
               {own.length > 0 &&
                 unit.warpSets.map((set, i) => (
                   <ColourOrder key={i} label={`Block ${b} warp, ${set}`} palette={palette} yarns={yarns} order={own[i]} onChange={(o) => setOwn(replaced(own, i, o))} />
+                ))}
+            </div>
+          );
+        })}
+        {Array.from({ length: weftBlocks }, (_, i) => i + 1).map((b) => {
+          const own = fitted.blockWeftColors?.[b - 1] ?? [];
+          const rows = treadled ? `Rows on treadle ${b}` : `Rows where block ${b} is the first to show the pattern`;
+          const name = treadled ? `Treadle ${b} weft` : `Block ${b} weft`;
+          const setOwn = (orders: number[][]) => {
+            const list = Array.from({ length: weftBlocks }, (_, k) => fitted.blockWeftColors?.[k] ?? []);
+            list[b - 1] = orders;
+            update({ blockWeftColors: list.some((o) => o.length > 0) ? list : undefined });
+          };
+          return (
+            <div key={`wb${b}`} className="flex flex-col gap-1">
+              <label className="flex items-center gap-1">
+                <input type="checkbox" checked={own.length > 0} onChange={(e) => setOwn(e.target.checked ? fitted.weftColors.map((o) => [...o]) : [])} />
+                {rows} have their own weft colours
+              </label>
+              {own.length > 0 &&
+                unit.weftSets.map((set, i) => (
+                  <ColourOrder key={i} label={`${name}, ${set}`} palette={palette} yarns={yarns} order={own[i]} onChange={(o) => setOwn(replaced(own, i, o))} />
                 ))}
             </div>
           );
@@ -290,21 +379,21 @@ function FillColumns({ columns, blocks, onFill }: { columns: number; blocks: num
   );
 }
 
-/** Shows or hides the pattern of one block over a range of profile rows. */
-function FillRows({ rows, blocks, onFill }: { rows: number; blocks: number; onFill: (from: number, to: number, block: number, show: boolean) => void }) {
+/** Shows or hides the pattern of one block (presses or lets go one block treadle) over a range of profile rows. */
+function FillRows({ rows, choices, what, onFill }: { rows: number; choices: number; what: 'block' | 'treadle'; onFill: (from: number, to: number, block: number, show: boolean) => void }) {
   const [range, setRange] = useState({ from: 1, to: rows, block: 1 });
-  const r = { from: clamp(range.from, 1, rows), to: clamp(range.to, 1, rows), block: clamp(range.block, 1, blocks) };
+  const r = { from: clamp(range.from, 1, rows), to: clamp(range.to, 1, rows), block: clamp(range.block, 1, choices) };
   const fill = (show: boolean) => onFill(Math.min(r.from, r.to) - 1, Math.max(r.from, r.to) - 1, r.block, show);
   return (
     <div className="flex flex-wrap items-center gap-1" role="group" aria-label="Fill profile rows">
       <NumberField label="Rows" value={r.from} min={1} max={rows} onChange={(from) => setRange({ ...r, from })} />
       <NumberField label="to" value={r.to} min={1} max={rows} onChange={(to) => setRange({ ...r, to })} />
-      <NumberField label="block" value={r.block} min={1} max={blocks} onChange={(block) => setRange({ ...r, block })} />
+      <NumberField label={what} value={r.block} min={1} max={choices} onChange={(block) => setRange({ ...r, block })} />
       <button type="button" className="rounded border border-field px-2 hover:bg-sunken" onClick={() => fill(true)}>
-        Show
+        {what === 'block' ? 'Show' : 'Press'}
       </button>
       <button type="button" className="rounded border border-field px-2 hover:bg-sunken" onClick={() => fill(false)}>
-        Hide
+        {what === 'block' ? 'Hide' : 'Let go'}
       </button>
     </div>
   );
