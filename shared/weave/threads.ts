@@ -307,40 +307,22 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
       }
       // Edges and gaps: the background, then the layer beneath in its shadow, then the layer on
       // top, each laid over what is there by how much of the pixel it covers (the thread
-      // underneath at a crossing first). Written out in full: this is the hottest loop of the views.
+      // underneath at a crossing first). Written out with plain numbers: this is the hottest loop.
       let r = bgR;
       let g = bgG;
       let b = bgB;
       const below = lower ? lower[cellRow + ec] : top;
-      if (below !== top) {
-        const axLow = endLayer[et] === below ? ax : 0;
-        const ayLow = weftLayer === below ? ay : 0;
-        if (axLow > 0 || ayLow > 0) {
-          const lw = (warpBase[et] + level(xs.shade[x] * warpAlong[et] * LOWER_LAYER_SHADE)) * 4;
-          const lf = (weftBase[pt] + level(weftShade * along * LOWER_LAYER_SHADE)) * 4;
-          const i1 = up ? lf : lw;
-          const a1 = up ? ayLow : axLow;
-          const i2 = up ? lw : lf;
-          const a2 = up ? axLow : ayLow;
-          if (a1 > 0) {
-            r += (bytes[i1] - r) * a1;
-            g += (bytes[i1 + 1] - g) * a1;
-            b += (bytes[i1 + 2] - b) * a1;
-          }
-          if (a2 > 0) {
-            r += (bytes[i2] - r) * a2;
-            g += (bytes[i2 + 1] - g) * a2;
-            b += (bytes[i2 + 2] - b) * a2;
-          }
-        }
-      }
-      if (axTop > 0 || ayTop > 0) {
-        const tw = warp * 4;
-        const tf = weft * 4;
-        const i1 = up ? tf : tw;
-        const a1 = up ? ayTop : axTop;
-        const i2 = up ? tw : tf;
-        const a2 = up ? axTop : ayTop;
+      const axLow = below !== top && endLayer[et] === below ? ax : 0;
+      const ayLow = below !== top && weftLayer === below ? ay : 0;
+      for (let pass = axLow > 0 || ayLow > 0 ? 0 : 1; pass < 2; pass++) {
+        const w = pass === 0 ? warpBase[et] + level(xs.shade[x] * warpAlong[et] * LOWER_LAYER_SHADE) : warp;
+        const f = pass === 0 ? weftBase[pt] + level(weftShade * along * LOWER_LAYER_SHADE) : weft;
+        const wa = pass === 0 ? axLow : axTop;
+        const fa = pass === 0 ? ayLow : ayTop;
+        const i1 = (up ? f : w) * 4;
+        const a1 = up ? fa : wa;
+        const i2 = (up ? w : f) * 4;
+        const a2 = up ? wa : fa;
         if (a1 > 0) {
           r += (bytes[i1] - r) * a1;
           g += (bytes[i1 + 1] - g) * a1;

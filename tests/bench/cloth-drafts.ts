@@ -1,7 +1,14 @@
 // Drafts for the cloth-view benchmark (tests/bench/cloth.bench.ts), built the same way in Node and
 // in the browser page it loads.
+import { threadSizesFor } from '../../shared/plan/thread-sizes';
+import { computeDrawdown } from '../../shared/weave/drawdown';
+import { simulateLayers } from '../../shared/weave/layers';
+import { renderCells } from '../../shared/weave/picture';
 import { expandProfile } from '../../shared/weave/profile';
+import { renderThreads } from '../../shared/weave/threads';
 import type { Draft } from '../../shared/weave/types';
+import type { ClothRequest } from '../../src/features/editor/canvas/cloth-work';
+import { paintFaceCells } from './cloth-page/flat-cells';
 
 export interface ClothBenchCase {
   label: string;
@@ -50,4 +57,40 @@ export function benchDraft(ends: number, picks: number): Draft {
       { id: 'rust', name: 'Rust 8/2 cotton', color: 2 },
     ],
   };
+}
+
+/** One view to time: its picture drawn both ways, and the worker request for it. */
+export interface BenchView {
+  case: ClothBenchCase;
+  face: 'colour' | 'front';
+  width: number;
+  height: number;
+  threads(): unknown;
+  flat(): unknown;
+  /** The worker's request for the whole picture, of draft revision `revision`, moved `x` pixels across. */
+  request(id: number, revision: number, x: number): ClothRequest;
+}
+
+/** Every case's colour view and front, set up to time. */
+export function benchViews(): BenchView[] {
+  return CLOTH_BENCH_CASES.flatMap((c) => {
+    const draft = benchDraft(c.ends, c.picks);
+    const drawdown = computeDrawdown(draft);
+    const layers = simulateLayers(draft, undefined, { drawdown });
+    const sizes = threadSizesFor(draft);
+    return (['colour', 'front'] as const).map((face): BenchView => {
+      const threads = () => renderThreads({ draft, drawdown, layers: face === 'colour' ? undefined : layers, sizes }, { face, pixelsPerInch: c.zoom * sizes.endsPerInch });
+      const { width, height } = threads();
+      const cells = paintFaceCells(draft, drawdown, face === 'colour' ? null : layers);
+      return {
+        case: c,
+        face,
+        width,
+        height,
+        threads,
+        flat: () => renderCells(cells, c.ends, c.picks, { cellSize: c.zoom, window: { x: 0, y: 0, width, height } }),
+        request: (id, revision, x) => ({ id, draft, revision, views: [face], floatLimit: 7, tiles: 1, frames: { [face]: { zoom: c.zoom, x, y: 0, width, height } } }),
+      };
+    });
+  });
 }

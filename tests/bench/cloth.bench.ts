@@ -20,14 +20,9 @@ import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium } from 'playwright-core';
 import { build, preview } from 'vite';
-import { computeDrawdown } from '../../shared/weave/drawdown';
-import { simulateLayers } from '../../shared/weave/layers';
-import { renderCells } from '../../shared/weave/picture';
-import { renderThreads } from '../../shared/weave/threads';
-import { threadSizesFor } from '../../shared/plan/thread-sizes';
-import { createClothWorker, type ClothRequest } from '../../src/features/editor/canvas/cloth-work';
-import { paintFaceCells } from './cloth-page/flat-cells';
-import { benchDraft, CLOTH_BENCH_CASES } from './cloth-drafts';
+import { createClothWorker } from '../../src/features/editor/canvas/cloth-work';
+import { benchViews } from './cloth-drafts';
+import { timeRuns } from './timing';
 import type { BenchRow } from './cloth-page/main';
 
 const arg = (name: string, fallback: string) => {
@@ -35,24 +30,9 @@ const arg = (name: string, fallback: string) => {
   return i >= 0 ? process.argv[i + 1] : fallback;
 };
 const RUNS = Number(arg('runs', '9'));
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 const ms = (n: number) => `${n.toFixed(1)} ms`;
 
-/** Median wall and CPU milliseconds of RUNS runs (CPU time, because a busy machine stretches wall time, not CPU time). */
-function timed(run: () => unknown): { wall: number; cpu: number } {
-  run(); // warm up the JIT
-  const wall: number[] = [];
-  const cpu: number[] = [];
-  for (let i = 0; i < RUNS; i++) {
-    const c0 = process.cpuUsage();
-    const t0 = performance.now();
-    run();
-    wall.push(performance.now() - t0);
-    const c = process.cpuUsage(c0);
-    cpu.push((c.user + c.system) / 1000);
-  }
-  return { wall: median(wall), cpu: median(cpu) };
-}
+const timed = (run: () => unknown) => timeRuns(RUNS, run);
 
 function printRows(place: string, rows: BenchRow[]): void {
   for (const r of rows) {
@@ -66,42 +46,27 @@ function printRows(place: string, rows: BenchRow[]): void {
 }
 
 function nodeRows(): BenchRow[] {
-  const rows: BenchRow[] = [];
-  for (const c of CLOTH_BENCH_CASES) {
-    const draft = benchDraft(c.ends, c.picks);
-    const drawdown = computeDrawdown(draft);
-    const layers = simulateLayers(draft, undefined, { drawdown });
-    const sizes = threadSizesFor(draft);
-    for (const face of ['colour', 'front'] as const) {
-      const pixelsPerInch = c.zoom * sizes.endsPerInch;
-      const threadsPic = () => renderThreads({ draft, drawdown, layers: face === 'colour' ? undefined : layers, sizes }, { face, pixelsPerInch });
-      const { width, height } = threadsPic();
-      const cells = paintFaceCells(draft, drawdown, face === 'colour' ? null : layers);
-      const flat = () => renderCells(cells, c.ends, c.picks, { cellSize: c.zoom, window: { x: 0, y: 0, width, height } });
-      const frame = (x: number) => ({ zoom: c.zoom, x, y: 0, width, height });
-      let id = 0;
-      const work = createClothWorker();
-      const request = (revision: number, x: number): ClothRequest => ({ id: ++id, draft, revision, views: [face], floatLimit: 7, tiles: 1, frames: { [face]: frame(x) } });
-      let revision = 0;
-      const newDraft = timed(() => work(request(++revision, 0)));
-      const view = timed(() => work(request(revision, id % 2)));
-      const threads = timed(threadsPic);
-      const flatTime = timed(flat);
-      rows.push({
-        label: c.label,
-        face,
-        goal: c.goal,
-        width,
-        height,
-        view: view.wall,
-        newDraft: newDraft.wall,
-        threads: threads.wall,
-        flat: flatTime.wall,
-        cpu: { view: view.cpu, newDraft: newDraft.cpu, threads: threads.cpu, flat: flatTime.cpu },
-      });
-    }
-  }
-  return rows;
+  return benchViews().map((v) => {
+    let id = 0;
+    let revision = 0;
+    const work = createClothWorker();
+    const newDraft = timed(() => work(v.request(++id, ++revision, 0)));
+    const view = timed(() => work(v.request(++id, revision, id % 2)));
+    const threads = timed(v.threads);
+    const flat = timed(v.flat);
+    return {
+      label: v.case.label,
+      face: v.face,
+      goal: v.case.goal,
+      width: v.width,
+      height: v.height,
+      view: view.wall,
+      newDraft: newDraft.wall,
+      threads: threads.wall,
+      flat: flat.wall,
+      cpu: { view: view.cpu, newDraft: newDraft.cpu, threads: threads.cpu, flat: flat.cpu },
+    };
+  });
 }
 
 async function browserRows(): Promise<BenchRow[]> {

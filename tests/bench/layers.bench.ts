@@ -4,13 +4,9 @@ import { availableParallelism, loadavg } from 'node:os';
 import { computeDrawdown } from '../../shared/weave/drawdown';
 import { simulateLayers } from '../../shared/weave/layers';
 import { expandProfile } from '../../shared/weave/profile';
+import { timeRuns } from './timing';
 
 const RUNS = 15;
-
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)];
-}
 
 // 256 profile columns and rows of 4-end, 4-pick units over 8 blocks (32 shafts): 1024 × 1024 cells.
 const draft = expandProfile(
@@ -25,23 +21,12 @@ const draft = expandProfile(
 );
 const unlinked = { ...draft, blocks: undefined };
 
-// CPU time is printed beside wall time because a busy machine stretches wall time, not CPU time.
 function time(label: string, run: () => unknown, withDrawdown: boolean): void {
-  run(); // warm up the JIT
-  const wall: number[] = [];
-  const cpu: number[] = [];
-  for (let i = 0; i < RUNS; i++) {
-    const c0 = process.cpuUsage();
-    const t0 = performance.now();
-    run();
-    wall.push(performance.now() - t0);
-    const c = process.cpuUsage(c0);
-    cpu.push((c.user + c.system) / 1000);
-  }
+  const t = timeRuns(RUNS, run);
   const note = withDrawdown ? 'including computeDrawdown' : 'drawdown given';
   console.log(
-    `${label} (${note}): median ${median(wall).toFixed(1)} ms wall, ${median(cpu).toFixed(1)} ms CPU over ${RUNS} runs ` +
-      `(wall min ${Math.min(...wall).toFixed(1)}, max ${Math.max(...wall).toFixed(1)})`,
+    `${label} (${note}): median ${t.wall.toFixed(1)} ms wall, ${t.cpu.toFixed(1)} ms CPU over ${RUNS} runs ` +
+      `(wall min ${t.wallMin.toFixed(1)}, max ${t.wallMax.toFixed(1)})`,
   );
 }
 

@@ -3,43 +3,9 @@
 // change; then moves one end to a wrong shaft and finds one item in Checks for it.
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { screenshot, signIn, useAppAndBrowser } from '../helpers/e2e';
+import { screenshot, settledCanvas, signIn, useAppAndBrowser } from '../helpers/e2e';
 
 const app = useAppAndBrowser();
-
-/** A fingerprint of the pixels of the canvases under a test id. */
-async function fingerprint(page: Page, id: string): Promise<string> {
-  return page.evaluate((testId) => {
-    let h = 2166136261;
-    for (const c of [...document.querySelectorAll(`[data-testid="${testId}"] canvas`)] as HTMLCanvasElement[]) {
-      const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
-      for (let i = 0; i < data.length; i += 4) h = Math.imul(h ^ ((data[i] << 16) | (data[i + 1] << 8) | data[i + 2]), 16777619) >>> 0;
-    }
-    return h.toString(16);
-  }, id);
-}
-
-/**
- * Waits until a view's pixels stop changing, and returns their fingerprint. Given `unlike`, first
- * waits (up to 60 s: the views wait for edits to pause, and a busy machine is slow) for the pixels
- * to differ from it, so a repaint still to come is not taken for the settled picture.
- */
-async function settledView(page: Page, id: string, unlike?: string): Promise<string> {
-  await page.getByTestId(id).locator('canvas').first().waitFor();
-  if (unlike !== undefined) await expect.poll(() => fingerprint(page, id), { timeout: 60_000, interval: 250 }).not.toBe(unlike);
-  let last = await fingerprint(page, id);
-  let stableSince = Date.now();
-  const deadline = Date.now() + 20_000;
-  while (Date.now() < deadline) {
-    await page.waitForTimeout(250);
-    const next = await fingerprint(page, id);
-    if (next !== last) {
-      last = next;
-      stableSince = Date.now();
-    } else if (Date.now() - stableSince >= 2000) break;
-  }
-  return last;
-}
 
 async function showFront(page: Page) {
   const button = page.getByRole('group', { name: 'Views to show' }).getByRole('button', { name: 'Front', exact: true });
@@ -103,13 +69,13 @@ describe('block design for a two-block double weave', () => {
     await design.getByText('(kept with this draft)').waitFor();
     expect(await design.getByLabel('Warp, Layer 1, place 2').inputValue()).toBe('1');
     await showFront(page);
-    const before = await settledView(page, 'view-front');
+    const before = (await settledCanvas(page, 'view-front')).hash;
     await screenshot(page, 'block-design-used');
 
     // Column 1 moves from block 1 to block 2: the faces change there.
     await design.getByRole('button', { name: 'Column 1, block 2' }).click();
     await design.getByRole('button', { name: 'Use as the draft' }).click();
-    const after = await settledView(page, 'view-front', before);
+    const after = (await settledCanvas(page, 'view-front', before)).hash;
     expect(after).not.toBe(before);
     await screenshot(page, 'block-design-changed');
 

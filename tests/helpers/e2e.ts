@@ -145,3 +145,52 @@ export async function signIn(page: Page, server: AppServer, email: string, passw
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL(/\/drafts$/);
 }
+
+/** What a view's canvases show: a fingerprint of their pixels and how many different colours. */
+export interface CanvasLook {
+  hash: string;
+  colours: number;
+}
+
+/** The pixels of every canvas under a test id, as a {@link CanvasLook}. */
+export async function canvasLook(page: Page, testId: string): Promise<CanvasLook> {
+  return page.evaluate((id) => {
+    let h = 2166136261;
+    const seen = new Set<number>();
+    for (const c of [...document.querySelectorAll(`[data-testid="${id}"] canvas`)] as HTMLCanvasElement[]) {
+      const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+      for (let i = 0; i < data.length; i += 4) {
+        const v = (data[i] << 16) | (data[i + 1] << 8) | data[i + 2];
+        seen.add(v);
+        h = Math.imul(h ^ v, 16777619) >>> 0;
+      }
+    }
+    return { hash: h.toString(16), colours: seen.size };
+  }, testId);
+}
+
+/**
+ * Waits until the canvases under a test id have shown the same pixels for two seconds (the cloth
+ * views repaint once edits pause) and returns what they show. Given `unlike` (a hash), first waits
+ * up to 60 s for the pixels to differ from it, so a repaint still to come is not taken for the
+ * settled picture on a busy machine.
+ */
+export async function settledCanvas(page: Page, testId: string, unlike?: string): Promise<CanvasLook> {
+  await page.getByTestId(testId).locator('canvas').first().waitFor();
+  let last = await canvasLook(page, testId);
+  for (const until = Date.now() + 60_000; unlike !== undefined && last.hash === unlike && Date.now() < until; ) {
+    await page.waitForTimeout(250);
+    last = await canvasLook(page, testId);
+  }
+  let stableSince = Date.now();
+  const deadline = Date.now() + 30_000;
+  while (Date.now() < deadline) {
+    await page.waitForTimeout(250);
+    const next = await canvasLook(page, testId);
+    if (next.hash !== last.hash) {
+      last = next;
+      stableSince = Date.now();
+    } else if (Date.now() - stableSince >= 2000) break;
+  }
+  return last;
+}

@@ -1,13 +1,7 @@
 // The cloth-view benchmark's page (tests/bench/cloth.bench.ts): the editor's real cloth worker,
 // timed from postMessage to its answer, and the thread and flat-cell renderers on the page's thread.
-import { threadSizesFor } from '../../../shared/plan/thread-sizes';
-import { computeDrawdown } from '../../../shared/weave/drawdown';
-import { simulateLayers } from '../../../shared/weave/layers';
-import { renderCells } from '../../../shared/weave/picture';
-import { renderThreads } from '../../../shared/weave/threads';
 import type { ClothRequest, ClothResult } from '../../../src/features/editor/canvas/cloth-work';
-import { benchDraft, CLOTH_BENCH_CASES } from '../cloth-drafts';
-import { paintFaceCells } from './flat-cells';
+import { benchViews } from '../cloth-drafts';
 
 /** One line of the benchmark's figures (milliseconds, medians). */
 export interface BenchRow {
@@ -42,7 +36,7 @@ async function timed(runs: number, run: () => unknown): Promise<number> {
 async function runClothBench(runs: number): Promise<BenchRow[]> {
   const worker = new Worker(new URL('../../../src/features/editor/canvas/cloth.worker.ts', import.meta.url), { type: 'module' });
   let id = 0;
-  const ask = (request: Omit<ClothRequest, 'id'>) =>
+  const ask = (request: ClothRequest) =>
     new Promise<ClothResult>((resolve) => {
       const mine = ++id;
       worker.onmessage = (e: MessageEvent<ClothResult>) => {
@@ -52,24 +46,12 @@ async function runClothBench(runs: number): Promise<BenchRow[]> {
     });
   const rows: BenchRow[] = [];
   let revision = 0;
-  for (const c of CLOTH_BENCH_CASES) {
-    const draft = benchDraft(c.ends, c.picks);
-    const drawdown = computeDrawdown(draft);
-    const layers = simulateLayers(draft, undefined, { drawdown });
-    const sizes = threadSizesFor(draft);
-    for (const face of ['colour', 'front'] as const) {
-      const threadsPic = () => renderThreads({ draft, drawdown, layers: face === 'colour' ? undefined : layers, sizes }, { face, pixelsPerInch: c.zoom * sizes.endsPerInch });
-      const { width, height } = threadsPic();
-      const cells = paintFaceCells(draft, drawdown, face === 'colour' ? null : layers);
-      const flat = () => renderCells(cells, c.ends, c.picks, { cellSize: c.zoom, window: { x: 0, y: 0, width, height } });
-      const request = (rev: number, x: number) => ({ draft, revision: rev, views: [face], floatLimit: 7, tiles: 1, frames: { [face]: { zoom: c.zoom, x, y: 0, width, height } } });
-      const check = await ask(request(++revision, 0));
-      const got = check.pictures[face];
-      if (!got || got.width !== width || got.height !== height) throw new Error(`the worker drew ${got?.width} × ${got?.height}, not ${width} × ${height}`);
-      const newDraft = await timed(runs, () => ask(request(++revision, 0)));
-      const view = await timed(runs, () => ask(request(revision, id % 2)));
-      rows.push({ label: c.label, face, goal: c.goal, width, height, view, newDraft, threads: await timed(runs, threadsPic), flat: await timed(runs, flat) });
-    }
+  for (const v of benchViews()) {
+    const got = (await ask(v.request(0, ++revision, 0))).pictures[v.face];
+    if (!got || got.width !== v.width || got.height !== v.height) throw new Error(`the worker drew ${got?.width} × ${got?.height}, not ${v.width} × ${v.height}`);
+    const newDraft = await timed(runs, () => ask(v.request(0, ++revision, 0)));
+    const view = await timed(runs, () => ask(v.request(0, revision, id % 2)));
+    rows.push({ label: v.case.label, face: v.face, goal: v.case.goal, width: v.width, height: v.height, view, newDraft, threads: await timed(runs, v.threads), flat: await timed(runs, v.flat) });
   }
   worker.terminate();
   return rows;

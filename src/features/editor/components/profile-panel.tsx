@@ -221,53 +221,25 @@ export function ProfilePanel() {
 
       {design.tieup && (
         <div className="overflow-x-auto">
-          <table className="border-collapse" aria-label="Block tie-up: the blocks each block treadle shows the pattern in">
-            <tbody>
-              {design.tieup.map((shows, t) => (
-                <tr key={t}>
-                  <th scope="row" className="pr-1 text-right font-normal whitespace-nowrap text-muted">
-                    Treadle {t + 1}
-                  </th>
-                  {blockNumbers.map((b) => (
-                    <td key={b} className="p-0">
-                      <button
-                        type="button"
-                        aria-label={`Treadle ${t + 1} shows the pattern in block ${b}`}
-                        aria-pressed={shows.includes(b)}
-                        onClick={() => update({ tieup: design.tieup!.map((x, i) => (i !== t ? x : toggled(x, b))) })}
-                        className="block size-6 border border-field bg-surface aria-pressed:bg-ink"
-                      />
-                    </td>
-                  ))}
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <ToggleTable
+            label="Block tie-up: the blocks each block treadle shows the pattern in"
+            rows={design.tieup}
+            rowName={(t) => `Treadle ${t + 1}`}
+            choices={blockNumbers}
+            cellName={(t, b) => `Treadle ${t + 1} shows the pattern in block ${b}`}
+            onChange={(tieup) => update({ tieup })}
+          />
         </div>
       )}
       <div className="max-h-64 overflow-auto">
-        <table className="border-collapse" aria-label={treadled ? 'Block treadling: the block treadles pressed in each row' : 'Profile rows: the blocks showing the pattern (layer 1 on top) in each row'}>
-          <tbody>
-            {design.treadling.map((row, r) => (
-              <tr key={r}>
-                <th scope="row" className="pr-1 text-right font-normal whitespace-nowrap text-muted">
-                  Row {r + 1}
-                </th>
-                {rowChoices.map((b) => (
-                  <td key={b} className="p-0">
-                    <button
-                      type="button"
-                      aria-label={treadled ? `Row ${r + 1}, treadle ${b} pressed` : `Row ${r + 1}, block ${b} shows the pattern`}
-                      aria-pressed={row.includes(b)}
-                      onClick={() => update({ treadling: design.treadling.map((x, i) => (i !== r ? x : toggled(x, b))) })}
-                      className="block size-6 border border-field bg-surface aria-pressed:bg-ink"
-                    />
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <ToggleTable
+          label={treadled ? 'Block treadling: the block treadles pressed in each row' : 'Profile rows: the blocks showing the pattern (layer 1 on top) in each row'}
+          rows={design.treadling}
+          rowName={(r) => `Row ${r + 1}`}
+          choices={rowChoices}
+          cellName={(r, b) => (treadled ? `Row ${r + 1}, treadle ${b} pressed` : `Row ${r + 1}, block ${b} shows the pattern`)}
+          onChange={(treadling) => update({ treadling })}
+        />
       </div>
       <FillRows
         rows={design.treadling.length}
@@ -284,48 +256,36 @@ export function ProfilePanel() {
         {unit.weftSets.map((set, i) => (
           <ColourOrder key={`f${i}`} label={`Weft, ${set}`} palette={palette} yarns={yarns} order={fitted.weftColors[i]} onChange={(o) => update({ weftColors: replaced(fitted.weftColors, i, o) })} />
         ))}
-        {blockNumbers.map((b) => {
-          const own = fitted.blockWarpColors?.[b - 1] ?? [];
-          const setOwn = (orders: number[][]) => {
-            const list = Array.from({ length: blocks }, (_, i) => fitted.blockWarpColors?.[i] ?? []);
-            list[b - 1] = orders;
-            update({ blockWarpColors: list.some((o) => o.length > 0) ? list : undefined });
-          };
-          return (
-            <div key={b} className="flex flex-col gap-1">
-              <label className="flex items-center gap-1">
-                <input type="checkbox" checked={own.length > 0} onChange={(e) => setOwn(e.target.checked ? fitted.warpColors.map((o) => [...o]) : [])} />
-                Block {b} has its own warp colours
-              </label>
-              {own.length > 0 &&
-                unit.warpSets.map((set, i) => (
-                  <ColourOrder key={i} label={`Block ${b} warp, ${set}`} palette={palette} yarns={yarns} order={own[i]} onChange={(o) => setOwn(replaced(own, i, o))} />
-                ))}
-            </div>
-          );
-        })}
-        {Array.from({ length: weftBlocks }, (_, i) => i + 1).map((b) => {
-          const own = fitted.blockWeftColors?.[b - 1] ?? [];
-          const rows = treadled ? `Rows on treadle ${b}` : `Rows where block ${b} is the first to show the pattern`;
-          const name = treadled ? `Treadle ${b} weft` : `Block ${b} weft`;
-          const setOwn = (orders: number[][]) => {
-            const list = Array.from({ length: weftBlocks }, (_, k) => fitted.blockWeftColors?.[k] ?? []);
-            list[b - 1] = orders;
-            update({ blockWeftColors: list.some((o) => o.length > 0) ? list : undefined });
-          };
-          return (
-            <div key={`wb${b}`} className="flex flex-col gap-1">
-              <label className="flex items-center gap-1">
-                <input type="checkbox" checked={own.length > 0} onChange={(e) => setOwn(e.target.checked ? fitted.weftColors.map((o) => [...o]) : [])} />
-                {rows} have their own weft colours
-              </label>
-              {own.length > 0 &&
-                unit.weftSets.map((set, i) => (
-                  <ColourOrder key={i} label={`${name}, ${set}`} palette={palette} yarns={yarns} order={own[i]} onChange={(o) => setOwn(replaced(own, i, o))} />
-                ))}
-            </div>
-          );
-        })}
+        {blockNumbers.map((b) => (
+          <OwnColourOrders
+            key={`w${b}`}
+            label={`Block ${b} has its own warp colours`}
+            name={`Block ${b} warp`}
+            sets={unit.warpSets}
+            defaults={fitted.warpColors}
+            perBlock={fitted.blockWarpColors}
+            count={blocks}
+            block={b}
+            palette={palette}
+            yarns={yarns}
+            onChange={(blockWarpColors) => update({ blockWarpColors })}
+          />
+        ))}
+        {Array.from({ length: weftBlocks }, (_, i) => i + 1).map((b) => (
+          <OwnColourOrders
+            key={`f${b}`}
+            label={`${treadled ? `Rows on treadle ${b}` : `Rows where block ${b} is the first to show the pattern`} have their own weft colours`}
+            name={treadled ? `Treadle ${b} weft` : `Block ${b} weft`}
+            sets={unit.weftSets}
+            defaults={fitted.weftColors}
+            perBlock={fitted.blockWeftColors}
+            count={weftBlocks}
+            block={b}
+            palette={palette}
+            yarns={yarns}
+            onChange={(blockWeftColors) => update({ blockWeftColors })}
+          />
+        ))}
       </fieldset>
 
       {'error' in expanded ? (
@@ -396,6 +356,71 @@ function FillRows({ rows, choices, what, onFill }: { rows: number; choices: numb
         {what === 'block' ? 'Hide' : 'Let go'}
       </button>
     </div>
+  );
+}
+
+interface OwnColourOrdersProps {
+  /** The check box's words. */
+  label: string;
+  /** What each order is called, before its set ("Block 2 warp"). */
+  name: string;
+  sets: readonly string[];
+  /** The design's own orders, copied when the block is given its own. */
+  defaults: readonly number[][];
+  /** Per block, its own orders ([] for none); undefined when no block has any. */
+  perBlock: readonly number[][][] | undefined;
+  count: number;
+  /** 1-based. */
+  block: number;
+  palette: readonly string[];
+  yarns: readonly DraftYarn[];
+  onChange: (perBlock: number[][][] | undefined) => void;
+}
+
+/** One block's own colour orders (warp or weft), switched on and off with a check box. */
+function OwnColourOrders({ label, name, sets, defaults, perBlock, count, block, palette, yarns, onChange }: OwnColourOrdersProps) {
+  const own = perBlock?.[block - 1] ?? [];
+  const setOwn = (orders: number[][]) => {
+    const list = Array.from({ length: count }, (_, i) => perBlock?.[i] ?? []);
+    list[block - 1] = orders;
+    onChange(list.some((o) => o.length > 0) ? list : undefined);
+  };
+  return (
+    <div className="flex flex-col gap-1">
+      <label className="flex items-center gap-1">
+        <input type="checkbox" checked={own.length > 0} onChange={(e) => setOwn(e.target.checked ? defaults.map((o) => [...o]) : [])} />
+        {label}
+      </label>
+      {own.length > 0 && sets.map((set, i) => <ColourOrder key={i} label={`${name}, ${set}`} palette={palette} yarns={yarns} order={own[i]} onChange={(o) => setOwn(replaced(own, i, o))} />)}
+    </div>
+  );
+}
+
+/** Rows of numbers chosen among `choices` (blocks or treadles), one button per row and choice, pressed when the row holds it. */
+function ToggleTable({ label, rows, rowName, choices, cellName, onChange }: { label: string; rows: readonly number[][]; rowName: (row: number) => string; choices: readonly number[]; cellName: (row: number, choice: number) => string; onChange: (rows: number[][]) => void }) {
+  return (
+    <table className="border-collapse" aria-label={label}>
+      <tbody>
+        {rows.map((row, r) => (
+          <tr key={r}>
+            <th scope="row" className="pr-1 text-right font-normal whitespace-nowrap text-muted">
+              {rowName(r)}
+            </th>
+            {choices.map((c) => (
+              <td key={c} className="p-0">
+                <button
+                  type="button"
+                  aria-label={cellName(r, c)}
+                  aria-pressed={row.includes(c)}
+                  onClick={() => onChange(rows.map((x, i) => (i !== r ? x : toggled(x, c))))}
+                  className="block size-6 border border-field bg-surface aria-pressed:bg-ink"
+                />
+              </td>
+            ))}
+          </tr>
+        ))}
+      </tbody>
+    </table>
   );
 }
 
