@@ -184,6 +184,22 @@ function shadedPalette(palette: readonly string[]): Uint32Array {
 
 const level = (shade: number) => (shade * (LEVELS - 1) + 0.5) | 0;
 
+/** A number per item, the same for items whose `values` are the same (a class of equal rows). */
+function classesOf(count: number, values: (i: number) => Uint32Array | Uint8Array): Int32Array {
+  const ids = new Map<string, number>();
+  const out = new Int32Array(count);
+  for (let i = 0; i < count; i++) {
+    const key = values(i).join(',');
+    let id = ids.get(key);
+    if (id === undefined) {
+      id = ids.size;
+      ids.set(key, id);
+    }
+    out[i] = id;
+  }
+  return out;
+}
+
 /**
  * Draws the cloth thread by thread: each end and pick as wide as its yarn, spaced by the sett, so
  * an open sett shows gaps and a thick yarn a wider stripe. Each thread is shaded across its width
@@ -260,6 +276,13 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
   // where it meets each end (lit over an end, shaded under it).
   const warpAlong = new Float32Array(ends);
   const weftLit = new Float32Array(ends);
+  // Cloth repeats: a picture row is drawn once and copied wherever the same rows of the drawdown
+  // (its pick's and, per layer, the picks before and after it), the same layers on top and
+  // beneath, the same weft and the same place across the pick come again.
+  const interlacing = classesOf(picks, (p) => bits.subarray(p * stride, (p + 1) * stride));
+  const above = upper ? classesOf(picks, (p) => upper.subarray(p * ends, (p + 1) * ends)) : null;
+  const beneath = lower ? classesOf(picks, (p) => lower.subarray(p * ends, (p + 1) * ends)) : null;
+  const drawnRows = new Map<string, number>();
   for (let y = 0; y < H; y++) {
     const pc = ys.cell[y];
     if (pc < 0) continue;
@@ -267,6 +290,19 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
     const ay = ys.cover[y];
     const weftLayer = pl ? pl[pt] : 1;
     const weftShade = ys.shade[y];
+    let key = `${ay},${weftShade},${weftBase[pt]},${weftLayer},${interlacing[pt]},${above ? above[pc] : 0},${beneath ? beneath[pc] : 0}`;
+    for (let l = 1; l <= layers; l++) {
+      const o = l * H + y;
+      const p0 = ys.before[o];
+      const p1 = ys.after[o];
+      key += `;${p0 < 0 ? -1 : interlacing[p0]},${p1 < 0 ? -1 : interlacing[p1]},${ys.between[o]}`;
+    }
+    const same = drawnRows.get(key);
+    if (same !== undefined) {
+      words.copyWithin(y * W, same * W, (same + 1) * W);
+      continue;
+    }
+    drawnRows.set(key, y);
     const row = pt * stride;
     // An end is lit over the picks of its own layer it lies over, graded between them.
     for (let e = 0; e < ends; e++) {
