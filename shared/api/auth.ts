@@ -13,9 +13,13 @@ export const PASSWORD_MIN_LENGTH = 10;
 /** argon2 accepts long inputs, but an upper bound keeps hashing cost predictable. */
 export const PASSWORD_MAX_LENGTH = 200;
 
-const email = z.string().trim().toLowerCase().pipe(z.email().max(254));
-const password = z.string().min(PASSWORD_MIN_LENGTH, `At least ${PASSWORD_MIN_LENGTH} characters`)
-  .max(PASSWORD_MAX_LENGTH);
+// The messages are the weaver's: the sign-in and account forms show them beside the field, and the
+// server sends the same words when it refuses a body.
+const email = z.string().trim().toLowerCase().pipe(z.email({
+  error: (issue) => (issue.input === '' ? 'Enter your e-mail address.' : 'Write the whole e-mail address, such as ana@example.com.'),
+}).max(254, 'That e-mail address is too long.'));
+const password = z.string().min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
+  .max(PASSWORD_MAX_LENGTH, `Use at most ${PASSWORD_MAX_LENGTH} characters.`);
 
 /** A page of this site to go to once signed in: a path, never another site (`//host` or `/\\host`). */
 export const nextPathSchema = z.string().max(500).regex(/^\/(?![/\\])/, 'must be a path on this site');
@@ -23,7 +27,7 @@ export const nextPathSchema = z.string().max(500).regex(/^\/(?![/\\])/, 'must be
 export const signUpBodySchema = z.object({
   email,
   password,
-  name: z.string().trim().min(1).max(100),
+  name: z.string().trim().min(1, 'Enter your name.').max(100, 'Use at most 100 characters.'),
   /** Where the link in the mail leads once the account is made (an invitation's join page, say). */
   next: nextPathSchema.optional(),
 });
@@ -43,7 +47,7 @@ export type ConfirmSignUpBody = z.infer<typeof confirmSignUpBodySchema>;
 export const signInBodySchema = z.object({
   email,
   // Sign-in does not enforce the length rule: a wrong password is a 401, not a 400.
-  password: z.string().min(1).max(PASSWORD_MAX_LENGTH),
+  password: z.string().min(1, 'Enter your password.').max(PASSWORD_MAX_LENGTH),
 });
 export type SignInBody = z.infer<typeof signInBodySchema>;
 
@@ -55,6 +59,10 @@ export const resetBodySchema = z.object({
   password,
 });
 export type ResetBody = z.infer<typeof resetBodySchema>;
+
+/** The reset page's form: the new password twice (the token comes from the mailed link). */
+export const resetFormSchema = z.object({ password, confirm: z.string() })
+  .refine((f) => f.password === f.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
 
 export const membershipSchema = z.object({
   studioId: z.number().int(),

@@ -44,13 +44,26 @@ describe('sign-in form', () => {
   it('shows the API field errors beside their inputs, linked for screen readers', async () => {
     mockApi({ ...signedOut, 'POST /api/auth/sign-in': apiError(400, 'invalid', 'Check the form.', { email: 'Not an e-mail address.' }) });
     renderApp('/sign-in');
-    fill(await screen.findByLabelText('E-mail'), 'wren');
+    fill(await screen.findByLabelText('E-mail'), 'wren@example.test');
     fill(screen.getByLabelText('Password'), 'whatever-it-is');
     fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
     const message = await screen.findByText('Not an e-mail address.');
     const input = screen.getByLabelText('E-mail');
     expect(input.getAttribute('aria-invalid')).toBe('true');
     expect(input.getAttribute('aria-describedby')).toContain(message.closest('p')?.id);
+  });
+
+  it('checks the address with the same schema as the server and says what to write, sending nothing', async () => {
+    const server = mockApi(signedOut);
+    renderApp('/sign-in');
+    fill(await screen.findByLabelText('E-mail'), 'wren');
+    fill(screen.getByLabelText('Password'), 'whatever-it-is');
+    fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
+    expect(await screen.findByText('Write the whole e-mail address, such as ana@example.com.')).toBeTruthy();
+    expect(server.to('POST /api/auth/sign-in')).toHaveLength(0);
+    // Corrected, the message goes as the weaver types.
+    fill(screen.getByLabelText('E-mail'), 'wren@example.test');
+    await waitFor(() => expect(screen.queryByText('Write the whole e-mail address, such as ana@example.com.')).toBeNull());
   });
 
   it('signs in and goes to the drafts', async () => {

@@ -1,4 +1,4 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
+import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes } from 'react';
 
 const control =
   'block w-full rounded-md border border-field bg-surface px-3 py-2 text-sm text-ink ' +
@@ -43,6 +43,8 @@ export function FieldError({ id, message }: { id?: string; message: string }) {
 }
 
 export interface FieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'id'> {
+  /** The input itself, for a form library that reads its value (react-hook-form's `register`). */
+  ref?: Ref<HTMLInputElement>;
   label: string;
   /** An error for this field, usually from the API's `fields`. */
   error?: string;

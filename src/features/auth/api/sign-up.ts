@@ -12,12 +12,6 @@ export interface SignUpInput {
 }
 
 /**
- * PASSWORD_MIN_LENGTH of shared/api/auth. NOTE: repeated, not imported: that module brings zod
- * (85 kB) into the page; tests/web/contract-constants.test.ts keeps the two equal.
- */
-export const MIN_PASSWORD_LENGTH = 10;
-
-/**
  * Asks for an account: the server answers 202 whatever the address and mails it a link that makes
  * the account (or, for an address that has one, a note to its owner).
  */

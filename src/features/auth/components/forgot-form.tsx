@@ -1,17 +1,18 @@
-import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
 import { Field } from '../../../components/ui/field';
 import { fieldErrorsOf } from '../../../lib/api-client';
+import { fieldMessage, useSchemaForm } from '../../../lib/schema-form';
+import { forgotBodySchema } from '../../../../shared/api/auth';
 import { useRequestReset } from '../api/request-reset';
 
 /** Asks for a reset link. The answer is the same for any address, so it reveals no accounts. */
 export function ForgotForm() {
   const request = useRequestReset();
-  const [email, setEmail] = useState('');
-  const [missing, setMissing] = useState<string | undefined>();
+  const form = useSchemaForm(forgotBodySchema, { email: '' });
   const apiFields = fieldErrorsOf(request.error);
+  const email = form.getValues('email');
 
   if (request.isSuccess) {
     return (
@@ -30,12 +31,7 @@ export function ForgotForm() {
     );
   }
 
-  const submit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const trimmed = email.trim();
-    setMissing(trimmed ? undefined : 'Enter your e-mail address.');
-    if (trimmed) request.mutate({ email: trimmed });
-  };
+  const submit = form.handleSubmit((body) => request.mutate(body));
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
@@ -43,13 +39,11 @@ export function ForgotForm() {
       <p className="text-sm text-muted">Enter the e-mail address you signed up with and we will send a link to choose a new password.</p>
       <Field
         label="E-mail"
-        name="email"
         type="email"
         autoComplete="email"
         required
-        value={email}
-        onChange={(e) => setEmail(e.target.value)}
-        error={missing ?? apiFields.email}
+        error={fieldMessage(form.formState.errors, apiFields, 'email')}
+        {...form.register('email')}
       />
       <Button type="submit" variant="primary" busy={request.isPending} busyLabel="Sending…">
         Send the link

@@ -1,9 +1,10 @@
-import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
 import { Field } from '../../../components/ui/field';
 import { fieldErrorsOf, isApiError } from '../../../lib/api-client';
+import { fieldMessage, useSchemaForm } from '../../../lib/schema-form';
+import { signInBodySchema } from '../../../../shared/api/auth';
 import { useSignIn } from '../api/sign-in';
 
 export interface SignInFormProps {
@@ -17,21 +18,10 @@ export interface SignInFormProps {
  */
 export function SignInForm({ next }: SignInFormProps) {
   const signIn = useSignIn();
-  const [missing, setMissing] = useState<Record<string, string>>({});
-  const fields = { ...fieldErrorsOf(signIn.error), ...missing };
-
-  const submit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const data = new FormData(event.currentTarget);
-    const email = String(data.get('email') ?? '').trim();
-    const password = String(data.get('password') ?? '');
-    const errors: Record<string, string> = {};
-    if (!email) errors.email = 'Enter your e-mail address.';
-    if (!password) errors.password = 'Enter your password.';
-    setMissing(errors);
-    if (Object.keys(errors).length > 0) return;
-    signIn.mutate({ email, password });
-  };
+  const form = useSchemaForm(signInBodySchema, { email: '', password: '' });
+  const apiFields = fieldErrorsOf(signIn.error);
+  const message = (name: string) => fieldMessage(form.formState.errors, apiFields, name);
+  const submit = form.handleSubmit((body) => signIn.mutate(body));
 
   const problem = isApiError(signIn.error, 401)
     ? 'That e-mail and password do not match an account.'
@@ -41,11 +31,11 @@ export function SignInForm({ next }: SignInFormProps) {
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
-      {signIn.isError && Object.keys(fieldErrorsOf(signIn.error)).length === 0 && (
+      {signIn.isError && Object.keys(apiFields).length === 0 && (
         <ErrorNotice title="Could not sign in" error={signIn.error} message={problem} />
       )}
-      <Field label="E-mail" name="email" type="email" autoComplete="email" required error={fields.email} />
-      <Field label="Password" name="password" type="password" autoComplete="current-password" required error={fields.password} />
+      <Field label="E-mail" type="email" autoComplete="email" required error={message('email')} {...form.register('email')} />
+      <Field label="Password" type="password" autoComplete="current-password" required error={message('password')} {...form.register('password')} />
       <Button type="submit" variant="primary" busy={signIn.isPending} busyLabel="Signing in…">
         Sign in
       </Button>

@@ -1,10 +1,12 @@
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
 import { Field } from '../../../components/ui/field';
 import { fieldErrorsOf } from '../../../lib/api-client';
-import { MIN_PASSWORD_LENGTH, useSignUp } from '../api/sign-up';
+import { fieldMessage, useSchemaForm } from '../../../lib/schema-form';
+import { PASSWORD_MIN_LENGTH, signUpBodySchema } from '../../../../shared/api/auth';
+import { useSignUp } from '../api/sign-up';
 
 /**
  * Name, e-mail and password for a new account. The account is made from the link mailed to the
@@ -12,10 +14,10 @@ import { MIN_PASSWORD_LENGTH, useSignUp } from '../api/sign-up';
  */
 export function SignUpForm({ next }: { next?: string }) {
   const signUp = useSignUp();
-  const [local, setLocal] = useState<Record<string, string>>({});
+  const form = useSchemaForm(signUpBodySchema, { name: '', email: '', password: '' });
   const [sentTo, setSentTo] = useState('');
   const apiFields = fieldErrorsOf(signUp.error);
-  const fields: Record<string, string> = { ...apiFields, ...local };
+  const message = (name: string) => fieldMessage(form.formState.errors, apiFields, name);
   const showNotice = signUp.isError && Object.keys(apiFields).length === 0;
 
   if (signUp.isSuccess) {
@@ -38,39 +40,26 @@ export function SignUpForm({ next }: { next?: string }) {
     );
   }
 
-  const submit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const data = new FormData(event.currentTarget);
-    const input = {
-      name: String(data.get('name') ?? '').trim(),
-      email: String(data.get('email') ?? '').trim(),
-      password: String(data.get('password') ?? ''),
-    };
-    const errors: Record<string, string> = {};
-    if (!input.name) errors.name = 'Enter your name.';
-    if (!input.email) errors.email = 'Enter your e-mail address.';
-    if (input.password.length < MIN_PASSWORD_LENGTH) errors.password = `Use at least ${MIN_PASSWORD_LENGTH} characters.`;
-    setLocal(errors);
-    if (Object.keys(errors).length > 0) return;
+  const submit = form.handleSubmit((body) => {
     signUp.reset();
-    setSentTo(input.email);
-    signUp.mutate(next ? { ...input, next } : input);
-  };
+    setSentTo(body.email);
+    signUp.mutate(next ? { ...body, next } : body);
+  });
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       {showNotice && <ErrorNotice title="Could not create the account" error={signUp.error} />}
-      <Field label="Name" name="name" autoComplete="name" required error={fields.name} hint="Shown to people in your studios." />
-      <Field label="E-mail" name="email" type="email" autoComplete="email" required error={fields.email} />
+      <Field label="Name" autoComplete="name" required error={message('name')} hint="Shown to people in your studios." {...form.register('name')} />
+      <Field label="E-mail" type="email" autoComplete="email" required error={message('email')} {...form.register('email')} />
       <Field
         label="Password"
-        name="password"
         type="password"
         autoComplete="new-password"
         required
-        minLength={MIN_PASSWORD_LENGTH}
-        error={fields.password}
-        hint={`At least ${MIN_PASSWORD_LENGTH} characters.`}
+        minLength={PASSWORD_MIN_LENGTH}
+        error={message('password')}
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
+        {...form.register('password')}
       />
       <Button type="submit" variant="primary" busy={signUp.isPending} busyLabel="Creating account…">
         Create account
