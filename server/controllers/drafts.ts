@@ -20,8 +20,8 @@ export async function create({ app, req, res, body }: Ctx<CreateDraftBody, unkno
   res.status(201).json({ draft: await createFromBody(app.models, req.user!.id, body) });
 }
 
-export async function update({ app, res, params, body, role }: Ctx<UpdateDraftBody, unknown, { id: number }>) {
-  await updateDraft(app.models, params.id, body);
+export async function update({ app, req, res, params, body, role }: Ctx<UpdateDraftBody, unknown, { id: number }>) {
+  await updateDraft(app.models, req.user!.id, params.id, body);
   res.json({ draft: await draftDetail(app.models, params.id, role!) });
 }
 

@@ -1,7 +1,7 @@
 import { Op, type WhereOptions } from 'sequelize';
 import { roleRank } from '../../shared/api/auth';
 import type { CreateDraftBody, DraftSummary, ForkBody, LineageDraft, LineageResponse, UpdateDraftBody } from '../../shared/api';
-import type { Draft } from '../../shared/weave';
+import { startingDraft, StartingDraftError, type Draft } from '../../shared/weave';
 import { forbidden, HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { DraftRow } from '../models/draft';
@@ -23,14 +23,27 @@ async function summaryOf(models: Models, row: DraftRow, userId: number): Promise
   return summary;
 }
 
-/** POST /api/drafts: a draft from the document given (with at least one end and pick); the name given wins over the document's. */
+/** The first version from the New draft form's choices; a choice the loom cannot take is a 422 naming its field. */
+function startingDocument(name: string, start: NonNullable<CreateDraftBody['start']>): Draft {
+  try {
+    return startingDraft({ name, ...start });
+  } catch (err) {
+    if (!(err instanceof StartingDraftError)) throw err;
+    throw new HttpError(422, 'unprocessable', err.message, { [`start.${err.field}`]: err.message });
+  }
+}
+
+/**
+ * POST /api/drafts: a draft from the document given (with at least one end and pick) or built from
+ * the starting choices; the name given wins over the document's.
+ */
 export async function createFromBody(models: Models, userId: number, body: CreateDraftBody): Promise<DraftSummary> {
   const studioId = await checkStudioWriter(models, userId, body.studioId);
-  if (body.document === undefined) {
+  if (body.document === undefined && body.start === undefined) {
     throw new HttpError(422, 'unprocessable', 'A new draft needs its document, with at least one end and one pick',
       { document: 'is missing: give the draft to start with, with at least one end and one pick' });
   }
-  const base = parseDocument(body.document);
+  const base = body.document === undefined ? startingDocument(body.name, body.start!) : parseDocument(body.document);
   const document: Draft = { ...base, name: body.name };
   const row = await createDraft(models, { ownerId: userId, studioId, document, tags: body.tags ?? [] });
   return summaryOf(models, row, userId);
@@ -43,12 +56,39 @@ export async function createFromDocument(models: Models, userId: number, documen
   return summaryOf(models, row, userId);
 }
 
-/** Rename and retag; the document keeps its own name until the next save. */
-export async function updateDraft(models: Models, draftId: number, body: UpdateDraftBody): Promise<void> {
-  const changes: Partial<Pick<DraftRow, 'name' | 'tags'>> = {};
-  if (body.name !== undefined) changes.name = body.name;
+/**
+ * A draft's details. A new name goes into the stored document too (same version: only the name
+ * changed), so exports and the next opening agree with the library. A move into a studio needs the
+ * editor role there; a move back into personal drafts is for the draft's author, who must still be an
+ * editor or owner where it is (the route checked that).
+ */
+export async function updateDraft(models: Models, userId: number, draftId: number, body: UpdateDraftBody): Promise<void> {
+  const row = await models.Draft.findByPk(draftId, { attributes: ['id', 'ownerId', 'studioId', 'document'] });
+  if (!row) throw notFound('No such draft');
+  const changes: Partial<Pick<DraftRow, 'name' | 'tags' | 'document' | 'studioId'>> = {};
+  if (body.name !== undefined) {
+    changes.name = body.name;
+    const stored = typeof row.document === 'string' ? JSON.parse(row.document) as Draft : row.document as Draft;
+    changes.document = { ...stored, name: body.name };
+  }
   if (body.tags !== undefined) changes.tags = [...new Set(body.tags)];
-  await models.Draft.update(changes, { where: { id: draftId } });
+  if (body.studioId !== undefined && body.studioId !== row.studioId) {
+    if (body.studioId === null) {
+      if (row.ownerId !== userId) throw forbidden('Only the weaver who made this draft can take it into her own drafts');
+      changes.studioId = null;
+    } else {
+      changes.studioId = await checkStudioWriter(models, userId, body.studioId);
+    }
+  }
+  await models.Draft.sequelize!.transaction(async (transaction) => {
+    await models.Draft.update(changes, { where: { id: draftId }, transaction });
+    if (body.name === undefined) return;
+    // The newest version holds the same document: it takes the name too, so its exports agree.
+    const latest = await models.DraftVersion.findOne({ where: { draftId }, order: [['version', 'DESC']], attributes: ['id', 'document'], transaction });
+    if (!latest) return;
+    const doc = typeof latest.document === 'string' ? JSON.parse(latest.document) as Draft : latest.document as Draft;
+    await models.DraftVersion.update({ document: { ...doc, name: body.name } }, { where: { id: latest.id }, transaction });
+  });
 }
 
 /** Deletes a draft with its history, comments and links; its photos are removed from storage afterwards. */
@@ -71,12 +111,13 @@ export async function forkDraft(models: Models, userId: number, sourceId: number
       { palette: `give exactly ${source.document.palette.length} colours, one for each colour of the draft` });
   }
   const document: Draft = { ...source.document, name: body.name, palette: body.palette ?? source.document.palette };
-  const from = await models.Draft.findByPk(sourceId, { attributes: ['name'] });
+  const from = await models.Draft.findByPk(sourceId, { attributes: ['name', 'tags'] });
   const row = await createDraft(models, {
     ownerId: userId,
     studioId,
     document,
-    tags: [],
+    // A colourway is the same cloth: the weaver's words for it still apply.
+    tags: from?.tags ?? [],
     message: `New colourway of “${from?.name ?? 'a draft'}” version ${source.version}`,
     parent: { draftId: sourceId, version: source.version },
   });

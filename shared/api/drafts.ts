@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { STARTING_STRUCTURES } from '../weave/starting-draft';
+import { PROFILE_UNIT_IDS } from '../weave/types';
 import { studioRoleSchema } from './auth';
 
 export const draftSorts = ['updated', 'name', 'size'] as const;
@@ -55,19 +57,44 @@ export const draftDetailResponseSchema = z.object({ draft: draftDetailSchema });
 const draftName = z.string().trim().min(1).max(200);
 const tagList = z.array(z.string().trim().min(1).max(50)).max(20);
 
-/** POST /api/drafts: a new draft from its document (422 without one, or with no ends or picks); personal unless a studio is named. */
+/**
+ * What a new draft starts with when it is made from the New draft form: the loom (shafts, and
+ * treadles with a tie-up, or 0 treadles for a lift plan), ends and picks, and a starting structure.
+ * Only the types are checked here; the engine checks the values and its 422 names the field
+ * (`start.shafts`, …) with the reason.
+ */
+export const startingDraftSchema = z.object({
+  shafts: z.number(),
+  treadles: z.number(),
+  ends: z.number(),
+  picks: z.number(),
+  structure: z.enum(STARTING_STRUCTURES),
+  /** The unit of a block design. */
+  unit: z.enum(PROFILE_UNIT_IDS).optional(),
+});
+export type StartingDraftBody = z.infer<typeof startingDraftSchema>;
+
+/**
+ * POST /api/drafts: a new draft, personal unless a studio is named, from its whole `document` (422
+ * without one, or with no ends or picks) or from `start`, the choices of the New draft form.
+ */
 export const createDraftBodySchema = z.object({
   name: draftName,
   document: z.unknown().optional(),
+  start: startingDraftSchema.optional(),
   studioId: z.number().int().positive().optional(),
   tags: tagList.optional(),
 });
 export type CreateDraftBody = z.infer<typeof createDraftBodySchema>;
 export const draftCreatedResponseSchema = z.object({ draft: draftSummarySchema });
 
-/** PATCH /api/drafts/:id: rename and retag (no new version: the document is unchanged). */
-export const updateDraftBodySchema = z.object({ name: draftName.optional(), tags: tagList.optional() })
-  .refine((b) => b.name !== undefined || b.tags !== undefined, { error: 'Give a name or tags' });
+/**
+ * PATCH /api/drafts/:id: a draft's details, no new version. A new name reaches the library and the
+ * stored document; `studioId` moves the draft into a studio (editor or owner there), and `null` takes
+ * it back into its author's own drafts.
+ */
+export const updateDraftBodySchema = z.object({ name: draftName.optional(), tags: tagList.optional(), studioId: z.number().int().positive().nullable().optional() })
+  .refine((b) => b.name !== undefined || b.tags !== undefined || b.studioId !== undefined, { error: 'Give a name, tags or a studio' });
 export type UpdateDraftBody = z.infer<typeof updateDraftBodySchema>;
 
 /**

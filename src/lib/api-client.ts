@@ -92,6 +92,15 @@ async function loadCsrfToken(): Promise<string> {
   return pendingToken;
 }
 
+/**
+ * Fetches the CSRF token now, so a later write needs no request before its own. A save sent as the
+ * weaver leaves (keepalive) must start at once: an ordinary token request first would be cut off by
+ * the next page load, and the save never sent.
+ */
+export async function prepareWrites(): Promise<void> {
+  await loadCsrfToken();
+}
+
 /** Builds `/api/x?a=1` from a path and a query object, in the object's key order. */
 export function withQuery(path: string, query: Record<string, QueryValue> = {}): string {
   const params = new URLSearchParams();

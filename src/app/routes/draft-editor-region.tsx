@@ -1,3 +1,4 @@
+import { useLocation } from 'react-router-dom';
 import { ErrorNotice } from '../../components/ui/error-notice';
 import { DraftEditor } from '../../features/editor';
 import { useSaveDraft } from '../../features/library/api/save-draft';
@@ -9,13 +10,15 @@ import { useParsedDraft } from '../use-parsed-draft';
  * settled edit as a new version on top of the one they opened.
  */
 export function DraftEditorRegion({ draft }: { draft: DraftDetail }) {
-  const save = useSaveDraft(draft.id);
+  const readOnly = draft.role === 'viewer';
+  const save = useSaveDraft(draft.id, { canSave: !readOnly });
   const parsed = useParsedDraft(draft.document);
+  // A draft just started as a block design opens at the block design.
+  const openBlockDesign = (useLocation().state as { openBlockDesign?: boolean } | null)?.openBlockDesign === true;
 
   if ('error' in parsed) {
     return <ErrorNotice title="This draft cannot be opened" error={parsed.error} />;
   }
-  const readOnly = draft.role === 'viewer';
   return (
     <section aria-label="Draft editor" id="draft-editor" className="h-full min-h-0">
       <DraftEditor
@@ -26,6 +29,7 @@ export function DraftEditorRegion({ draft }: { draft: DraftDetail }) {
         readOnly={readOnly}
         onSave={readOnly ? undefined : save}
         guardNavigation
+        showBlockDesign={openBlockDesign && !readOnly}
       />
     </section>
   );

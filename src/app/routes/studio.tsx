@@ -1,5 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { useNavigate, useParams } from 'react-router-dom';
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { buttonClasses } from '../../components/ui/button';
 import { sessionQueryOptions, useSignedInUser } from '../../features/auth/api/get-session';
 import { InviteForm } from '../../features/invitations/components/invite-form';
 import { StudioMembers } from '../../features/studio/components/studio-members';
@@ -18,11 +19,20 @@ export function StudioRoute() {
     void queryClient.invalidateQueries({ queryKey: sessionQueryOptions().queryKey });
     navigate('/studios', { replace: true });
   };
+  const role = user.memberships.find((m) => m.studioId === id)?.role;
   return (
     <>
       <title>Studio · Shedwright</title>
+      {(role === 'owner' || role === 'editor') && (
+        <p className="mb-4 flex flex-wrap items-center gap-3">
+          <Link to={`/drafts/new?studio=${id}`} className={buttonClasses('primary')}>
+            New draft
+          </Link>
+          <Link to={`/drafts?studio=${id}`}>This studio&apos;s drafts</Link>
+        </p>
+      )}
       <StudioMembers key={id} studioId={id} currentUserId={user.id} onLeft={onLeft} />
-      {user.memberships.some((m) => m.studioId === id && m.role === 'owner') && <div className="mt-6"><InviteForm studioId={id} /></div>}
+      {role === 'owner' && <div className="mt-6"><InviteForm studioId={id} /></div>}
     </>
   );
 }

@@ -43,7 +43,8 @@ export function draftPageRoutes(draft: DraftDetail, user: SessionUser = sessionU
     'GET /api/yarns': { body: { yarns: [] } },
     [`GET ${base}/lineage`]: { body: lineage(draft) },
     [`GET ${base}/comments`]: { body: { comments: [] } },
-    ...(draft.role === 'viewer' ? {} : { [`GET ${base}/share`]: { body: { shared: false, createdAt: null } } }),
+    // Editors' pages fetch the CSRF token ahead, so a save as the weaver leaves needs no request first.
+    ...(draft.role === 'viewer' ? {} : { [`GET ${base}/share`]: { body: { shared: false, createdAt: null } }, 'GET /api/csrf': { body: { token: 'tok-1' } } }),
   };
 }
 

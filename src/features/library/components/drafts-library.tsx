@@ -1,4 +1,5 @@
 import { Link, useSearchParams } from 'react-router-dom';
+import { buttonClasses } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorNotice } from '../../../components/ui/error-notice';
 import { Spinner } from '../../../components/ui/spinner';
@@ -22,7 +23,12 @@ export function DraftsLibrary({ studios = [] }: { studios?: readonly { id: numbe
       <div className="flex flex-wrap items-end justify-between gap-3">
         <DraftsSearchForm query={search.q} onSearch={(q) => go({ ...search, q, page: 1 })} />
         <DraftsFilters search={search} studios={studios} onChange={go} />
-        <ImportWifButton />
+        <div className="flex items-start gap-2">
+          <Link to="/drafts/new" className={buttonClasses('primary')}>
+            New draft
+          </Link>
+          <ImportWifButton />
+        </div>
         {drafts.data && (
           <p aria-live="polite" className="text-sm text-muted">
             {drafts.data.total === 1 ? '1 draft' : `${drafts.data.total} drafts`}
@@ -48,7 +54,14 @@ export function DraftsLibrary({ studios = [] }: { studios?: readonly { id: numbe
             Try part of the name, or a tag.
           </EmptyState>
         ) : (
-          <EmptyState title="No drafts yet">
+          <EmptyState
+            title="No drafts yet"
+            action={
+              <Link to="/drafts/new" className={buttonClasses('primary')}>
+                New draft
+              </Link>
+            }
+          >
             Drafts you make, and drafts shared with your studios, will be listed here.
           </EmptyState>
         )
