@@ -186,18 +186,31 @@ const level = (shade: number) => (shade * (LEVELS - 1) + 0.5) | 0;
 
 /** A number per item, the same for items whose `values` are the same (a class of equal rows). */
 function classesOf(count: number, values: (i: number) => Uint32Array | Uint8Array): Int32Array {
-  const ids = new Map<string, number>();
+  // Rows are hashed, and a row whose hash was seen is compared in full with the rows seen under it.
+  const byHash = new Map<number, number[]>();
   const out = new Int32Array(count);
+  let classes = 0;
   for (let i = 0; i < count; i++) {
-    const key = values(i).join(',');
-    let id = ids.get(key);
-    if (id === undefined) {
-      id = ids.size;
-      ids.set(key, id);
+    const row = values(i);
+    let h = 2166136261;
+    for (let k = 0; k < row.length; k++) h = Math.imul(h ^ row[k], 16777619);
+    const seen = byHash.get(h);
+    const match = seen?.find((j) => sameValues(values(j), row));
+    if (match !== undefined) {
+      out[i] = out[match];
+      continue;
     }
-    out[i] = id;
+    out[i] = classes++;
+    if (seen) seen.push(i);
+    else byHash.set(h, [i]);
   }
   return out;
+}
+
+function sameValues(a: ArrayLike<number>, b: ArrayLike<number>): boolean {
+  if (a.length !== b.length) return false;
+  for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return false;
+  return true;
 }
 
 /**

@@ -16,11 +16,11 @@
  * Prints figures; it is not a pass/fail test.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
+import { register } from 'node:module';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium } from 'playwright-core';
 import { build, preview } from 'vite';
-import { createClothWorker } from '../../src/features/editor/canvas/cloth-work';
 import { benchViews } from './cloth-drafts';
 import { timeRuns } from './timing';
 import type { BenchRow } from './cloth-page/main';
@@ -44,6 +44,10 @@ function printRows(place: string, rows: BenchRow[]): void {
     );
   }
 }
+
+// The worker's code reads the theme's colours with Vite's `?raw` imports: give Node the same.
+register('./raw-import-hooks.mjs', import.meta.url);
+const { createClothWorker } = await import('../../src/features/editor/canvas/cloth-work');
 
 function nodeRows(): BenchRow[] {
   return benchViews().map((v) => {
