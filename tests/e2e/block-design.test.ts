@@ -1,6 +1,7 @@
-// A block weaver designs a two-block double weave in the block design, with a two-colour order in
-// one layer, uses it as the draft, comes back to it later, changes one block and sees the faces
-// change; then moves one end to a wrong shaft and finds one item in Checks for it.
+// A block weaver starts a two-block double weave from the New draft form, designs it in the block
+// design with a two-colour order in one layer, uses it as the draft, comes back to it later, changes
+// one block and sees the faces change; then moves one end to a wrong shaft and finds one item in
+// Checks for it.
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { screenshot, settledCanvas, signIn, useAppAndBrowser } from '../helpers/e2e';
@@ -17,37 +18,28 @@ describe('block design for a two-block double weave', () => {
     const { page } = app.browser;
     await signIn(page, app.server, 'lead@shedwright.test');
 
-    // A new 8-shaft draft with three named yarns and a few ends of plain weave, to be replaced by the
-    // block design. (Made through the API: the app has no New draft form yet.)
-    const id = await page.evaluate(async () => {
-      const { token } = (await (await fetch('/api/csrf')).json()) as { token: string };
-      const res = await fetch('/api/drafts', {
-        method: 'POST',
-        headers: { 'content-type': 'application/json', 'x-csrf-token': token },
-        body: JSON.stringify({
-          name: 'Two-block mat',
-          document: {
-            schemaVersion: 2,
-            shafts: 8,
-            threading: [[1], [2], [1], [2], [1], [2], [1], [2]],
-            control: 'liftplan',
-            liftplan: [[1], [2], [1], [2]],
-            palette: ['#22303c', '#efe6d2', '#9a3b2e'],
-            yarns: [
-              { id: 'charcoal', name: 'Charcoal cotton', color: 0 },
-              { id: 'oat', name: 'Oat cotton', color: 1 },
-              { id: 'rust', name: 'Rust cotton', color: 2 },
-            ],
-          },
-        }),
-      });
-      const body = (await res.json()) as { draft?: { id: number } };
-      if (!body.draft) throw new Error(`the draft was refused: ${res.status} ${JSON.stringify(body)}`);
-      return body.draft.id;
-    });
-    await page.goto(`${app.server.url}/drafts/${id}`);
+    // From the New draft form: an 8-shaft lift-plan draft started as a double-weave block design.
+    await page.getByRole('link', { name: 'New draft' }).first().click();
+    await page.getByLabel('Name', { exact: true }).fill('Two-block mat');
+    await page.getByLabel('Shafts', { exact: true }).fill('8');
+    await page.getByRole('radio', { name: /lift plan/i }).check();
+    await page.getByRole('radio', { name: /^Block design/ }).check();
+    await page.getByLabel('Unit of the block design').selectOption({ label: 'Double weave, two layers' });
+    await page.getByRole('button', { name: 'Create draft' }).click();
+    await page.waitForURL(/\/drafts\/\d+$/);
+    const id = Number(/\/drafts\/(\d+)$/.exec(page.url())![1]);
     const design = page.getByTestId('block-design');
     await design.waitFor();
+    await design.getByText('(kept with this draft)').waitFor();
+
+    // Three yarns named in the colours: charcoal, oat and a third colour added as rust.
+    const palette = page.getByRole('region', { name: 'Colours and yarns' });
+    await palette.getByRole('button', { name: 'Add colour' }).click();
+    await palette.getByLabel('Colour 3: hex').fill('#9a3b2e');
+    for (const [n, name] of [[1, 'Charcoal cotton'], [2, 'Oat cotton'], [3, 'Rust cotton']] as const) {
+      await palette.getByLabel(`Colour ${n}: yarn name`).fill(name);
+      await palette.getByLabel(`Colour ${n}: yarn name`).press('Enter');
+    }
 
     // Layer 1 takes charcoal and oat in turn; layer 2 is rust, in warp and weft.
     for (const side of ['Warp', 'Weft']) {
