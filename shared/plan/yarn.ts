@@ -146,7 +146,7 @@ const KEYWORDS: Record<string, Keyword> = {
 };
 
 // Trade notation per system. Cotton and linen put the size first (8/2, 20/2); worsted puts the
-// plies first (2/10) (REFERENCES.md, yarn numbering). Metric count is written both ways
+// plies first (2/10) (ASTM D2260, Table 1). Metric count is written both ways
 // (Nm 2/28, Nm 8/2), so the smaller number is taken as the ply count (common practice, from memory).
 // Woollen runs are rarely plied; size first is assumed (from memory).
 const DEFAULT_ORDER: Partial<Record<CountSystem, PlyOrder | 'smaller-is-plies'>> = {

@@ -7,7 +7,7 @@ export const MUSTARD = '#e8c547';
 /**
  * Plain weave on two shafts with a blue warp and a yellow weft: its colour drawdown is a
  * checkerboard, blue where (end + pick) is even. Source: plain weave is a checkerboard
- * (Watson, Textile Design and Colour, 1907; REFERENCES.md).
+ * (Watson, Textile Design and Colour, 1907).
  */
 export function checkerboard(ends: number, picks: number, overrides: Partial<Draft> = {}): Draft {
   return createDraft({

@@ -1,4 +1,5 @@
-// Check values come from the sources named beside them, as gathered in /work/shared/REFERENCES.md
+// Check values come from the published sources named beside each one (a standard, a book or an article);
+// a fact of the trade with no published source says "common practice".
 // (the standards and articles themselves were not re-read for these tests).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -44,7 +45,7 @@ function blockDesign() {
 describe('a plan that starts from the loom', () => {
   it('14 × 24 in on the loom, with allowances from an earlier 14 × 24 → 12 × 19 in piece, gives 12 × 19 in', () => {
     // Source: the worked example in issue 17, checked with the allowance definitions in weaving
-    // education articles (REFERENCES.md "Warp and yarn quantities" [edu]): finished = woven × (1 − rate),
+    // education articles on warp calculation: finished = woven × (1 − rate),
     // applied for take-up (loom → off the loom) and then shrinkage (off the loom → finished).
     // The earlier piece measured 13 × 21.5 in off the loom; any off-loom size gives the same estimate.
     const measured = measuredAllowances({ widthInReed: 14, lengthOnLoom: 24, widthOffLoom: 13, lengthOffLoom: 21.5, widthFinished: 12, lengthFinished: 19 });
@@ -176,7 +177,7 @@ describe('one sett', () => {
 });
 
 describe('the sett warning', () => {
-  // Source: Ashenhurst's rule [pub], restated in weaving education articles (REFERENCES.md "Sett and reed"):
+  // Source: Ashenhurst's rule [pub], restated in weaving education articles:
   // D = 0.9·√(yd/lb); 8/2 cotton is 3360 yd/lb (ASTM D2260 cotton count, plied); plain weave
   // maximum = D·2/(2+2); working sett 75–80 % of the maximum [edu]; double weave doubles it [practice].
   const d = 0.9 * Math.sqrt(3360);

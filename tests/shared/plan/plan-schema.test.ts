@@ -1,4 +1,5 @@
-// Check values come from the sources named beside them, as gathered in /work/shared/REFERENCES.md
+// Check values come from the published sources named beside each one (a standard, a book or an article);
+// a fact of the trade with no published source says "common practice".
 // (the standards and articles themselves were not re-read for these tests).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -38,7 +39,7 @@ describe('plan document', () => {
   });
 
   it('takes loom waste from the loom type and unit when not given', () => {
-    // Source: common practice (REFERENCES.md) — about 18" on a table loom; 27" chosen for a floor loom.
+    // Source: common practice — about 18" on a table loom; 27" chosen for a floor loom.
     const draft = makeDraft();
     expect(warpPlanInput(planDocumentSchema.parse({ ...minimal, loom: 'table' }), draft).loomWaste).toBe(18);
     expect(warpPlanInput(planDocumentSchema.parse({ ...minimal, unit: 'cm' }), draft).loomWaste).toBeCloseTo(68.58, 10);
@@ -79,7 +80,7 @@ describe('plan document', () => {
 
 describe('computing a saved plan', () => {
   it('suggests a double-weave sett from the yarn and from wraps', () => {
-    // Source: Ashenhurst as restated (REFERENCES.md): 8/2 cotton plain weave max ≈ 26 epi;
+    // Source: Ashenhurst's rule (Ashenhurst, 1880s treatise), as restated in weaving education articles: 8/2 cotton plain weave max ≈ 26 epi;
     // double weave doubles it (common practice).
     const doc = planDocumentSchema.parse({ ...minimal, layers: 2, warpYarn: { text: '8/2 cotton' }, wrapsPerInch: 28 });
     const out = computePlan(doubleWeave(), doc);

@@ -1,4 +1,5 @@
-// Check values come from the sources named beside them, as gathered in /work/shared/REFERENCES.md
+// Check values come from the published sources named beside each one (a standard, a book or an article);
+// a fact of the trade with no published source says "common practice".
 // (the standards and articles themselves were not re-read for these tests).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -15,7 +16,7 @@ import {
 const twelve = { dents: 12, per: 'inch' } as const;
 
 describe('denting for a sett', () => {
-  // Source: common practice / weaving education articles (REFERENCES.md "Sett and reed").
+  // Source: common practice / weaving education articles on reed substitution.
   it('24 epi in a 12-dent reed is 2 per dent', () => {
     const plan = planDenting(24, twelve);
     expect(plan.pattern).toEqual([2]);

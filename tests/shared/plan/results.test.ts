@@ -1,4 +1,5 @@
-// Check values come from the sources named beside them, as gathered in /work/shared/REFERENCES.md
+// Check values come from the published sources named beside each one (a standard, a book or an article);
+// a fact of the trade with no published source says "common practice".
 // (the standards and articles themselves were not re-read for these tests).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -16,7 +17,7 @@ describe('measured allowances', () => {
   });
 
   it('12.5" woven finishing at 10" is 20 % shrinkage', () => {
-    // Source: weaving education articles (REFERENCES.md) — 10" finished at 20 % needs 12.5" woven.
+    // Source: weaving education articles on shrinkage (finished = woven × (1 − rate)) — 10" finished at 20 % needs 12.5" woven.
     expect(lossRate(12.5, 10)).toBeCloseTo(0.2, 12);
   });
 

@@ -1,4 +1,5 @@
-// Check values come from the sources named beside them, as gathered in /work/shared/REFERENCES.md
+// Check values come from the published sources named beside each one (a standard, a book or an article);
+// a fact of the trade with no published source says "common practice".
 // (the standards and articles themselves were not re-read for these tests).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -17,7 +18,7 @@ import { PLAIN_LIFTS, STRAIGHT_4, TWILL_22_LIFTS, makeDraft } from './draft-fixt
 
 describe("Ashenhurst's rule", () => {
   // Source: Ashenhurst's rule (1880s treatise), as restated in weaving education articles —
-  // REFERENCES.md "Sett and reed": 8/2 cotton D ≈ 52, plain weave max ≈ 26, 2/2 twill ≈ 34.
+  // Ashenhurst's rule (Ashenhurst, 1880s treatise), as restated in weaving education articles: 8/2 cotton D ≈ 52, plain weave max ≈ 26, 2/2 twill ≈ 34.
   const d = diametersPerInch(3360);
 
   it('8/2 cotton has about 52 diameters per inch', () => {
@@ -35,25 +36,25 @@ describe("Ashenhurst's rule", () => {
   });
 
   it('working sett is 75–80 % of the maximum', () => {
-    // Source: REFERENCES.md [edu] — working sett often 75–80 % of the maximum.
+    // Source: weaving education articles on sett — working sett often 75–80 % of the maximum.
     expect(workingSettRange(40)).toEqual({ low: 30, high: 32 });
   });
 
   it('soft woollens use a smaller constant', () => {
-    // Source: REFERENCES.md, Ashenhurst as restated [edu] — about 0.84 for soft woollens.
+    // Source: Ashenhurst's rule, as restated in weaving education articles — about 0.84 for soft woollens.
     expect(diametersPerInch(1600, 0.84)).toBeCloseTo(33.6, 10);
   });
 });
 
 describe('sett from wraps per inch', () => {
   it('plain weave is half the wraps, twill two thirds', () => {
-    // Source: common practice (REFERENCES.md [practice]): plain ≈ WPI/2, twill ≈ 2/3 WPI.
+    // Source: common practice: plain ≈ WPI/2, twill ≈ 2/3 WPI.
     expect(settFromWraps(12, WEAVES.plain)).toBe(6);
     expect(settFromWraps(12, WEAVES.twill22)).toBeCloseTo(8, 10);
   });
 
   it('double weave doubles the single-layer sett', () => {
-    // Source: common practice and weaving education articles (REFERENCES.md): two cloths share the reed.
+    // Source: common practice and weaving education articles on double weave: two cloths share the reed.
     expect(layeredSett(15, 2)).toBe(30);
   });
 });

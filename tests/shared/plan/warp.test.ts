@@ -1,4 +1,5 @@
-// Check values come from the sources named beside them, as gathered in /work/shared/REFERENCES.md
+// Check values come from the published sources named beside each one (a standard, a book or an article);
+// a fact of the trade with no published source says "common practice".
 // (the standards and articles themselves were not re-read for these tests).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -44,7 +45,7 @@ function input(overrides: Partial<WarpPlanInput> = {}): WarpPlanInput {
 
 describe('allowances', () => {
   it('10" finished at 20 % shrinkage needs 12.5" woven', () => {
-    // Source: weaving education articles (REFERENCES.md "Warp and yarn quantities") — woven = finished ÷ (1 − rate).
+    // Source: weaving education articles on shrinkage — woven = finished ÷ (1 − rate).
     expect(beforeLoss(10, 0.2)).toBeCloseTo(12.5, 12);
   });
 
@@ -54,7 +55,7 @@ describe('allowances', () => {
   });
 
   it('defaults follow common practice', () => {
-    // Source: common practice (REFERENCES.md [practice]): take-up and shrinkage 10 % when unsure,
+    // Source: common practice: take-up and shrinkage 10 % when unsure,
     // loom waste about 18" on a table loom and 24–36" on a floor loom (27" chosen).
     expect(DEFAULT_ALLOWANCES).toEqual({ takeUp: 0.1, drawIn: 0.1, lengthShrinkage: 0.1, widthShrinkage: 0.1 });
     expect(LOOM_WASTE_INCHES).toEqual({ table: 18, floor: 27 });
@@ -63,7 +64,7 @@ describe('allowances', () => {
 });
 
 describe('the worked example', () => {
-  // Source: a published-style worked example in weaving education articles (REFERENCES.md [edu]):
+  // Source: a worked example of the kind published in weaving education articles:
   // 48" wide × 48 epi = 2304 ends; × 7.5 yd = 17 280 yd; at 8400 yd/lb = 2.06 lb; weft about the same.
   const plan = computeWarpPlan(
     makeDraft({ sett: { warp: 48, weft: 48, unit: 'inch' } }),

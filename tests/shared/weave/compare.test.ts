@@ -113,7 +113,7 @@ describe('the difference image reads without colour vision', () => {
       [c['now-up'], c['same-down']], [c['now-up'], c['now-down']],
     ] as const;
     for (const [a, b] of pairs) expect(contrastRatio(a, b)).toBeGreaterThanOrEqual(3);
-    // The case found by hand: changed-to-under against unchanged-over was 1.24:1.
+    // The pair that once sat too close: changed-to-under against unchanged-over was 1.24:1.
     expect(contrastRatio(c['now-down'], c['same-up'])).toBeCloseTo(3.21, 2);
   });
 });

@@ -159,7 +159,7 @@ describe('simulateLayers', () => {
   }, 60_000);
 
   it('shows a one-layer cloth as drawn on the front and reversed and mirrored on the back', () => {
-    // Source: the colour rule of the product brief: a cell shows the warp colour where the end is up.
+    // Source: the drawdown colour rule of weaving textbooks (e.g. Watson, Textile Design and Colour, 1907): a cell shows the warp colour where the end is up.
     const draft = createDraft({
       shafts: 4,
       threading: [[1], [2], [3], [4], [1]],

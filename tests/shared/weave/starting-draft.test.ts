@@ -18,7 +18,7 @@ const refusal = (o: Partial<StartingDraftOptions>) => {
 describe('startingDraft', () => {
   it('makes plain weave a checkerboard, with treadles or a lift plan, on any number of shafts', () => {
     // Source: Watson, Textile Design and Colour (1912), plain weave — each end passes over one pick and
-    // under the next, and neighbouring ends do the opposite: a checkerboard (REFERENCES.md, "Drawdown").
+    // under the next, and neighbouring ends do the opposite: a checkerboard (Watson, Textile Design and Colour, 1907).
     fc.assert(
       fc.property(fc.integer({ min: 2, max: 32 }), fc.constantFrom(0, 2, 10), fc.integer({ min: 1, max: 40 }), fc.integer({ min: 1, max: 40 }),
         (shafts, treadles, ends, picks) => {
@@ -33,7 +33,7 @@ describe('startingDraft', () => {
   });
 
   it('makes a 2/2 straight twill on four shafts that steps one end per pick', () => {
-    // Source: textbook definition of a regular twill (REFERENCES.md): on n shafts it repeats on n ends and
+    // Source: the textbook definition of a regular twill (e.g. Watson, Textile Design and Colour, 1907): on n shafts it repeats on n ends and
     // n picks; a 2/2 twill on a straight draw treadled 1-2-3-4 moves its line one end each pick.
     const dd = computeDrawdown(startingDraft({ ...base, structure: 'straight-twill' }));
     for (let p = 0; p < 16; p++) {
@@ -67,7 +67,7 @@ describe('startingDraft', () => {
   });
 
   it('starts a double-weave block design whose layers separate, linked block by block', () => {
-    // Source: books on loom-controlled double weave (REFERENCES.md): four shafts per block, two blocks on eight.
+    // Source: books on loom-controlled double weave: four shafts per block, two blocks on eight.
     const draft = startingDraft({ ...base, structure: 'block', unit: 'double-weave', shafts: 8, treadles: 0, ends: 64, picks: 64 });
     expect(draft.threading.length).toBe(64);
     expect(draft.liftplan.length).toBe(64);

@@ -31,7 +31,7 @@ function plainWeave(over: Partial<Parameters<typeof createDraft>[0]> & { ends: n
 
 /** Yards per pound of a cotton count Ne size/plies: 840 yd per lb × size ÷ plies (ASTM D2260, Table 1). */
 const cottonYardsPerPound = (size: number, plies: number) => (840 * size) / plies;
-/** Ashenhurst's rule: diameters per inch ≈ 0.9 √(yd/lb) (Ashenhurst, 1880s treatise, as restated in REFERENCES.md). */
+/** Ashenhurst's rule: diameters per inch ≈ 0.9 √(yd/lb) (Ashenhurst, 1880s treatise, as restated in weaving education articles). */
 const ashenhurst = (yardsPerPound: number) => 0.9 * Math.sqrt(yardsPerPound);
 
 const rgbAt = (pic: { width: number; rgba: Uint8ClampedArray }, x: number, y: number) => {

@@ -70,7 +70,7 @@ describe('WIF round trip', () => {
 });
 
 describe('WIF read by a general-purpose INI reader', () => {
-  // Source: WIF 1.1 specification, April 1997 — section and key names from memory (REFERENCES.md);
+  // Source: WIF 1.1 specification, April 1997 — section and key names from memory;
   // reader: the `ini` package 6.x, which lower-cases nothing, turns true/false into booleans and
   // treats unescaped ; and # as comments.
   it('gives back every section, key by key', () => {

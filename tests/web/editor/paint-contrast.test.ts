@@ -19,7 +19,7 @@ describe('the floats view', () => {
         expect(contrastRatio(rgbOf(float), rgbOf(dimmed))).toBeGreaterThanOrEqual(3);
       }
     }
-    // The case found by hand: the red against the dimmed warp was 2.2:1.
+    // The pair that once sat too close: the red against the dimmed warp was 2.2:1.
     expect(contrastRatio(rgbOf(TONES.floatA), rgbOf(TONES.dimUp))).toBeCloseTo(3.77, 2);
   });
 
@@ -33,7 +33,7 @@ describe('the layer map', () => {
   it('never tells two layers apart by colour alone: each of the first four has its own pattern', () => {
     const looks = [1, 2, 3, 4].map(layerLook);
     expect(new Set(looks.map((l) => l.pattern)).size).toBe(4);
-    // The case found by hand: layers 1 and 3 were both plain, dark blue against dark green at 1.24:1.
+    // The pair that once differed by colour alone: layers 1 and 3 were both plain, dark blue against dark green at 1.24:1.
     expect(contrastRatio(looks[0].tone, looks[2].tone)).toBeCloseTo(1.24, 2);
     expect(looks[0].pattern).not.toBe(looks[2].pattern);
   });

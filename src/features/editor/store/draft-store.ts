@@ -20,7 +20,7 @@ export interface DraftState {
   redoLabel: string | null;
 }
 
-/** Steps kept; the issue asks for at least 200. */
+/** Steps kept: enough for a long sitting's edits, few enough that the patches stay small. */
 export const HISTORY_LIMIT = 500;
 
 /**

@@ -29,7 +29,7 @@ import { axisOf, GRID_LABELS, isListGrid, isThreadRow, visibleGrids, type GridId
 
 export type Tool = 'draw' | 'erase' | 'select';
 
-/** The cloth views (BRIEF names). */
+/** The cloth views, in the order the editor offers them. */
 export type ClothView = 'structure' | 'colour' | 'floats' | 'front' | 'back' | 'layers';
 export const CLOTH_VIEWS: { id: ClothView; label: string }[] = [
   { id: 'structure', label: 'Structure' },
