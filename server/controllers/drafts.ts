@@ -55,9 +55,9 @@ export async function draftLineage({ app, req, res, params }: Ctx<unknown, unkno
 }
 
 export async function importWif({ app, req, res, body }: Ctx<{ studioId?: number }, unknown, unknown>) {
-  const document = draftFromWifFile(req.file);
+  const { draft: document, warnings } = draftFromWifFile(req.file);
   const draft = await createFromDocument(app.models, req.user!.id, document, body.studioId, `Imported from ${req.file!.originalname}`);
-  res.status(201).json({ draft });
+  res.status(201).json({ draft, warnings });
 }
 
 async function exported({ app, res, params, query }: Ctx<unknown, { version?: number }, { id: number }>, format: 'wif' | 'json') {

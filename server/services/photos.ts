@@ -41,7 +41,7 @@ function toPhoto(row: AttachmentRow): Photo {
 export async function addPhoto(
   models: Models, storage: BlobStorage, draftId: number, version: number, uploaderId: number, file: Buffer | undefined,
 ): Promise<Photo> {
-  if (!file || file.length === 0) throw new HttpError(400, 'bad_request', 'Attach the photo as the form field "file"');
+  if (!file || file.length === 0) throw new HttpError(400, 'bad_request', 'Choose a photo to add.', { file: 'Choose a photo to add.' });
   const type = sniffImageType(file);
   if (!type) throw new HttpError(422, 'unprocessable', 'The file is not a JPEG, PNG or WebP image', { file: 'use a JPEG, PNG or WebP photo' });
   if (!await versionRow(models, draftId, version, ['id'])) throw notFound(`This draft has no version ${version}`);

@@ -290,6 +290,16 @@ describe('WIF import', () => {
     expect(res.body.draft.name).toBe('Harbour table mat');
   });
 
+  it('says what it had to guess, in words, and nothing when the file was read whole', async () => {
+    const s = await scene();
+    const clean = await upload(s.owner, '/api/drafts/import-wif', Buffer.from(toWif(pointTwillScarf())), 'scarf.wif');
+    expect(clean.body.warnings).toEqual([]);
+    const noVersion = toWif(pointTwillScarf()).replace(/^Version=.*\n/m, '');
+    const guessed = await upload(s.owner, '/api/drafts/import-wif', Buffer.from(noVersion), 'old.wif');
+    expect(guessed.status, guessed.text).toBe(201);
+    expect(guessed.body.warnings).toEqual(['[WIF] gives no Version; read as 1.1.']);
+  });
+
   it('answers a bad file with 422 saying what is wrong, an empty form with 400, a huge file with 413', async () => {
     const s = await scene();
     const notWif = await upload(s.owner, '/api/drafts/import-wif', Buffer.from('hello, loom'), 'note.wif');
@@ -300,6 +310,9 @@ describe('WIF import', () => {
     expect(wrong.status).toBe(422);
     expect(wrong.body.error.message).toMatch(/shaft 9/);
     expect((await s.owner.post('/api/drafts/import-wif')).status).toBe(400);
+    const empty = await upload(s.owner, '/api/drafts/import-wif', Buffer.alloc(0), 'empty.wif');
+    expect(empty.status).toBe(400);
+    expect(empty.body.error.message).toBe('Choose a WIF file to import.');
     expect((await upload(s.owner, '/api/drafts/import-wif', Buffer.alloc(5 * 1024 * 1024, 65), 'big.wif')).status).toBe(413);
     expect((await upload(s.viewer, '/api/drafts/import-wif', Buffer.from(toWif(pointTwillScarf())), 'x.wif')).status).toBe(201);
   });

@@ -47,6 +47,26 @@ describe('import WIF button', () => {
     await waitFor(() => expect(server.to('GET /api/drafts')).toHaveLength(2));
   });
 
+  it('lists what the import had to guess, after the import, so the weaver can check it', async () => {
+    mockApi(routes({
+      'GET /api/drafts': (_request, calls) => ({ body: draftsPage(calls === 1 ? [] : [draftSummary({ id: 22, name: 'Old mat' })]) }),
+      'POST /api/drafts/import-wif': {
+        status: 201,
+        body: { draft: draftSummary({ id: 22, name: 'Old mat' }), warnings: ['[WIF] gives no Version; read as 1.1.', '3 palette entries had no colour in [COLOR TABLE] and are shown black.'] },
+      },
+    }));
+    renderApp('/drafts');
+    await screen.findByText('No drafts yet');
+    chooseFile(wif());
+    const status = await screen.findByRole('status');
+    expect(status.textContent).toContain('Imported Old mat. Check these before weaving from it:');
+    const guesses = within(status).getByRole('list', { name: 'What the import had to guess' });
+    expect(within(guesses).getAllByRole('listitem').map((li) => li.textContent)).toEqual([
+      '[WIF] gives no Version; read as 1.1.',
+      '3 palette entries had no colour in [COLOR TABLE] and are shown black.',
+    ]);
+  });
+
   it("shows the API's 422 reason for a file it cannot read", async () => {
     const reason = 'Line 4: [THREADING] names shaft 9, but [WEAVING] has 8 shafts';
     const server = mockApi(routes({

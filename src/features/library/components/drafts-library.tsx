@@ -62,7 +62,8 @@ export function DraftsLibrary({ studios = [] }: { studios?: readonly { id: numbe
               </Link>
             }
           >
-            Drafts you make, and drafts shared with your studios, will be listed here.
+            Start one with New draft, or bring one from another program with Import WIF file above. Drafts you make, and
+            drafts shared with your studios, will be listed here.
           </EmptyState>
         )
       ) : drafts.data.items.length === 0 ? (

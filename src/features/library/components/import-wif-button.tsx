@@ -20,9 +20,19 @@ export function ImportWifButton() {
         Import WIF file
       </Button>
       {importer.isSuccess && (
-        <p role="status" className="text-sm">
-          Imported <Link to={`/drafts/${importer.data.draft.id}`}>{importer.data.draft.name}</Link>.
-        </p>
+        <div role="status" className="max-w-md text-sm">
+          <p>
+            Imported <Link to={`/drafts/${importer.data.draft.id}`}>{importer.data.draft.name}</Link>.
+            {importer.data.warnings?.length ? ' Check these before weaving from it:' : ''}
+          </p>
+          {importer.data.warnings && importer.data.warnings.length > 0 && (
+            <ul className="mt-1 list-disc pl-5 text-left" aria-label="What the import had to guess">
+              {importer.data.warnings.map((w) => (
+                <li key={w}>{w}</li>
+              ))}
+            </ul>
+          )}
+        </div>
       )}
       {importer.isError && <ErrorNotice title="Could not import the file" error={importer.error} />}
     </div>
