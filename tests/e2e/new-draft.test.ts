@@ -98,7 +98,7 @@ describe('New draft', () => {
     await page.getByRole('link', { name: DEMO_STUDIO_NAME }).first().click();
     await page.getByRole('link', { name: 'New draft' }).click();
     await page.waitForURL(/\/drafts\/new\?studio=\d+$/);
-    expect(await page.getByLabel('Where it lives').locator('option:checked').textContent()).toMatch(/^Studio: /);
+    expect(await page.getByLabel('Where it lives').locator('option:checked').textContent()).toBe(`Studio: ${DEMO_STUDIO_NAME}`);
     await page.getByLabel('Name', { exact: true }).fill('Two-block double weave');
     await page.getByLabel('Shafts', { exact: true }).fill('8');
     await page.getByRole('radio', { name: /lift plan/i }).check();

@@ -37,6 +37,11 @@ export function DraftHeader({ draft }: { draft: DraftDetail }) {
         </ul>
       )}
       <div className="ml-auto flex items-center gap-2">
+        {draft.role !== 'viewer' && (
+          <Link to={`/drafts/${draft.id}/notes`} className="text-sm">
+            Edit details
+          </Link>
+        )}
         <Colourway draft={draft} />
       </div>
     </header>

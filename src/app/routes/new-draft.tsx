@@ -1,7 +1,7 @@
 import { useSearchParams } from 'react-router-dom';
 import { PageHeading } from '../../components/ui/page-heading';
 import { useSignedInUser } from '../../features/auth/api/get-session';
-import { NewDraftForm } from '../../features/library/components/new-draft-form';
+import { NewDraftForm, writableStudios } from '../../features/library/components/new-draft-form';
 import { parseId } from '../parse-id';
 
 /** New draft: the short form between the library (or a studio's page) and drawing; `?studio=` picks where it lives. */
@@ -9,9 +9,7 @@ export function NewDraftRoute() {
   const user = useSignedInUser();
   const [params] = useSearchParams();
   const studioId = parseId(params.get('studio') ?? undefined) ?? undefined;
-  const studios = user.memberships
-    .filter((m) => m.role === 'owner' || m.role === 'editor')
-    .map((m) => ({ id: m.studioId, name: m.studioName }));
+  const studios = writableStudios(user.memberships);
   const back = studioId !== undefined && studios.some((s) => s.id === studioId)
     ? { to: `/studios/${studioId}`, label: 'Back to the studio' }
     : { to: '/drafts', label: 'Drafts' };

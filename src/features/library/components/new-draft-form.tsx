@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
 import { Field, FieldError, SelectField } from '../../../components/ui/field';
 import { fieldErrorsOf } from '../../../lib/api-client';
+import type { Membership } from '../../../types/api';
 import { useCreateDraft } from '../api/create-draft';
 
 /** A studio the weaver may add drafts to (owner or editor there). */
@@ -27,6 +28,23 @@ interface Numbers {
   treadles: string;
   ends: string;
   picks: string;
+}
+
+/** The places a draft can live: the weaver's own drafts, or a studio. */
+export function PlaceOptions({ studios }: { studios: readonly StudioChoice[] }) {
+  return (
+    <>
+      <option value="">Personal drafts (only you)</option>
+      {studios.map((s) => (
+        <option key={s.id} value={s.id}>Studio: {s.name}</option>
+      ))}
+    </>
+  );
+}
+
+/** Studios where the signed-in weaver is an owner or editor: where she may start or move drafts. */
+export function writableStudios(memberships: readonly Membership[]): StudioChoice[] {
+  return memberships.filter((m) => m.role === 'owner' || m.role === 'editor').map((m) => ({ id: m.studioId, name: m.studioName }));
 }
 
 /** What a field of the form is called in the API's error `fields`. */
@@ -88,10 +106,7 @@ export function NewDraftForm({ studios, studioId }: { studios: readonly StudioCh
         <div className="w-64">
           <SelectField label="Where it lives" value={where} onChange={(e) => setWhere(e.target.value)} error={errors.studioId}
             hint={studios.length === 0 ? 'Studios where you are an owner or editor are offered here.' : undefined}>
-            <option value="">Personal (only you)</option>
-            {studios.map((s) => (
-              <option key={s.id} value={s.id}>Studio: {s.name}</option>
-            ))}
+            <PlaceOptions studios={studios} />
           </SelectField>
         </div>
       </div>
