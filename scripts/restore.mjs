@@ -1,5 +1,5 @@
 // `npm run restore -- <backup folder> [--yes]`: puts a backup made by `npm run backup` back into the
-// app's database and attachments folder. Refuses a backup whose manifest does not verify, and asks for
+// app's database and its S3 bucket. Refuses a backup whose manifest does not verify, and asks for
 // --yes before replacing a database that has tables (there is no prompt: CI has no stdin).
 import { resolve } from 'node:path';
 import { openAppDatabase, restore, verifyBackup } from './lib/backup.mjs';
@@ -18,8 +18,8 @@ try {
   // Checked before the database is touched (or started), so a damaged backup changes nothing.
   verifyBackup(resolve(source));
   db = await openAppDatabase(root);
-  if (!db.startedHere) console.log('Note: the database is running; stop the app first so no one writes during the restore (and restart it after: it keeps copies of sessions and library pages).');
-  const manifest = await restore({ conn: db.conn, attachmentsDir: db.attachmentsDir, source: resolve(source), overwrite });
+  if (!db.startedHere) console.log('Note: the database is running; stop the app first so no one writes during the restore.');
+  const manifest = await restore({ conn: db.conn, bucket: db.bucket, source: resolve(source), overwrite });
   console.log(`Restored ${manifest.counts.drafts} drafts, ${manifest.counts.versions} versions and `
     + `${manifest.counts.attachments} attachments from the backup of ${manifest.createdAt}.`);
 } catch (err) {

@@ -1,5 +1,6 @@
-// `npm start`: installs what is missing, starts the private MariaDB, migrates and seeds, builds the
-// client when its sources changed, serves app + API on 127.0.0.1. `npm run dev` serves the client
+// `npm start`: installs what is missing, starts the private MariaDB and the fake S3 object store,
+// migrates and seeds, builds the client when its sources changed, serves app + API on 127.0.0.1
+// (the app runs the fake SMTP server). Ctrl-C, or SIGINT/SIGTERM to this process alone, stops all of it. `npm run dev` serves the client
 // from Vite's dev server instead, with the API behind it.
 import { existsSync, readFileSync, writeFileSync, mkdirSync, statSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
@@ -15,21 +16,36 @@ ensureDebianPackages({ mariadbd: 'mariadb-server' });
 const { startMariaDB } = await import('./lib/mariadb.mjs');
 const { databases } = await import('./lib/databases.mjs');
 const { startChild, onStop, stopAll, waitForHttp, waitForExit } = await import('./lib/processes.mjs');
+const { choosePorts } = await import('./lib/ports.mjs');
+const { startS3Fake } = await import('./lib/s3-fake.mjs');
 
 const host = process.env.SHEDWRIGHT_HOST ?? '127.0.0.1';
-const port = Number(process.env.SHEDWRIGHT_PORT ?? 4780);
-const devPort = Number(process.env.SHEDWRIGHT_DEV_PORT ?? 5173);
-const publicUrl = process.env.SHEDWRIGHT_PUBLIC_URL ?? `http://${host}:${dev ? devPort : port}`;
 
 try {
-  const db = await startMariaDB({ ...databases.app, dir: join(root, databases.app.dir) });
+  // Every port is a setting; a default that is taken moves to the next free one (lib/ports.mjs).
+  const ports = await choosePorts([
+    { variable: 'SHEDWRIGHT_PORT', fallback: 4780, what: 'the app' },
+    { variable: 'SHEDWRIGHT_DB_PORT', fallback: 4781, what: 'MariaDB' },
+    { variable: 'SHEDWRIGHT_SMTP_PORT', fallback: 4782, what: 'the fake SMTP server' },
+    { variable: 'SHEDWRIGHT_S3_PORT', fallback: 4783, what: 'the fake S3 object store' },
+    ...(dev ? [{ variable: 'SHEDWRIGHT_DEV_PORT', fallback: 5173, what: "Vite's dev server" }] : []),
+  ], process.env, host);
+  const port = ports.SHEDWRIGHT_PORT;
+  const devPort = ports.SHEDWRIGHT_DEV_PORT;
+  const publicUrl = process.env.SHEDWRIGHT_PUBLIC_URL ?? `http://${host}:${dev ? devPort : port}`;
+
+  const db = await startMariaDB({ ...databases.app, port: ports.SHEDWRIGHT_DB_PORT, dir: join(root, databases.app.dir) });
   onStop(() => db.stop());
+  const s3 = await startS3Fake({ port: ports.SHEDWRIGHT_S3_PORT, dir: join(root, '.data', 's3'), bucket: 'shedwright' });
+  onStop(() => s3.stop());
 
   const env = {
     ...process.env,
     ...db.env,
+    ...s3.env,
     SHEDWRIGHT_HOST: host,
     SHEDWRIGHT_PORT: String(port),
+    SHEDWRIGHT_SMTP_PORT: String(ports.SHEDWRIGHT_SMTP_PORT),
     SHEDWRIGHT_PUBLIC_URL: publicUrl,
     SHEDWRIGHT_SESSION_SECRET: sessionSecret(),
     SHEDWRIGHT_STATIC_DIR: join(root, 'dist'),
@@ -51,10 +67,11 @@ try {
   if (dev) console.log(`  API server at http://${host}:${port}; captured mails at ${publicUrl}/admin/mails`);
   console.log('Demo sign-ins:');
   run(process.execPath, ['--import', 'tsx', 'server/db/setup.ts', '--print-accounts'], { env });
-  console.log('Press Ctrl-C to stop the server and its database.');
+  console.log('Press Ctrl-C to stop the server, its database, mail and object store.');
 
   const code = await Promise.race([waitForExit(server), ...(vite ? [waitForExit(vite)] : [])]);
   await stopAll();
+  console.log('Shedwright stopped.');
   process.exit(code);
 } catch (err) {
   console.error(`\nShedwright could not start: ${err.message}`);

@@ -1,5 +1,5 @@
-// `npm test`: the linter, then every suite against a throwaway MariaDB and headless Chromium it
-// starts itself. Ends with one plain line `N passed, N failed` summing all suites, the lint counted
+// `npm test`: the linter, then every suite against a throwaway MariaDB, fake S3 object store and
+// headless Chromium it starts itself. Ends with one plain line `N passed, N failed` summing all suites, the lint counted
 // as one check. Extra arguments go to vitest (e.g. `npm test -- --project shared`); the lint always runs.
 import { spawnSync } from 'node:child_process';
 import { rmSync, mkdirSync, readFileSync, existsSync } from 'node:fs';
@@ -12,6 +12,7 @@ ensureDebianPackages({ mariadbd: 'mariadb-server', chromium: 'chromium', pdftopp
 const { removeStrayInstances, startMariaDB } = await import('./lib/mariadb.mjs');
 const { databases } = await import('./lib/databases.mjs');
 const { startChild, onStop, stopAll, waitForExit } = await import('./lib/processes.mjs');
+const { startS3Fake } = await import('./lib/s3-fake.mjs');
 
 const resultsDir = join(root, 'tests', '.results');
 const resultsFile = join(resultsDir, 'vitest.json');
@@ -30,9 +31,15 @@ try {
   db.sql(`CREATE DATABASE \`${e2eDatabase}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
     GRANT ALL PRIVILEGES ON \`${e2eDatabase}\`.* TO '${databases.test.user}'@'127.0.0.1';`);
 
+  // A throwaway fake S3 object store on a free loopback port (SHEDWRIGHT_TEST_S3_PORT to fix one).
+  const s3Dir = join(root, `${databases.test.dir}-s3`);
+  rmSync(s3Dir, { recursive: true, force: true });
+  const s3 = await startS3Fake({ port: Number(process.env.SHEDWRIGHT_TEST_S3_PORT ?? 0), dir: s3Dir, bucket: 'shedwright-test' });
+  onStop(() => s3.stop());
+
   rmSync(resultsDir, { recursive: true, force: true });
   mkdirSync(resultsDir, { recursive: true });
-  const env = { ...process.env, ...db.env, SHEDWRIGHT_TEST: '1', SHEDWRIGHT_E2E_DB_NAME: e2eDatabase, SHEDWRIGHT_STATIC_DIR: join(root, 'dist') };
+  const env = { ...process.env, ...db.env, ...s3.env, SHEDWRIGHT_TEST: '1', SHEDWRIGHT_E2E_DB_NAME: e2eDatabase, SHEDWRIGHT_STATIC_DIR: join(root, 'dist') };
 
   // The browser suite serves the built client.
   run(join(root, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { env });

@@ -6,21 +6,27 @@ import session from 'express-session';
 import { QueryTypes } from 'sequelize';
 import type { AppContext } from './context';
 import { routeNotFound, errorHandler } from './middleware/errors';
+import { requestLog } from './middleware/request-log';
 import { securityHeaders } from './middleware/security';
 import { apiRouter } from './routes';
 
 export const SESSION_COOKIE = 'shedwright.sid';
 
-/** How long /readyz waits for MariaDB before calling the server not ready. */
+/** How long /readyz waits for MariaDB and the object store before calling the server not ready. */
 const READY_TIMEOUT_MS = 1000;
 
-/** Null when MariaDB answers within READY_TIMEOUT_MS, else what failed. */
+/** Null when MariaDB and the object store both answer within READY_TIMEOUT_MS, else what failed. */
 async function readiness(ctx: AppContext): Promise<string | null> {
   let timer: NodeJS.Timeout | undefined;
-  const late = new Promise<string>((resolve) => { timer = setTimeout(() => resolve('the database did not answer within 1 s'), READY_TIMEOUT_MS); });
-  const check = ctx.sequelize.query('SELECT 1', { type: QueryTypes.SELECT }).then(() => null, () => 'the database cannot be reached');
+  const abort = new AbortController();
+  const late = new Promise<string>((resolve) => {
+    timer = setTimeout(() => { abort.abort(); resolve('the database or the object store did not answer within 1 s'); }, READY_TIMEOUT_MS);
+  });
+  const database = ctx.sequelize.query('SELECT 1', { type: QueryTypes.SELECT }).then(() => null, () => 'the database cannot be reached');
+  const objects = ctx.storage.check(abort.signal).then(() => null, () => 'the object store cannot be reached');
+  const checks = Promise.all([database, objects]).then((problems) => problems.find((p) => p !== null) ?? null);
   try {
-    return await Promise.race([check, late]);
+    return await Promise.race([checks, late]);
   } finally {
     clearTimeout(timer);
   }
@@ -35,8 +41,9 @@ export function createApp(ctx: AppContext): Express {
   // API answers are per user and small: hashing every one to offer a 304 cost about a tenth of a
   // library request. Static files keep their own ETags (express.static).
   app.set('etag', false);
-  // Behind https there is a terminating proxy on this machine; trust it for the client address and protocol.
-  if (secure) app.set('trust proxy', 'loopback');
+  // Which proxies' X-Forwarded-* headers give the client address and protocol (SHEDWRIGHT_TRUST_PROXY).
+  app.set('trust proxy', config.trustProxy);
+  app.use(requestLog(ctx.logger));
   app.use(securityHeaders(config));
 
   // For load balancers and orchestrators, without a session: the process answers; it can do its work.

@@ -1,14 +1,16 @@
 import connectSessionSequelize from 'connect-session-sequelize';
 import session from 'express-session';
 import type { PassportStatic } from 'passport';
+import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
 import type { CapturedMail } from '../shared/api/dev';
 import type { Config } from './config';
 import { createSequelize } from './db/sequelize';
 import { createMailer, type Mailer } from './mail/mailer';
 import { createPassport } from './middleware/passport';
+import { createLogger } from './middleware/request-log';
 import { defineModels, type Models } from './models';
-import { localDiskStorage, type BlobStorage } from './storage';
+import { s3Storage, type S3Storage } from './storage/s3';
 
 const SequelizeStore = connectSessionSequelize(session.Store);
 
@@ -43,13 +45,15 @@ function throttleTouch(store: SessionStore): SessionStore {
 /** Everything createApp needs from outside: settings, database, session store and mail. */
 export interface AppContext {
   config: Config;
+  /** Structured log lines (pino); each request's own child logger is `req.log`. */
+  logger: Logger;
   sequelize: Sequelize;
   models: Models;
   sessionStore: SessionStore;
   passport: PassportStatic;
   mailer: Mailer;
-  /** Uploaded files (photos of cloth); local disk here, an object store elsewhere. */
-  storage: BlobStorage;
+  /** Uploaded files (photos of cloth), in the object store's bucket. */
+  storage: S3Storage;
   /** Mails captured by the local fake SMTP server, newest first. */
   mails: () => CapturedMail[] | Promise<CapturedMail[]>;
   /** Stops the session store's timer and closes mail and database connections. */
@@ -66,19 +70,24 @@ export function createContext(config: Config, mailbox: Pick<AppContext, 'mails'>
     checkExpirationInterval: 15 * 60 * 1000,
   }));
   const mailer = createMailer(mailbox.port);
+  const storage = s3Storage(config.s3);
+  const logger = createLogger(config.log);
   return {
     config,
+    logger,
     sequelize,
     models,
     sessionStore,
     passport: createPassport(models),
     mailer,
-    storage: localDiskStorage(config.attachmentsDir),
+    storage,
     mails: mailbox.mails,
     async close() {
       sessionStore.stopExpiringSessions();
       mailer.close();
+      storage.close();
       await sequelize.close();
+      await new Promise<void>((resolve) => { logger.flush(() => resolve()); });
     },
   };
 }

@@ -10,7 +10,7 @@ export const DRAIN_MS = 10_000;
 
 /**
  * Serves the API (and the built client, when present) from this one process, after running the
- * migrations and starting the fake SMTP server. Resolves once listening.
+ * migrations, creating the object store's bucket when missing and starting the fake SMTP server. Resolves once listening.
  * SIGTERM or SIGINT stops it cleanly: no new connections, requests in flight finish (for up to
  * DRAIN_MS, then they are cut), then the database pool and mail close and the process exits, so a
  * save that commits is also answered.
@@ -19,6 +19,7 @@ export async function serveApp(config: Config): Promise<Server> {
   const smtp = await startFakeSmtp(config.smtpPort);
   const ctx = createContext(config, smtp);
   await migrate(ctx.sequelize);
+  await ctx.storage.ensureBucket();
 
   const server = createApp(ctx).listen(config.port, config.host);
   await new Promise<void>((resolve) => {

@@ -1,13 +1,18 @@
-// Backups of one Shedwright database and its attachments folder, and restoring them. Used by
-// `npm run backup`, `npm run restore` and tests/server/backup.test.ts.
+// Backups of one Shedwright database and the objects (photos) in its S3 bucket, and restoring them.
+// Used by `npm run backup`, `npm run restore` and tests/server/backup.test.ts.
 import { spawn, spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { createReadStream, createWriteStream, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync, cpSync } from 'node:fs';
-import { join, relative, sep } from 'node:path';
+import { createReadStream, createWriteStream, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { dirname, join, relative, sep } from 'node:path';
 import { createInterface } from 'node:readline';
 import { pipeline } from 'node:stream/promises';
+import {
+  DeleteObjectsCommand, GetObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client,
+} from '@aws-sdk/client-s3';
 import { databases } from './databases.mjs';
 import { startMariaDB } from './mariadb.mjs';
+import { isFree } from './ports.mjs';
+import { startS3Fake } from './s3-fake.mjs';
 
 /**
  * @typedef {{ host: string, port: number, user: string, password: string, database: string }} Connection
@@ -20,6 +25,7 @@ import { startMariaDB } from './mariadb.mjs';
  *   counts: { drafts: number, versions: number, attachments: number },
  *   files: ManifestFile[],
  * }} Manifest
+ * @typedef {{ endpoint: string, region: string, bucket: string, accessKeyId: string, secretAccessKey: string }} Bucket
  */
 
 export const MANIFEST = 'manifest.json';
@@ -37,6 +43,38 @@ export function connectionFromEnv(env) {
     password: env.SHEDWRIGHT_DB_PASSWORD ?? '',
     database: env.SHEDWRIGHT_DB_NAME,
   };
+}
+
+/** The bucket the SHEDWRIGHT_S3_* variables describe (as the server reads them). */
+export function bucketFromEnv(env) {
+  return {
+    endpoint: env.SHEDWRIGHT_S3_ENDPOINT || `http://127.0.0.1:${env.SHEDWRIGHT_S3_PORT || 4783}`,
+    region: env.SHEDWRIGHT_S3_REGION || 'us-east-1',
+    bucket: env.SHEDWRIGHT_S3_BUCKET || 'shedwright',
+    accessKeyId: env.SHEDWRIGHT_S3_ACCESS_KEY_ID || 'S3RVER',
+    secretAccessKey: env.SHEDWRIGHT_S3_SECRET_ACCESS_KEY || 'S3RVER',
+  };
+}
+
+/** An S3 client for the bucket, set up as the server's (server/storage/s3.ts). */
+function s3Client(bucket) {
+  return new S3Client({
+    endpoint: bucket.endpoint, region: bucket.region, forcePathStyle: true,
+    credentials: { accessKeyId: bucket.accessKeyId, secretAccessKey: bucket.secretAccessKey },
+    requestChecksumCalculation: 'WHEN_REQUIRED', responseChecksumValidation: 'WHEN_REQUIRED',
+  });
+}
+
+/** Every object key in the bucket, sorted. */
+async function keysIn(client, bucket) {
+  const keys = [];
+  let token;
+  do {
+    const page = await client.send(new ListObjectsV2Command({ Bucket: bucket.bucket, ContinuationToken: token }));
+    for (const o of page.Contents ?? []) keys.push(o.Key);
+    token = page.IsTruncated ? page.NextContinuationToken : undefined;
+  } while (token);
+  return keys.sort();
 }
 
 /** True when a MariaDB server answers on the connection's host and port (credentials not needed). */
@@ -114,13 +152,15 @@ export function timestampName(date = new Date()) {
 }
 
 /**
- * Dumps the database (one consistent snapshot: --single-transaction) and copies the attachments
- * folder into `target` (created; it must not exist yet), then writes manifest.json with the time,
- * the migrations applied, the counts of drafts, versions and attachments, and the sha256 of every file.
- * @param {{ conn: Connection, attachmentsDir: string, target: string, now?: Date }} options
+ * Dumps the database (one consistent snapshot: --single-transaction), then copies every object of the
+ * bucket into `target`/attachments/<key> (`target` is created; it must not exist yet), then writes
+ * manifest.json with the time, the migrations applied, the counts of drafts, versions and attachments,
+ * and the sha256 of every file. Objects are copied after the dump, so every photo the dump names is
+ * there (one uploaded meanwhile comes along unnamed, which is harmless).
+ * @param {{ conn: Connection, bucket: Bucket, target: string, now?: Date }} options
  * @returns {Promise<Manifest>}
  */
-export async function backup({ conn, attachmentsDir, target, now = new Date() }) {
+export async function backup({ conn, bucket, target, now = new Date() }) {
   if (existsSync(target)) throw new Error(`${target} already exists; a backup is written to a new folder.`);
   mkdirSync(target, { recursive: true });
   try {
@@ -129,7 +169,17 @@ export async function backup({ conn, attachmentsDir, target, now = new Date() })
       '--skip-extended-insert', '--no-autocommit', '--hex-blob', conn.database], { env: clientEnv(conn), stdio: ['ignore', 'pipe', 'pipe'] });
     await Promise.all([pipeline(dump.stdout, createWriteStream(dumpPath, { mode: 0o600 })), waitForChild(dump, 'mariadb-dump')]);
 
-    if (existsSync(attachmentsDir)) cpSync(attachmentsDir, join(target, ATTACHMENTS), { recursive: true });
+    const client = s3Client(bucket);
+    try {
+      for (const key of await keysIn(client, bucket)) {
+        const path = join(target, ATTACHMENTS, ...key.split('/'));
+        mkdirSync(dirname(path), { recursive: true });
+        const object = await client.send(new GetObjectCommand({ Bucket: bucket.bucket, Key: key }));
+        writeFileSync(path, await object.Body.transformToByteArray(), { mode: 0o600 });
+      }
+    } finally {
+      client.destroy();
+    }
     const { counts, migrations } = await describeDump(dumpPath);
     const files = filesUnder(target).map((path) => ({ path, bytes: statSync(join(target, path)).size, sha256: sha256(join(target, path)) }));
     /** @type {Manifest} */
@@ -193,35 +243,35 @@ function countRows(conn) {
 }
 
 /**
- * Restores a verified backup into the connection's database and `attachmentsDir`. A database with
- * tables, or an attachments folder with files, is replaced only when `overwrite` is true (otherwise
- * this throws before changing anything). Afterwards the restored counts are checked against the manifest.
- * @param {{ conn: Connection, attachmentsDir: string, source: string, overwrite?: boolean }} options
+ * Restores a verified backup into the connection's database and the bucket. A database with tables,
+ * or a bucket with objects, is replaced only when `overwrite` is true (otherwise this throws before
+ * changing anything). Afterwards the restored counts are checked against the manifest.
+ * @param {{ conn: Connection, bucket: Bucket, source: string, overwrite?: boolean }} options
  * @returns {Promise<Manifest>}
  */
-export async function restore({ conn, attachmentsDir, source, overwrite = false }) {
+export async function restore({ conn, bucket, source, overwrite = false }) {
   const manifest = verifyBackup(source);
   const existing = tablesOf(conn);
-  const existingFiles = filesUnder(attachmentsDir);
-  if (!overwrite && (existing.length > 0 || existingFiles.length > 0)) {
-    throw new Error(`${conn.database} has ${existing.length} tables and ${attachmentsDir} has ${existingFiles.length} files; `
-      + 'restoring replaces them. Run again with --yes to overwrite.');
+  const client = s3Client(bucket);
+  try {
+    const existingKeys = await keysIn(client, bucket);
+    if (!overwrite && (existing.length > 0 || existingKeys.length > 0)) {
+      throw new Error(`${conn.database} has ${existing.length} tables and the bucket ${bucket.bucket} has ${existingKeys.length} objects; `
+        + 'restoring replaces them. Run again with --yes to overwrite.');
+    }
+    await restoreDatabase(conn, source, existing);
+    // The bucket ends up holding exactly the backup's objects.
+    for (let i = 0; i < existingKeys.length; i += 1000) {
+      const batch = existingKeys.slice(i, i + 1000).map((Key) => ({ Key }));
+      await client.send(new DeleteObjectsCommand({ Bucket: bucket.bucket, Delete: { Objects: batch, Quiet: true } }));
+    }
+    const saved = join(source, ATTACHMENTS);
+    for (const key of filesUnder(saved)) {
+      await client.send(new PutObjectCommand({ Bucket: bucket.bucket, Key: key, Body: readFileSync(join(saved, ...key.split('/'))) }));
+    }
+  } finally {
+    client.destroy();
   }
-
-  // Dropping everything first keeps tables a newer schema added from surviving next to the old ones.
-  const drops = [
-    ...existing.filter((t) => t.view).map((t) => `DROP VIEW IF EXISTS ${quoteName(t.name)};`),
-    ...existing.filter((t) => !t.view).map((t) => `DROP TABLE IF EXISTS ${quoteName(t.name)};`),
-  ];
-  const client = spawn('mariadb', [...clientArgs(conn), conn.database], { env: clientEnv(conn), stdio: ['pipe', 'ignore', 'pipe'] });
-  const done = waitForChild(client, 'mariadb');
-  client.stdin.write(`SET FOREIGN_KEY_CHECKS=0;\n${drops.join('\n')}\nSET FOREIGN_KEY_CHECKS=1;\n`);
-  await Promise.all([pipeline(createReadStream(join(source, DUMP)), client.stdin), done]);
-
-  rmSync(attachmentsDir, { recursive: true, force: true });
-  const savedAttachments = join(source, ATTACHMENTS);
-  if (existsSync(savedAttachments)) cpSync(savedAttachments, attachmentsDir, { recursive: true });
-  else mkdirSync(attachmentsDir, { recursive: true });
 
   const restored = countRows(conn);
   const { counts } = manifest;
@@ -231,22 +281,44 @@ export async function restore({ conn, attachmentsDir, source, overwrite = false 
   return manifest;
 }
 
+/** Replaces the database's tables with the dump's. */
+async function restoreDatabase(conn, source, existing) {
+  // Dropping everything first keeps tables a newer schema added from surviving next to the old ones.
+  const drops = [
+    ...existing.filter((t) => t.view).map((t) => `DROP VIEW IF EXISTS ${quoteName(t.name)};`),
+    ...existing.filter((t) => !t.view).map((t) => `DROP TABLE IF EXISTS ${quoteName(t.name)};`),
+  ];
+  const client = spawn('mariadb', [...clientArgs(conn), conn.database], { env: clientEnv(conn), stdio: ['pipe', 'ignore', 'pipe'] });
+  const done = waitForChild(client, 'mariadb');
+  client.stdin.write(`SET FOREIGN_KEY_CHECKS=0;\n${drops.join('\n')}\nSET FOREIGN_KEY_CHECKS=1;\n`);
+  await Promise.all([pipeline(createReadStream(join(source, DUMP)), client.stdin), done]);
+}
+
 /**
- * The `npm start` instance (.data/db) and attachments folder, for the backup and restore commands.
- * When the instance is not running it is started for the command and `close()` stops it again;
- * when it is running (the app may be serving) it is left alone.
+ * The `npm start` instance (.data/db) and its object store (the fake in .data/s3), for the backup and
+ * restore commands. What is not running is started for the command and `close()` stops it again;
+ * what is running (the app may be serving) is left alone.
  * @param {string} root the project folder
- * @returns {Promise<{ conn: Connection, attachmentsDir: string, startedHere: boolean, close(): Promise<void> }>}
+ * @returns {Promise<{ conn: Connection, bucket: Bucket, startedHere: boolean, close(): Promise<void> }>}
  */
 export async function openAppDatabase(root) {
   const { dir, port, database, user } = databases.app;
-  const attachmentsDir = join(root, process.env.SHEDWRIGHT_ATTACHMENTS_DIR || '.data/attachments');
   const conn = { host: '127.0.0.1', port, user, database, password: '' };
+  const stops = [];
+  let bucket = bucketFromEnv(process.env);
+  const s3Port = Number(process.env.SHEDWRIGHT_S3_PORT || 4783);
+  if (!process.env.SHEDWRIGHT_S3_ENDPOINT && (await isFree(s3Port))) {
+    const s3 = await startS3Fake({ port: s3Port, dir: join(root, '.data', 's3'), bucket: bucket.bucket });
+    bucket = bucketFromEnv({ ...process.env, ...s3.env });
+    stops.push(() => s3.stop());
+  }
+  const close = async () => { for (const stop of stops.reverse()) await stop(); };
   if (serverAnswers(conn)) {
     const passwordFile = join(root, dir, 'app-password');
     if (!existsSync(passwordFile)) throw new Error(`A server answers on port ${port} but ${passwordFile} is missing.`);
-    return { conn: { ...conn, password: readFileSync(passwordFile, 'utf8').trim() }, attachmentsDir, startedHere: false, close: async () => {} };
+    return { conn: { ...conn, password: readFileSync(passwordFile, 'utf8').trim() }, bucket, startedHere: stops.length > 0, close };
   }
   const db = await startMariaDB({ dir: join(root, dir), port, database, user });
-  return { conn: connectionFromEnv(db.env), attachmentsDir, startedHere: true, close: () => db.stop() };
+  stops.push(() => db.stop());
+  return { conn: connectionFromEnv(db.env), bucket, startedHere: true, close };
 }

@@ -31,8 +31,15 @@ export function stopAll() {
   return stopping;
 }
 
+// A signal to this process alone (not only Ctrl-C, which reaches the whole group) stops every child
+// and service it started, then says so.
 for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
-  process.on(signal, () => { stopAll().then(() => process.exit(130)); });
+  process.on(signal, () => {
+    stopAll().then(() => {
+      console.log('stopped');
+      process.exit(130);
+    });
+  });
 }
 
 export function waitForExit(child) {

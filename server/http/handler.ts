@@ -11,6 +11,9 @@ import type { AppContext } from '../context';
  */
 export type MinimumRole = 'public' | 'user' | StudioRole;
 
+/** The routes that count their callers, by what they count (server/middleware/rate-limit.ts). */
+export type LimiterName = 'signIn' | 'signUp' | 'passwordReset';
+
 export interface Ctx<B, Q, P> {
   req: Request;
   res: Response;
@@ -36,8 +39,8 @@ export interface RouteSpec {
   allowSelf?: boolean;
   /** Reads a multipart file (after the access check, before validation); see middleware/upload. */
   upload?: RequestHandler;
-  /** Rate-limited routes share a counter per limiter and client address. */
-  limiter?: 'signIn' | 'passwordReset' | 'signUp';
+  /** Rate-limited routes share counters (in MariaDB) per limiter and client address, or account. */
+  limiter?: LimiterName;
   body?: z.ZodType;
   query?: z.ZodType;
   params?: z.ZodType;

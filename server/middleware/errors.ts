@@ -41,23 +41,13 @@ function toHttpError(err: unknown): HttpError | null {
 }
 
 /**
- * What the log says about an unexpected error. A database error's message holds its SQL, and with it
- * the values of the query (a draft, a name, an e-mail): only its kind and the server's error code are
- * written.
+ * Answers every error with the contract's JSON shape. An unexpected error goes on the request's log
+ * line with its stack (request-log.ts keeps SQL and values out of it); bodies are never logged.
  */
-function describeForLog(err: unknown): string {
-  if (err instanceof BaseError || (err instanceof Error && 'sql' in err)) {
-    const driver = ((err as { parent?: unknown }).parent ?? err) as { code?: unknown; errno?: unknown };
-    return [err.name, driver.code, driver.errno !== undefined ? `errno ${String(driver.errno)}` : undefined].filter(Boolean).join(' ');
-  }
-  return err instanceof Error ? err.message : String(err);
-}
-
-/** Answers every error with the contract's JSON shape; only unexpected errors are logged, never bodies. */
-export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   const known = toHttpError(err);
+  if (!known) res.err = err instanceof Error ? err : new Error(String(err));
   if (res.headersSent) return;
-  if (!known) console.error(`Unexpected error on ${req.method} ${req.path}:`, describeForLog(err));
   const http = known ?? new HttpError(500, 'internal', 'Something went wrong on the server');
   const body: ApiError = { error: { code: http.code, message: http.message, ...(http.fields ? { fields: http.fields } : {}) } };
   if (http.status === 503) res.set('Retry-After', '5');

@@ -48,11 +48,11 @@ interface Access {
  */
 export function apiRouter(app: AppContext): Router {
   const router = Router();
-  const limiters = createLimiters(app.config.rateLimit);
+  const limiters = createLimiters(app.config.rateLimit, app.sequelize);
   for (const spec of routeTable) {
     if (spec.devOnly && !app.config.dev) continue;
     const chain: RequestHandler[] = [];
-    if (spec.limiter) chain.push(limiters[spec.limiter]);
+    if (spec.limiter) chain.push(...limiters[spec.limiter]);
     chain.push(siteAccess(spec));
     chain.push(async (req, res, next) => {
       const params = parse(spec.params, req.params) as Access['params'];

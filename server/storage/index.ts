@@ -1,7 +1,6 @@
 /**
- * Where uploaded files live. The app only needs put/get/delete by key, so the local-disk store below
- * can be swapped for an S3-compatible object store (PutObject/GetObject/DeleteObject on one bucket)
- * without touching the services.
+ * Where uploaded files live: put/get/delete by key in one bucket of an S3-compatible object store
+ * (s3.ts), shared by every app server. The services see only this interface.
  */
 export interface BlobStorage {
   put(key: string, bytes: Buffer): Promise<void>;
@@ -9,5 +8,3 @@ export interface BlobStorage {
   get(key: string): Promise<Buffer | null>;
   delete(key: string): Promise<void>;
 }
-
-export { localDiskStorage } from './local-disk';

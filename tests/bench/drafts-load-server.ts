@@ -5,6 +5,8 @@
 import { once } from 'node:events';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { serveApp } from '../../server/serve';
 import { testConfig } from '../helpers/test-db';
 import { floorServer } from './save-floors';
@@ -12,7 +14,11 @@ import { floorServer } from './save-floors';
 const option = (name: string) => process.argv.find((a) => a.startsWith(`--${name}=`))?.split('=')[1];
 const kind = option('server') ?? 'app';
 if (!['app', 'express', 'node'].includes(kind)) throw new Error(`--server must be app, express or node, not ${kind}`);
-const config = testConfig({ smtpPort: Number(process.env.SHEDWRIGHT_SMTP_PORT ?? 0) });
+// Logs as a server in use writes them: one line per request, in the background, to a file.
+const config = testConfig({
+  smtpPort: Number(process.env.SHEDWRIGHT_SMTP_PORT ?? 0),
+  log: { level: 'info', file: join(tmpdir(), `shedwright-bench-${process.pid}.log`) },
+});
 
 // Handlers still running when the load stops would only fail noisily on a closing pool: just exit.
 process.on('SIGTERM', () => process.exit(0));

@@ -45,6 +45,11 @@ export async function startAppServer(extraEnv: NodeJS.ProcessEnv = {}): Promise<
     SHEDWRIGHT_SESSION_SECRET: 'e2e-session-secret-not-for-production',
     SHEDWRIGHT_STATIC_DIR: join(root, 'dist'),
     SHEDWRIGHT_DEV: '1',
+    // Rate-limit counters live in the database every browser test's server shares: keep them out of reach.
+    SHEDWRIGHT_SIGNIN_LIMIT: '100000',
+    SHEDWRIGHT_ACCOUNT_SIGNIN_LIMIT: '100000',
+    SHEDWRIGHT_SIGNUP_LIMIT: '100000',
+    SHEDWRIGHT_RESET_LIMIT: '100000',
     ...extraEnv,
   };
   const setup = spawnSync(process.execPath, ['--import', 'tsx', 'server/db/setup.ts'], { cwd: root, env, encoding: 'utf8' });

@@ -3,14 +3,13 @@ import request from 'supertest';
 import type { StudioRole } from '../../shared/api/auth';
 import type { CapturedMail } from '../../shared/api/dev';
 import { createApp } from '../../server/app';
-import type { Config } from '../../server/config';
 import { createContext, type AppContext } from '../../server/context';
 import { migrate } from '../../server/db/migrate';
 import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
 import type { UserRow } from '../../server/models';
 import { createAccount } from '../../server/services/auth';
 import { createStudio } from '../../server/services/studios';
-import { testConfig, uniqueEmail } from './test-db';
+import { testConfig, uniqueEmail, type TestConfigOverrides } from './test-db';
 
 export const TEST_PASSWORD = 'correct-horse-loom-42';
 
@@ -87,11 +86,12 @@ export interface TestServer {
 let migrated: Promise<unknown> | undefined;
 
 /** An app on the real test database with its own fake SMTP server; call close() in afterAll. */
-export async function startTestServer(overrides: Partial<Config> = {}): Promise<TestServer> {
+export async function startTestServer(overrides: TestConfigOverrides = {}): Promise<TestServer> {
   const smtp = await startFakeSmtp(0);
   const ctx = createContext(testConfig(overrides), smtp);
   migrated ??= migrate(ctx.sequelize);
   await migrated;
+  await ctx.storage.ensureBucket();
   const app = createApp(ctx);
 
   const createUser: TestServer['createUser'] = async (options = {}) => {

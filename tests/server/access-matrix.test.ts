@@ -1,7 +1,4 @@
 import { createHash, randomBytes } from 'node:crypto';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { roleRank, type StudioRole } from '../../shared/api/auth';
 import { defaultPlan } from '../../shared/plan/plan-schema';
@@ -251,7 +248,7 @@ let sharedFixture: Fixture;
 const sharedClients = new Map<Caller, TestClient>();
 
 beforeAll(async () => {
-  server = await startTestServer({ attachmentsDir: mkdtempSync(join(tmpdir(), 'shedwright-matrix-')) });
+  server = await startTestServer();
   people.owner = await server.createUser({ name: 'Matrix owner' });
   people.editor = await server.createUser({ name: 'Matrix editor' });
   people.viewer = await server.createUser({ name: 'Matrix viewer' });

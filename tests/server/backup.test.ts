@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import fc from 'fast-check';
 import type { Model, ModelStatic } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { backup, connectionFromEnv, restore, verifyBackup, type Manifest } from '../../scripts/lib/backup.mjs';
+import { backup, connectionFromEnv, restore, verifyBackup, type Bucket, type Manifest } from '../../scripts/lib/backup.mjs';
 import { startMariaDB, type MariaDB } from '../../scripts/lib/mariadb.mjs';
 import { loadConfig } from '../../server/config';
 import { migrations } from '../../server/db/migrations';
@@ -14,14 +14,20 @@ import { defineModels, type Models } from '../../server/models';
 import { createDraft } from '../../server/services/drafts';
 import { saveDraft } from '../../server/services/draft-versions';
 import { addPhoto } from '../../server/services/photos';
-import { parseDraft, type Draft } from '../../shared/weave';
+import { s3Storage } from '../../server/storage/s3';
+import { parseDraft, pickCount, type Draft } from '../../shared/weave';
 import { freePort } from '../helpers/e2e';
 import { startTestServer, type TestServer } from '../helpers/server';
+import { testConfig } from '../helpers/test-db';
 import { draftArb } from '../shared/weave/arbitraries';
 
 const root = new URL('../..', import.meta.url).pathname;
 const work = mkdtempSync(join(tmpdir(), 'shedwright-backup-'));
-const sourceAttachments = join(work, 'attachments-source');
+// Buckets of this file's own in the test object store: the app's, and the one a restore fills.
+const suffix = randomBytes(4).toString('hex');
+const sourceBucket: Bucket = { ...testConfig().s3, bucket: `backup-source-${suffix}` };
+const restoredBucket: Bucket = { ...testConfig().s3, bucket: `backup-restored-${suffix}` };
+const restoredStorage = s3Storage(restoredBucket);
 
 let server: TestServer;
 let fresh: MariaDB | null = null;
@@ -29,7 +35,8 @@ let freshDir = '';
 let restored: { sequelize: ReturnType<typeof createSequelize>; models: Models } | null = null;
 
 beforeAll(async () => {
-  server = await startTestServer({ attachmentsDir: sourceAttachments });
+  server = await startTestServer({ s3: sourceBucket });
+  await restoredStorage.ensureBucket();
 });
 
 afterAll(async () => {
@@ -37,6 +44,7 @@ afterAll(async () => {
   await fresh?.stop();
   if (freshDir) rmSync(freshDir, { recursive: true, force: true });
   rmSync(work, { recursive: true, force: true });
+  restoredStorage.close();
   await server.close();
 });
 
@@ -45,9 +53,14 @@ afterAll(async () => {
 const awkwardText = ['it\'s a "plain" weave', 'back\\slash; -- not a comment', 'line one\nline two\r\n\ttabbed',
   'ends in a quote\'', 'yarn 🧶 and ß, ø, 絹', 'nul \u0000 inside', '/* not a comment */ `ticks`'];
 
-/** Invented drafts with awkward names and notes, each saved in three versions. */
+/**
+ * Invented drafts (with cloth: a draft is kept only with ends and picks) with awkward names and notes,
+ * each created and saved twice: two history rows, the named first version and the working version the
+ * two saves made.
+ */
 function invitedDocuments(): Draft[] {
-  const drafts = fc.sample(draftArb({ maxEnds: 24, maxPicks: 24 }), { numRuns: awkwardText.length, seed: 20_250_301 });
+  const withCloth = draftArb({ maxEnds: 24, maxPicks: 24 }).filter((d) => d.threading.length > 0 && pickCount(d) > 0);
+  const drafts = fc.sample(withCloth, { numRuns: awkwardText.length, seed: 20_250_301 });
   return drafts.map((d, i) => parseDraft({ ...d, name: awkwardText[i].slice(0, 80), notes: awkwardText.join('\n') }));
 }
 
@@ -65,7 +78,7 @@ describe('backup and restore', () => {
   const target = join(work, 'backup');
   const created: { draftIds: number[]; photoIds: number[] } = { draftIds: [], photoIds: [] };
 
-  it('backs up the test database and attachments with a manifest that verifies', async () => {
+  it('backs up the test database and the bucket\'s photos with a manifest that verifies', async () => {
     const { models, storage } = server.ctx;
     const owner = await server.createUser({ name: 'Backup weaver' });
     for (const [i, document] of invitedDocuments().entries()) {
@@ -76,25 +89,24 @@ describe('backup and restore', () => {
       if (i < 3) created.photoIds.push((await addPhoto(models, storage, row.id, 2, owner.id, fakePng(10_000 + i))).id);
     }
 
-    manifest = await backup({ conn: connectionFromEnv(process.env), attachmentsDir: sourceAttachments, target });
+    manifest = await backup({ conn: connectionFromEnv(process.env), bucket: sourceBucket, target });
     expect(manifest.database).toBe(process.env.SHEDWRIGHT_DB_NAME);
     expect(manifest.migrations).toEqual(migrations.map((m) => m.name));
     expect(manifest.counts.drafts).toBeGreaterThanOrEqual(created.draftIds.length);
-    expect(manifest.counts.versions).toBeGreaterThanOrEqual(created.draftIds.length * 3);
+    expect(manifest.counts.versions).toBeGreaterThanOrEqual(created.draftIds.length * 2);
     expect(manifest.counts.attachments).toBeGreaterThanOrEqual(3);
     const photoFiles = manifest.files.filter((f) => f.path.startsWith('attachments/'));
     expect(photoFiles).toHaveLength(3);
     expect(verifyBackup(target)).toEqual(manifest);
   });
 
-  it('restores into a fresh MariaDB instance: every draft, version and attachment byte the same', async () => {
+  it('restores into a fresh MariaDB instance and an empty bucket: every draft, version and photo byte the same', async () => {
     const port = await freePort();
     freshDir = join(root, '.data', `restore-test-${port}`);
     fresh = await startMariaDB({ dir: freshDir, port, database: 'shedwright_restored', user: 'shedwright' });
     const conn = connectionFromEnv(fresh.env);
-    const restoredAttachments = join(work, 'attachments-restored');
     const started = Date.now();
-    await restore({ conn, attachmentsDir: restoredAttachments, source: target });
+    await restore({ conn, bucket: restoredBucket, source: target });
     console.log(`backup: restored ${manifest.counts.drafts} drafts and ${manifest.counts.versions} versions in ${Date.now() - started} ms`);
 
     const config = loadConfig({ ...process.env, ...fresh.env });
@@ -113,7 +125,7 @@ describe('backup and restore', () => {
     expect(await rowsById(dst.Draft, mine)).toEqual(await rowsById(src.Draft, mine));
     const myVersions = { draftId: created.draftIds };
     const versions = await rowsById(dst.DraftVersion, myVersions);
-    expect(versions.size).toBe(created.draftIds.length * 3);
+    expect(versions.size).toBe(created.draftIds.length * 2);
     expect(versions).toEqual(await rowsById(src.DraftVersion, myVersions));
 
     // Every other restored row too. Versions never change once written; drafts other suites may have
@@ -127,22 +139,26 @@ describe('backup and restore', () => {
     const srcVersions = await rowsById(src.DraftVersion);
     for (const [id, row] of await rowsById(dst.DraftVersion)) if (srcVersions.has(id)) expect(row).toEqual(srcVersions.get(id));
 
-    // Attachment bytes, read back through each side's storage key.
+    // Photo bytes, read back through each side's bucket by the row's storage key.
     const attachments = await rowsById(dst.Attachment, { id: created.photoIds });
     expect(attachments.size).toBe(3);
     for (const row of attachments.values()) {
       const key = row.storageKey as string;
-      const bytes = readFileSync(join(restoredAttachments, key));
-      expect(bytes.equals(readFileSync(join(sourceAttachments, key)))).toBe(true);
-      expect(bytes.length).toBe(row.bytes);
+      const bytes = await restoredStorage.get(key);
+      expect(bytes).not.toBeNull();
+      expect(bytes!.equals((await server.ctx.storage.get(key))!)).toBe(true);
+      expect(bytes!.length).toBe(row.bytes);
     }
 
-    // Restoring over a database that now has tables needs the explicit overwrite.
-    await expect(restore({ conn, attachmentsDir: restoredAttachments, source: target })).rejects.toThrow(/--yes/);
-    await restore({ conn, attachmentsDir: restoredAttachments, source: target, overwrite: true });
+    // Restoring over a database that now has tables needs the explicit overwrite; the bucket then
+    // holds exactly the backup's objects again, a stray one gone.
+    await restoredStorage.put('drafts/0/stray.png', fakePng(5));
+    await expect(restore({ conn, bucket: restoredBucket, source: target })).rejects.toThrow(/--yes/);
+    await restore({ conn, bucket: restoredBucket, source: target, overwrite: true });
     expect(await dst.DraftVersion.count()).toBe(manifest.counts.versions);
+    expect(await restoredStorage.get('drafts/0/stray.png')).toBeNull();
 
-    // The restored database takes saves: the save procedure (migration 0006) came with the dump.
+    // The restored database takes saves.
     const head = (await dst.Draft.findByPk(created.draftIds[0]))!;
     const saved = await saveDraft(dst, head.id, head.ownerId, { document: head.document, baseVersion: head.version, message: 'after restore' });
     expect(saved).toEqual({ version: head.version + 1 });
@@ -168,7 +184,7 @@ describe('backup and restore', () => {
       cpSync(target, copy, { recursive: true });
       tamper(copy);
       expect(() => verifyBackup(copy), what).toThrow();
-      await expect(restore({ conn, attachmentsDir: join(work, 'unused'), source: copy, overwrite: true }), what).rejects.toThrow();
+      await expect(restore({ conn, bucket: restoredBucket, source: copy, overwrite: true }), what).rejects.toThrow();
     }
     expect(await restored!.models.DraftVersion.count()).toBe(before);
   });

@@ -1,5 +1,6 @@
 import fc from 'fast-check';
 import { inflateSync } from 'node:zlib';
+import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   compareResponseSchema, draftListResponseSchema, lineageResponseSchema, saveConflictSchema, versionDetailResponseSchema,
@@ -160,12 +161,44 @@ describe('saving versions', () => {
 
   it('lets a restore and a save made at the same moment both land, one after the other', async () => {
     const s = await studioScene();
-    const [restore, save] = await Promise.all([
-      s.editor.client.post(`/api/drafts/${s.draftId}/versions/1/restore`),
-      put(s.owner, s.draftId, { document: straightTwillTrial(), baseVersion: 1 }),
-    ]);
-    expect([restore.status, save.status]).toEqual([200, 200]);
-    expect([restore.body.version, save.body.version].sort()).toEqual([2, 3]);
+    const { models, sequelize } = server.ctx;
+    // The save is held just after its conditional UPDATE moved the draft row, so it holds that row's
+    // lock while the restore arrives: the restore reads version 1 (the save is not committed), waits
+    // for the lock, finds the draft moved on and tries again on top of the save. Whatever the timing,
+    // both land: the save as version 2, the restore as 3.
+    let release!: () => void;
+    const gate = new Promise<void>((resolve) => { release = resolve; });
+    let holding!: () => void;
+    const held = new Promise<void>((resolve) => { holding = resolve; });
+    models.Draft.addHook('afterBulkUpdate', 'hold-one-save', async (options: { where?: unknown }) => {
+      if ((options.where as { id?: number } | undefined)?.id !== s.draftId) return;
+      models.Draft.removeHook('afterBulkUpdate', 'hold-one-save');
+      holding();
+      await gate;
+    });
+    try {
+      const save = put(s.owner, s.draftId, { document: straightTwillTrial(), baseVersion: 1 });
+      await held;
+      const restore = s.editor.client.post(`/api/drafts/${s.draftId}/versions/1/restore`);
+      // Give the restore up to 3 s to reach the row lock (this user's own threads are visible to it).
+      for (let waited = 0; waited < 3000; waited += 50) {
+        const [row] = await sequelize.query<{ n: number }>(
+          "SELECT COUNT(*) AS n FROM information_schema.PROCESSLIST WHERE INFO LIKE 'UPDATE `drafts`%' AND STATE <> ''",
+          { type: QueryTypes.SELECT },
+        );
+        if (Number(row.n) >= 1) break;
+        await new Promise((resolve) => setTimeout(resolve, 50));
+      }
+      release();
+      const [saved, restored] = await Promise.all([save, restore]);
+      expect([saved.status, restored.status]).toEqual([200, 200]);
+      expect([saved.body.version, restored.body.version]).toEqual([2, 3]);
+      const list = versionListResponseSchema.parse((await s.owner.get(`/api/drafts/${s.draftId}/versions`)).body);
+      expect(list.versions.map((v) => [v.version, v.named])).toEqual([[3, true], [2, false], [1, true]]);
+    } finally {
+      release();
+      models.Draft.removeHook('afterBulkUpdate', 'hold-one-save');
+    }
   });
 
   it('refuses a draft the engine rejects with 422 naming each problem, and a viewer with 403', async () => {

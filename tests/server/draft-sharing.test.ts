@@ -2,9 +2,6 @@ import { once } from 'node:events';
 import fc from 'fast-check';
 import { createServer, request as httpRequest, type IncomingMessage } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   acceptInviteResponseSchema, commentListResponseSchema, PHOTO_MAX_BYTES, photoListResponseSchema, sharedDraftResponseSchema,
@@ -19,14 +16,11 @@ import { startTestServer, type TestClient, type TestServer } from '../helpers/se
 import { uniqueEmail } from '../helpers/test-db';
 
 let server: TestServer;
-let attachmentsDir: string;
 beforeAll(async () => {
-  attachmentsDir = mkdtempSync(join(tmpdir(), 'shedwright-photos-'));
-  server = await startTestServer({ attachmentsDir, publicUrl: 'http://weave.test' });
+  server = await startTestServer({ publicUrl: 'http://weave.test' });
 });
 afterAll(async () => {
   await server.close();
-  rmSync(attachmentsDir, { recursive: true, force: true });
 });
 
 async function scene() {
@@ -188,10 +182,10 @@ describe('photos of the cloth', () => {
     const res = await upload(s.owner, path, png, 'cloth.jpg', 'image/jpeg');
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     expect(res.body.photo).toMatchObject({ version: 1, contentType: 'image/png', bytes: png.length, uploaderName: 'Test owner' });
-    const stored = readdirSync(join(attachmentsDir, 'drafts', String(s.draftId)));
+    // Kept in the object store's bucket (nothing the web server serves), under the draft's prefix.
+    const stored = await server.ctx.storage.keys(`drafts/${s.draftId}/`);
     expect(stored).toHaveLength(1);
-    expect(readFileSync(join(attachmentsDir, 'drafts', String(s.draftId), stored[0]))).toEqual(png);
-    expect(resolve(attachmentsDir).startsWith(resolve('dist'))).toBe(false);
+    expect(await server.ctx.storage.get(stored[0])).toEqual(png);
 
     const list = photoListResponseSchema.parse((await s.viewer.get(`/api/drafts/${s.draftId}/photos`)).body);
     expect(list.photos).toHaveLength(1);
@@ -222,7 +216,7 @@ describe('photos of the cloth', () => {
     expect((await upload(s.viewer, path, jpeg, 'a.jpg')).status).toBe(403);
     expect((await s.owner.post(path)).status).toBe(400);
     // Nothing refused was kept.
-    expect(existsSync(join(attachmentsDir, 'drafts', String(s.draftId)))).toBe(false);
+    expect(await server.ctx.storage.keys(`drafts/${s.draftId}/`)).toEqual([]);
   });
 
   it('finding 9: an upload is refused on access before its file is read', async () => {

@@ -25,6 +25,14 @@ const DOWN_ANSWER_BOUND_MS = 4000;
  */
 const FROZEN_ANSWER_BOUND_MS = 8000;
 const FROZEN_CLIENT_PATIENCE_MS = 20_000;
+/**
+ * How long the test waits for traffic to make progress (saves acknowledged, a restarted server
+ * answering). These bound nothing the app promises, only how long a machine shared with other test
+ * runs may take; the bounds above are the promises.
+ */
+const PROGRESS_PATIENCE_MS = 90_000;
+/** Each test waits for progress a few times over. */
+const TEST_TIMEOUT_MS = 6 * PROGRESS_PATIENCE_MS;
 
 let db: MariaDB;
 let dbPort = 0;
@@ -38,8 +46,8 @@ beforeAll(async () => {
   dbPort = await freePort();
   dbDir = join(root, '.data', `faults-test-${dbPort}`);
   db = await startDb();
-  server = await startTestServer({ db: loadConfig({ ...process.env, ...db.env }).db, attachmentsDir: join(work, 'attachments') });
-});
+  server = await startTestServer({ db: loadConfig({ ...process.env, ...db.env }).db });
+}, 2 * PROGRESS_PATIENCE_MS);
 
 afterAll(async () => {
   await server?.close();
@@ -143,7 +151,7 @@ describe('MariaDB stops while the app serves saves', () => {
     let running = true;
     const traffic = writers.map((w) => w.run(() => running));
 
-    await until('saves before the stop', () => writers.every((w) => w.acknowledged.size >= 3), 20_000);
+    await until('saves before the stop', () => writers.every((w) => w.acknowledged.size >= 3), PROGRESS_PATIENCE_MS);
     await db.stop();
     const stoppedAt = Date.now();
 
@@ -162,9 +170,9 @@ describe('MariaDB stops while the app serves saves', () => {
     const acknowledgedBeforeRestart = writers.map((w) => new Map(w.acknowledged));
 
     db = await startDb();
-    const recoveredMs = await until('a read to succeed again', async () => (await client.get(`/api/drafts/${writers[0].draftId}`)).status === 200, 15_000);
+    const recoveredMs = await until('a read to succeed again', async () => (await client.get(`/api/drafts/${writers[0].draftId}`)).status === 200, PROGRESS_PATIENCE_MS);
     const countsAtRestart = writers.map((w) => w.acknowledged.size);
-    await until('saves after the restart', () => writers.every((w, i) => w.acknowledged.size >= countsAtRestart[i] + 3), 20_000);
+    await until('saves after the restart', () => writers.every((w, i) => w.acknowledged.size >= countsAtRestart[i] + 3), PROGRESS_PATIENCE_MS);
     running = false;
     await Promise.all(traffic);
 
@@ -176,7 +184,7 @@ describe('MariaDB stops while the app serves saves', () => {
     const slowest = Math.max(...downAnswers.map((a) => a.ms));
     console.log(`faults: ${downAnswers.length} reads while down, all 503, slowest ${slowest} ms; recovered ${recoveredMs} ms after restart; `
       + `saves acknowledged ${writers.map((w) => w.acknowledged.size).join('/')}, answers ${writers.map((w) => w.statuses.length).join('/')}`);
-  });
+  }, TEST_TIMEOUT_MS);
 });
 
 describe('MariaDB freezes (the process stopped, its connections left open)', () => {
@@ -213,12 +221,12 @@ describe('MariaDB freezes (the process stopped, its connections left open)', () 
       expect(a.ms).toBeLessThan(FROZEN_ANSWER_BOUND_MS);
     }
     // Thawed: the next requests work again without a restart of the app.
-    const recoveredMs = await until('a read to succeed after the thaw', async () => (await client.get(`/api/drafts/${draftId}`)).status === 200, 15_000);
+    const recoveredMs = await until('a read to succeed after the thaw', async () => (await client.get(`/api/drafts/${draftId}`)).status === 200, PROGRESS_PATIENCE_MS);
     // A save answered 503 may still have committed once the database woke (as when MariaDB stops): build on what it holds.
     const { version } = (await client.get(`/api/drafts/${draftId}`)).body.draft as { version: number };
     expect((await client.send('put', `/api/drafts/${draftId}`, { document, baseVersion: version })).status).toBe(200);
     console.log(`faults: frozen database, ${answers.length} requests all 503 within ${Math.max(...answers.map((a) => a.ms))} ms; recovered ${recoveredMs} ms after the thaw`);
-  });
+  }, TEST_TIMEOUT_MS);
 });
 
 /** A real server process (as `npm start` runs it) over the faults database. */
@@ -236,7 +244,7 @@ class ServerProcess {
     await until('the server to answer', async () => {
       if (child.exitCode !== null) throw new Error(`server exited with ${child.exitCode}:\n${this.output}`);
       return fetch(`${this.url}/api/session`).then((r) => r.ok, () => false);
-    }, 60_000);
+    }, PROGRESS_PATIENCE_MS);
   }
 
   get alive() {
@@ -298,7 +306,6 @@ describe('the server process is killed during saves', () => {
       SHEDWRIGHT_PUBLIC_URL: url,
       SHEDWRIGHT_SESSION_SECRET: 'faults-test-session-secret',
       SHEDWRIGHT_STATIC_DIR: join(work, 'no-client'),
-      SHEDWRIGHT_ATTACHMENTS_DIR: join(work, 'attachments'),
     }, url);
     await app.start();
 
@@ -310,27 +317,29 @@ describe('the server process is killed during saves', () => {
     let running = true;
     const traffic = writers.map((w) => w.run(() => running));
 
-    await until('saves before the kill', () => writers.every((w) => w.acknowledged.size >= 3), 20_000);
+    await until('saves before the kill', () => writers.every((w) => w.acknowledged.size >= 3), PROGRESS_PATIENCE_MS);
     await app.kill('SIGKILL');
     await sleep(300);
     await app.start();
     const countsAtRestart = writers.map((w) => w.acknowledged.size);
-    await until('saves after the restart', () => writers.every((w, i) => w.acknowledged.size >= countsAtRestart[i] + 3), 20_000);
+    await until('saves after the restart', () => writers.every((w, i) => w.acknowledged.size >= countsAtRestart[i] + 3), PROGRESS_PATIENCE_MS);
 
     // The same process through a MariaDB stop: it answers 503 and stays up.
     await db.stop();
-    await until('a 503 from every writer', () => writers.every((w) => w.statuses.includes(503)), 10_000);
+    await until('a 503 from every writer', () => writers.every((w) => w.statuses.includes(503)), PROGRESS_PATIENCE_MS);
     expect(app.alive).toBe(true);
     db = await startDb();
     const countsAtDbRestart = writers.map((w) => w.acknowledged.size);
-    await until('saves after MariaDB returns', () => writers.every((w, i) => w.acknowledged.size >= countsAtDbRestart[i] + 3), 20_000);
+    await until('saves after MariaDB returns', () => writers.every((w, i) => w.acknowledged.size >= countsAtDbRestart[i] + 3), PROGRESS_PATIENCE_MS);
     running = false;
     await Promise.all(traffic);
 
     expect(app.alive).toBe(true);
-    expect(app.output).not.toMatch(/Unexpected error/);
+    // The log (one JSON line per request) has 503s while MariaDB was away, and no unexpected error (500).
+    expect(app.output).toMatch(/"status":503/);
+    expect(app.output).not.toMatch(/"status":500/);
     for (const w of writers) await expectIntactHistory(server.ctx.models, w);
     console.log(`faults (process): saves acknowledged ${writers.map((w) => w.acknowledged.size).join('/')}; `
       + `statuses seen ${[...new Set(writers.flatMap((w) => w.statuses))].sort().join(', ')}`);
-  });
+  }, TEST_TIMEOUT_MS);
 });

@@ -1,6 +1,3 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
@@ -22,10 +19,9 @@ let server: TestServer;
 let owner: { client: TestClient; email: string; draftId: number; studioId: number; memberId: number };
 const counts: Record<string, number> = {};
 
-const attachmentsDir = mkdtempSync(join(tmpdir(), 'shedwright-fuzz-'));
 
 beforeAll(async () => {
-  server = await startTestServer({ attachmentsDir });
+  server = await startTestServer();
   const { client, user, studioId } = await server.signInWithRole('owner');
   const member = await server.createUser({ name: 'Fuzz member' });
   await server.ctx.models.Membership.create({ studioId, userId: member.id, role: 'viewer' });
@@ -37,7 +33,6 @@ afterAll(async () => {
   const lines = Object.entries(counts).map(([route, n]) => `  ${String(n).padStart(5)}  ${route}`);
   console.log(`API fuzz, inputs per route (${Object.values(counts).reduce((a, b) => a + b, 0)} in all):\n${lines.join('\n')}`);
   await server.close();
-  rmSync(attachmentsDir, { recursive: true, force: true });
 });
 
 /** The route's path with real ids: the caller's draft or studio, another member, version 1. */

@@ -1,8 +1,5 @@
-import { mkdtempSync, rmSync } from 'node:fs';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { createDraft } from '../../server/services/drafts';
@@ -17,7 +14,6 @@ import { startTestServer, TEST_PASSWORD, type TestServer } from '../helpers/serv
 
 const WEAVERS = 10;
 const SECONDS = 4;
-const attachmentsDir = mkdtempSync(join(tmpdir(), 'shedwright-load-smoke-'));
 
 let server: TestServer;
 let listening: Server;
@@ -27,7 +23,7 @@ let weavers: Weaver[];
 let active = 0;
 
 beforeAll(async () => {
-  server = await startTestServer({ attachmentsDir });
+  server = await startTestServer();
   listening = server.app.listen(0, '127.0.0.1');
   listening.on('request', (_req, res) => {
     active += 1;
@@ -52,7 +48,6 @@ afterAll(async () => {
     await new Promise((resolve) => listening.close(resolve));
   }
   await server?.close();
-  rmSync(attachmentsDir, { recursive: true, force: true });
 });
 
 describe('mixed traffic from many weavers at once', () => {

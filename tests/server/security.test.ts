@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import express from 'express';
@@ -11,6 +11,7 @@ import type { z } from 'zod';
 import { SESSION_COOKIE } from '../../server/app';
 import { loadConfig } from '../../server/config';
 import { errorHandler } from '../../server/middleware/errors';
+import { createLogger, requestLog } from '../../server/middleware/request-log';
 import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { encodePngRgb } from '../../server/print/png';
 import { routeTable } from '../../server/routes';
@@ -25,7 +26,7 @@ import { createYarn } from '../../server/services/yarns';
 import { defaultPlan } from '../../shared/plan/plan-schema';
 import { toWif } from '../../shared/weave';
 import { startTestServer, TEST_PASSWORD, type TestClient, type TestServer } from '../helpers/server';
-import { uniqueEmail } from '../helpers/test-db';
+import { testLogFile, uniqueEmail } from '../helpers/test-db';
 
 /*
  * Access control beyond the access matrix (which covers callers inside the studio): callers who hold
@@ -35,7 +36,6 @@ import { uniqueEmail } from '../helpers/test-db';
  */
 
 let server: TestServer;
-const attachmentsDir = mkdtempSync(join(tmpdir(), 'shedwright-security-'));
 const keyOf = (spec: RouteSpec) => `${spec.method.toUpperCase()} ${spec.path}`;
 const tinyPng = () => encodePngRgb(1, 1, Uint8Array.of(10, 20, 30));
 
@@ -123,11 +123,10 @@ async function call(client: TestClient, spec: RouteSpec, path: string, body: unk
 }
 
 beforeAll(async () => {
-  server = await startTestServer({ attachmentsDir });
+  server = await startTestServer();
 }, 60_000);
 afterAll(async () => {
   await server.close();
-  rmSync(attachmentsDir, { recursive: true, force: true });
 });
 
 describe('the test knows a valid body for every route that takes one', () => {
@@ -376,7 +375,7 @@ describe('sessions', () => {
 
   it('expire: a session cookie older than the maximum age signs nobody in, even sent again by hand', async () => {
     const maxAge = 1500;
-    const short = await startTestServer({ attachmentsDir, sessionMaxAgeMs: maxAge });
+    const short = await startTestServer({ sessionMaxAgeMs: maxAge });
     try {
       const user = await short.createUser();
       const client = short.client();
@@ -399,7 +398,7 @@ describe('sessions', () => {
 
 describe('sign-in rate limit', () => {
   it('answers 429 once the limit is reached, even to the right password, and counts resets on their own', async () => {
-    const limited = await startTestServer({ attachmentsDir, rateLimit: { windowMs: 60_000, signIn: 3, passwordReset: 2, signUp: 10_000 } });
+    const limited = await startTestServer({ rateLimit: { windowMs: 60_000, signIn: 3, passwordReset: 2 } });
     try {
       const user = await limited.createUser();
       const client = limited.client();
@@ -610,8 +609,8 @@ describe('SQL injection through every text field', () => {
 
 describe('broken text', () => {
   it('finding 8: a lone UTF-16 surrogate in a draft name, tag, notes, fork name or WIF title is refused (400/422), never a 500', async () => {
-    const errors = vi.spyOn(console, 'error');
-    try {
+    const errorsBefore = loggedErrors().length;
+    {
       const s = await makeStudio('Surrogates');
       const lone = 'Scarf \uD800 end';
       const answers = [
@@ -632,31 +631,75 @@ describe('broken text', () => {
       expect(imported.body.error.message).toMatch(/broken character/);
       // Well-formed pairs are text like any other.
       expect((await s.owner.post('/api/drafts', { name: 'Scarf 🧶', document: pointTwillScarf() })).status).toBe(201);
-      expect(errors.mock.calls.filter((c) => String(c[0]).startsWith('Unexpected error'))).toEqual([]);
-    } finally {
-      errors.mockRestore();
+      expect(loggedErrors().slice(errorsBefore)).toEqual([]);
     }
   });
 
-  it('finding 8: a database error is logged without its SQL or the values it carried', async () => {
+  it('finding 8: a database error is logged with its stack but without its SQL or the values it carried', async () => {
     const s = await makeStudio('Quiet errors');
     const secret = 'private-tag-6617';
     // A value MariaDB itself refuses, written past the schemas, as a bug would.
     const failure = await server.ctx.models.Draft.update({ tags: [`${secret} \uD800`] }, { where: { id: s.draftId } }).then(() => null, (err: unknown) => err);
     expect(failure).toBeInstanceOf(Error);
-    const app = express();
-    app.get('/fails', () => { throw failure; });
-    app.use(errorHandler);
-    const errors = vi.spyOn(console, 'error').mockImplementation(() => undefined);
+    const dir = mkdtempSync(join(tmpdir(), 'shedwright-log-'));
     try {
+      const app = express();
+      app.use(requestLog(createLogger({ level: 'info', file: join(dir, 'app.log'), sync: true })));
+      app.get('/fails', () => { throw failure; });
+      app.use(errorHandler);
       const res = await request(app).get('/fails');
       expect(res.status).toBe(500);
-      const logged = errors.mock.calls.map((c) => c.map(String).join(' ')).join('\n');
-      expect(logged).toMatch(/Unexpected error on GET \/fails/);
+      const lines = readFileSync(join(dir, 'app.log'), 'utf8').trim().split('\n').map((l) => JSON.parse(l) as LogLine);
+      expect(lines).toHaveLength(1);
+      expect(lines[0]).toMatchObject({ level: 50, req: { method: 'GET', path: '/fails' }, res: { status: 500 } });
+      expect(lines[0].id).toBe(res.headers['x-request-id']);
+      expect(lines[0].err?.stack).toMatch(/^SequelizeDatabaseError.*\n\s+at /);
+      const logged = JSON.stringify(lines);
       expect(logged).not.toContain(secret);
       expect(logged).not.toMatch(/UPDATE|parameters/);
     } finally {
-      errors.mockRestore();
+      rmSync(dir, { recursive: true, force: true });
     }
+  });
+});
+
+interface LogLine {
+  level: number;
+  id?: string;
+  msg?: string;
+  req?: { method: string; path: string };
+  res?: { status: number };
+  err?: { stack?: string };
+}
+
+/** What the apps of this file have logged so far (their log file, from tests/helpers/test-db.ts). */
+function logLines(): LogLine[] {
+  if (!existsSync(testLogFile)) return [];
+  return readFileSync(testLogFile, 'utf8').split('\n').filter(Boolean).map((l) => JSON.parse(l) as LogLine);
+}
+const loggedErrors = () => logLines().filter((l) => l.level >= 50);
+
+// Runs last in this file: everything the suite above sent has been logged by then.
+describe('the log after the security suite', () => {
+  it('has one line per request with its id, and never a password, token, cookie or request body', () => {
+    const text = existsSync(testLogFile) ? readFileSync(testLogFile, 'utf8') : '';
+    const requests = logLines().filter((l) => l.req && l.res);
+    expect(requests.length).toBeGreaterThan(500);
+    for (const line of requests) {
+      expect(line.id).toMatch(/^[\w.-]{8,64}$/);
+      expect(line.req!.method).toMatch(/^[A-Z]+$/);
+    }
+    for (const password of [TEST_PASSWORD, 'first-secret-password-5521', 'second-secret-password-8832', 'a-new-long-password', 'guess-number-']) {
+      expect(text).not.toContain(password);
+    }
+    // No header is logged: not the cookie, the CSRF token or any authorisation; no body field either.
+    expect(text).not.toMatch(/"(cookie|set-cookie|x-csrf-token|authorization|headers|password|email)"/i);
+    expect(text).not.toContain(SESSION_COOKIE);
+    // Share and reset tokens are 43 base64url characters, CSRF tokens 64 hex: no such run is logged
+    // (apart from the request ids, UUIDs the server made).
+    expect(text.replace(/"id":"[\w-]+"/g, '')).not.toMatch(/[\w-]{32,}/);
+    // Bodies: nothing of a draft (its name, palette or threading) or of a comment's text.
+    expect(text).not.toMatch(/"(body|document|threading|palette|text)"/);
+    expect(text).not.toContain('Scarf');
   });
 });

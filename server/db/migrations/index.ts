@@ -8,6 +8,7 @@ import * as structureBackfill from './0005-structure-backfill';
 import * as saveProcedure from './0006-save-procedure';
 import * as workingVersions from './0007-working-versions';
 import * as pendingSignUps from './0008-pending-sign-ups';
+import * as rateLimits from './0009-rate-limits';
 
 /**
  * Every migration, oldest first. Listed by hand rather than globbed so the list is type-checked and
@@ -22,4 +23,5 @@ export const migrations: RunnableMigration<QueryInterface>[] = [
   { name: '0006-save-procedure', ...saveProcedure },
   { name: '0007-working-versions', ...workingVersions },
   { name: '0008-pending-sign-ups', ...pendingSignUps },
+  { name: '0009-rate-limits', ...rateLimits },
 ];
