@@ -1,3 +1,4 @@
+import { formatNumber } from '../../shared/words';
 import { writeText } from './pdf-text';
 
 /** Inks, sizes and the one-line text call the print pages share. */
@@ -25,5 +26,5 @@ export function swatch(doc: Doc, hex: string, x: number, y: number): void {
 
 /** "1 end", "2,000 ends". */
 export function plural(n: number, one: string, many = `${one}s`): string {
-  return `${n.toLocaleString('en')} ${n === 1 ? one : many}`;
+  return `${formatNumber(n)} ${n === 1 ? one : many}`;
 }

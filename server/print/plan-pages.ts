@@ -1,3 +1,4 @@
+import { formatNumber } from '../../shared/words';
 import { pickCount, type Draft } from '../../shared/weave';
 import {
   planBlocker,
@@ -107,7 +108,7 @@ export function settText(s: ClothSett): string {
 }
 
 function fixed(n: number, digits = 1): string {
-  return n.toLocaleString('en', { maximumFractionDigits: digits, minimumFractionDigits: 0 });
+  return formatNumber(n, digits);
 }
 
 function percent(rate: number): string {

@@ -9,6 +9,7 @@ import { renderDraftPdf } from '../print/draft-pdf';
 import { renderDrawdownPngAsync } from '../print/drawdown-png';
 import { getPlan } from './plans';
 import { sharedDraft } from './sharing';
+import { formatDay } from '../../shared/words';
 
 /** A draft with what its print says about it. */
 export interface Printable {
@@ -20,7 +21,7 @@ export interface Printable {
 
 /** "2 March 2025", as the weaver reads a date on paper. */
 function paperDate(d: Date): string {
-  return d.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+  return formatDay(d);
 }
 
 /** The draft as its editors see it now (the working document), with its saved plan if any. */

@@ -1,3 +1,4 @@
+import { ROLE_NAMES } from '../../shared/words';
 import { Op } from 'sequelize';
 import { roleRank } from '../../shared/api/auth';
 import type { AcceptInviteResponse, InviteBody } from '../../shared/api';
@@ -21,7 +22,7 @@ export async function inviteToStudio(
   await mailer.send({
     to: body.email,
     subject: `${inviter.name} invites you to ${studio.name} on Shedwright`,
-    text: `Hello,\n\n${inviter.name} invites you to join the studio “${studio.name}” on Shedwright as ${body.role}.\n`
+    text: `Hello,\n\n${inviter.name} invites you to join the studio “${studio.name}” on Shedwright as ${ROLE_NAMES[body.role].toLowerCase()}.\n`
       + `Open this link within 14 days to join (you can make an account there if you have none):\n\n${link}\n\n`
       + 'If you were not expecting this, ignore this mail.\n',
   });

@@ -1,14 +1,15 @@
 import { NavLink } from 'react-router-dom';
+import { SECTION_NAMES } from '../../../shared/words';
 
 /** The draft's sections, in the order a weaver works through them; '' is Design, the workspace itself. */
 export const DRAFT_SECTIONS = [
-  { path: '', label: 'Design' },
-  { path: 'plan', label: 'Plan' },
-  { path: 'loom', label: 'At the loom' },
-  { path: 'history', label: 'History' },
-  { path: 'print', label: 'Print and export' },
-  { path: 'notes', label: 'Notes and photos' },
-  { path: 'discussion', label: 'Discussion' },
+  { path: '', label: SECTION_NAMES.design },
+  { path: 'plan', label: SECTION_NAMES.plan },
+  { path: 'loom', label: SECTION_NAMES.loom },
+  { path: 'history', label: SECTION_NAMES.history },
+  { path: 'print', label: SECTION_NAMES.print },
+  { path: 'notes', label: SECTION_NAMES.notes },
+  { path: 'discussion', label: SECTION_NAMES.discussion },
 ] as const;
 
 /** One click from any section to any other; the current one is marked by weight and a rule, not colour alone. */

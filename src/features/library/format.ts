@@ -1,7 +1,9 @@
-const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
-const dateTimeFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+import { LOCALE } from '../../../shared/words';
 
-/** A day in the reader's own locale; an unreadable date is shown as given rather than "Invalid Date". */
+const dateFormat = new Intl.DateTimeFormat(LOCALE, { dateStyle: 'medium' });
+const dateTimeFormat = new Intl.DateTimeFormat(LOCALE, { dateStyle: 'medium', timeStyle: 'short' });
+
+/** A day written the British way (5 Dec 2026); an unreadable date is shown as given rather than "Invalid Date". */
 export function formatDate(iso: string, withTime = false): string {
   const date = new Date(iso);
   if (Number.isNaN(date.getTime())) return iso;

@@ -1,11 +1,12 @@
 import type { LengthUnit } from '../../../shared/weave/types';
+import { formatNumber } from '../../../shared/words';
 
 const UNIT_WORD: Record<LengthUnit, string> = { inch: 'in', cm: 'cm' };
 const PER_UNIT: Record<LengthUnit, string> = { inch: 'per inch', cm: 'per cm' };
 
-/** A number rounded for reading, with thousands separated: 1 234.5. */
+/** A number rounded for reading, with thousands separated: 1,234.5. */
 export function num(value: number, decimals = 1): string {
-  return value.toLocaleString('en-GB', { maximumFractionDigits: decimals, minimumFractionDigits: 0 });
+  return formatNumber(value, decimals);
 }
 
 /** A length in the plan's unit, with yards or metres beside it when it is long. */

@@ -26,7 +26,7 @@ describe('yarns page', () => {
     mockApi(routes({ 'GET /api/yarns': { body: { yarns: [] } } }));
     renderApp('/yarns');
     expect(await screen.findByText('No yarns yet')).toBeTruthy();
-    expect(screen.getByText('Yarns you add here can be picked when you make a new colourway.')).toBeTruthy();
+    expect(screen.getByText('Yarns you add here can be chosen when you make a new colourway.')).toBeTruthy();
     expect(screen.queryByRole('table')).toBeNull();
   });
 

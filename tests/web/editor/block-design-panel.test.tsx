@@ -40,7 +40,7 @@ describe('block design panel', () => {
     // Treadle 2 also shows block 1 now: rows 2 and 4 show the pattern in both blocks.
     fireEvent.click(within(tieup).getByRole('button', { name: 'Treadle 2 shows the pattern in block 1' }));
     // The picks on treadle 2 take rust in layer 1.
-    fireEvent.click(within(panel).getByLabelText('Rows on treadle 2 have their own weft colours'));
+    fireEvent.click(within(panel).getByLabelText('Rows on treadle 2 have their own weft colour order'));
     fireEvent.change(within(panel).getByLabelText('Treadle 2 weft, Layer 1, place 1'), { target: { value: '2' } });
     fireEvent.click(within(panel).getByRole('button', { name: 'Use as the draft' }));
 

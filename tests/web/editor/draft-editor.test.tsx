@@ -107,4 +107,21 @@ describe('DraftEditor', () => {
     expect(screen.getByTestId('editor-message').textContent).toBe('Threading, end 1, shaft 3: empty.');
     expect(screen.queryByRole('button', { name: 'Straight draw' })).toBeNull();
   });
+
+  it('offers Keep my version and Use the other version after a conflict, each saying what it loses', async () => {
+    const theirs = twill({ name: 'Their scarf' });
+    const onSave = vi.fn(async () => ({ conflict: { version: 5, document: theirs } }));
+    render(<DraftEditor draft={twill()} version={3} draftId="test-conflict" onSave={onSave} />);
+    const grid = screen.getByTestId('draft-canvas');
+    fireEvent.keyDown(grid, { key: ' ' });
+    await act(async () => {
+      await new Promise((r) => setTimeout(r, 1200));
+    });
+    const dialog = within(await screen.findByRole('alertdialog'));
+    const keep = dialog.getByRole('button', { name: 'Keep my version' });
+    const use = dialog.getByRole('button', { name: 'Use the other version' });
+    const loses = (button: HTMLElement) => document.getElementById(button.getAttribute('aria-describedby') ?? '')?.textContent;
+    expect(loses(keep)).toBe('Saves yours on top. The changes in version 5 are not in it; that version stays in History.');
+    expect(loses(use)).toBe('Opens version 5. The edits you made since your last save are lost.');
+  });
 });

@@ -1,3 +1,4 @@
+import { LOCALE } from '../../../../shared/words';
 import { useId, useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
@@ -8,7 +9,7 @@ import { useAddComment } from '../api/add-comment';
 import { useDeleteComment } from '../api/delete-comment';
 import { useComments } from '../api/get-comments';
 
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+const when = new Intl.DateTimeFormat(LOCALE, { dateStyle: 'medium', timeStyle: 'short' });
 const optionalNumber = (text: string) => (text.trim() === '' ? undefined : Number(text));
 
 /** Questions and notes on a draft; anyone who can see it may comment, and delete their own. */

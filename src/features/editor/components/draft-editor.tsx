@@ -1,3 +1,4 @@
+import { LOCALE } from '../../../../shared/words';
 import { useContext, useEffect, useMemo, useState, type KeyboardEvent } from 'react';
 import type { Draft } from '../../../../shared/weave';
 import { createDerived } from '../canvas/derived';
@@ -76,7 +77,7 @@ export function DraftEditor(props: DraftEditorProps) {
   return <OpenEditor {...props} readOnly={readOnly} id={id} kept={kept} />;
 }
 
-const timeOfDay = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+const timeOfDay = new Intl.DateTimeFormat(LOCALE, { dateStyle: 'medium', timeStyle: 'short' });
 
 function OpenEditor({ draft, version, readOnly, onSave, guardNavigation = false, showBlockDesign = false, id, kept }: DraftEditorProps & { readOnly: boolean; id: string; kept: Kept }) {
   const [{ editor, derived }] = useState(() => {

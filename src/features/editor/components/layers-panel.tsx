@@ -38,7 +38,7 @@ export function LayersPanel({ readOnly = false }: { readOnly?: boolean }) {
       </h2>
       <label className="flex items-center gap-1">
         <input type="checkbox" checked={shown} disabled={shown && !layerRows} onChange={(e) => editor.setView({ layerRows: e.target.checked })} />
-        Show the layer rows beside the colour rows{shown && !layerRows ? ' (this draft has layers)' : ''}
+        Show the layer rows beside the colour orders{shown && !layerRows ? ' (this draft has layers)' : ''}
       </label>
       {!readOnly && (
         <>

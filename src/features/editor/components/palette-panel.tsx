@@ -35,7 +35,7 @@ export function PalettePanel({ readOnly = false }: { readOnly?: boolean }) {
       <h2 id="palette-heading" className="text-sm font-semibold">
         Colours and yarns
       </h2>
-      <p className="text-xs text-muted">Choose a colour, then draw in the warp or weft colour row.</p>
+      <p className="text-xs text-muted">Choose a colour, then draw it into the warp or weft colour order.</p>
       <ul className="flex flex-col gap-1">
         {palette.map((hex, i) => (
           <PaletteRow

@@ -259,7 +259,7 @@ export function ProfilePanel() {
         {blockNumbers.map((b) => (
           <OwnColourOrders
             key={`w${b}`}
-            label={`Block ${b} has its own warp colours`}
+            label={`Block ${b} has its own warp colour order`}
             name={`Block ${b} warp`}
             sets={unit.warpSets}
             defaults={fitted.warpColors}
@@ -274,7 +274,7 @@ export function ProfilePanel() {
         {Array.from({ length: weftBlocks }, (_, i) => i + 1).map((b) => (
           <OwnColourOrders
             key={`f${b}`}
-            label={`${treadled ? `Rows on treadle ${b}` : `Rows where block ${b} is the first to show the pattern`} have their own weft colours`}
+            label={`${treadled ? `Rows on treadle ${b}` : `Rows where block ${b} is the first to show the pattern`} have their own weft colour order`}
             name={treadled ? `Treadle ${b} weft` : `Block ${b} weft`}
             sets={unit.weftSets}
             defaults={fitted.weftColors}

@@ -19,15 +19,25 @@ export function SaveStatus({ autosave }: { autosave: Autosave }) {
             <span aria-hidden="true">⚠ </span>Someone saved this draft before you
           </h2>
           <p id="conflict-text" className="my-2">
-            Version {conflict.version} on the server is not the one your edits started from. Nothing has been overwritten. Choose which draft to keep:
+            Version {conflict.version} on the server is not the one your edits started from. Nothing has been overwritten. Choose which version to keep:
           </p>
-          <div className="flex flex-wrap gap-2">
-            <button type="button" className="rounded-md bg-accent px-3 py-1.5 font-medium text-white hover:bg-accent-strong" onClick={() => autosave.keepMine()}>
-              Keep mine as a new version
-            </button>
-            <button type="button" className="rounded-md border border-field bg-surface px-3 py-1.5 font-medium hover:bg-sunken" onClick={() => autosave.takeTheirs()}>
-              Take theirs
-            </button>
+          <div className="flex flex-col gap-2">
+            <div>
+              <button type="button" aria-describedby="keep-mine-loses" className="rounded-md bg-accent px-3 py-1.5 font-medium text-white hover:bg-accent-strong" onClick={() => autosave.keepMine()}>
+                Keep my version
+              </button>
+              <p id="keep-mine-loses" className="mt-1 text-xs">
+                Saves yours on top. The changes in version {conflict.version} are not in it; that version stays in History.
+              </p>
+            </div>
+            <div>
+              <button type="button" aria-describedby="use-other-loses" className="rounded-md border border-field bg-surface px-3 py-1.5 font-medium hover:bg-sunken" onClick={() => autosave.takeTheirs()}>
+                Use the other version
+              </button>
+              <p id="use-other-loses" className="mt-1 text-xs">
+                Opens version {conflict.version}. The edits you made since your last save are lost.
+              </p>
+            </div>
           </div>
         </div>
       )}

@@ -1,5 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import { MAX_SHAFTS, MAX_TREADLES, type RunChange } from '../../../../shared/weave';
+import { ARRANGEMENT_NAMES, NAMES } from '../../../../shared/words';
 import { useStore } from '../store/create-store';
 import { setShafts, setTreadles } from '../store/edits';
 import { COMMANDS, tooltipOf, type CommandId } from '../store/commands';
@@ -161,7 +162,7 @@ export function Toolbar({ readOnly = false, onShowKeys }: { readOnly?: boolean; 
             </select>
           </label>
           <label className="flex items-center gap-1 text-xs">
-            Numbers every
+            {NAMES.numbersEvery}
             <select value={rulerStep} onChange={(e) => editor.setView({ rulerStep: Number(e.target.value) as 4 | 8 | 10 })} className="rounded border border-field bg-surface px-1">
               {[4, 8, 10].map((n) => (
                 <option key={n} value={n}>
@@ -171,16 +172,16 @@ export function Toolbar({ readOnly = false, onShowKeys }: { readOnly?: boolean; 
             </select>
           </label>
           <label className="flex items-center gap-1 text-xs">
-            <input type="checkbox" checked={arrangement.threadingBelow} onChange={(e) => editor.setView({ arrangement: { ...arrangement, threadingBelow: e.target.checked } })} />
-            Threading below
+            <input type="checkbox" checked={!arrangement.threadingBelow} onChange={(e) => editor.setView({ arrangement: { ...arrangement, threadingBelow: !e.target.checked } })} />
+            {ARRANGEMENT_NAMES.threadingAbove}
           </label>
           <label className="flex items-center gap-1 text-xs">
-            <input type="checkbox" checked={arrangement.treadlingLeft} onChange={(e) => editor.setView({ arrangement: { ...arrangement, treadlingLeft: e.target.checked } })} />
-            Treadling on the left
+            <input type="checkbox" checked={!arrangement.treadlingLeft} onChange={(e) => editor.setView({ arrangement: { ...arrangement, treadlingLeft: !e.target.checked } })} />
+            {ARRANGEMENT_NAMES.treadlingRight}
           </label>
           <label className="flex items-center gap-1 text-xs">
-            <input type="checkbox" checked={arrangement.shaftsFromTop} onChange={(e) => editor.setView({ arrangement: { ...arrangement, shaftsFromTop: e.target.checked } })} />
-            Shaft 1 at the top
+            <input type="checkbox" checked={!arrangement.shaftsFromTop} onChange={(e) => editor.setView({ arrangement: { ...arrangement, shaftsFromTop: !e.target.checked } })} />
+            {ARRANGEMENT_NAMES.shaftOneAtBottom}
           </label>
           <button type="button" className={btn} onClick={onShowKeys} title="Keys (?)">
             Keys

@@ -1,4 +1,5 @@
 import type { Draft, RunChange } from '../../../../shared/weave';
+import { CLOTH_VIEW_NAMES, NAMES } from '../../../../shared/words';
 import { GROW_MARGIN, refAt, type Arrangement } from '../canvas/layout';
 import { createStore, type Store } from './create-store';
 import { createDraftStore, type DraftStore, type EditGuard } from './draft-store';
@@ -32,12 +33,12 @@ export type Tool = 'draw' | 'erase' | 'select';
 /** The cloth views, in the order the editor offers them. */
 export type ClothView = 'structure' | 'colour' | 'floats' | 'front' | 'back' | 'layers';
 export const CLOTH_VIEWS: { id: ClothView; label: string }[] = [
-  { id: 'structure', label: 'Structure' },
-  { id: 'colour', label: 'Colour' },
-  { id: 'floats', label: 'Floats' },
-  { id: 'front', label: 'Front' },
-  { id: 'back', label: 'Back' },
-  { id: 'layers', label: 'Layer map' },
+  { id: 'structure', label: CLOTH_VIEW_NAMES.structure },
+  { id: 'colour', label: CLOTH_VIEW_NAMES.colour },
+  { id: 'floats', label: CLOTH_VIEW_NAMES.floats },
+  { id: 'front', label: CLOTH_VIEW_NAMES.front },
+  { id: 'back', label: CLOTH_VIEW_NAMES.back },
+  { id: 'layers', label: CLOTH_VIEW_NAMES.layers },
 ];
 
 /** A cell of a grid by its place on screen: column and row within the grid. */
@@ -485,9 +486,9 @@ export function describeCell(draft: Draft, grid: GridId, index: number, value: n
     case 'liftplan':
       return `Lift plan, pick ${index + 1}, shaft ${value}: ${state}.`;
     case 'warpColors':
-      return `Warp colours, end ${index + 1}: colour ${(draft.warpColors[index] ?? 0) + 1}.`;
+      return `${NAMES.warpColourOrder}, end ${index + 1}: colour ${(draft.warpColors[index] ?? 0) + 1}.`;
     case 'weftColors':
-      return `Weft colours, pick ${index + 1}: colour ${(draft.weftColors[index] ?? 0) + 1}.`;
+      return `${NAMES.weftColourOrder}, pick ${index + 1}: colour ${(draft.weftColors[index] ?? 0) + 1}.`;
     case 'warpLayers':
       return `Warp layers, end ${index + 1}: layer ${draft.warpLayers[index] ?? 1}.`;
     case 'weftLayers':

@@ -1,5 +1,6 @@
 import type { Draft } from '../../../../shared/weave';
 import { MAX_SHAFTS, MAX_TREADLES } from '../../../../shared/weave';
+import { NAMES } from '../../../../shared/words';
 
 /**
  * The grids a weaver draws in. Each is a list indexed by end, treadle or pick (the "index"), whose
@@ -20,8 +21,8 @@ export const GRID_LABELS: Record<GridId, string> = {
   tieup: 'Tie-up',
   treadling: 'Treadling',
   liftplan: 'Lift plan',
-  warpColors: 'Warp colours',
-  weftColors: 'Weft colours',
+  warpColors: NAMES.warpColourOrder,
+  weftColors: NAMES.weftColourOrder,
   warpLayers: 'Warp layers',
   weftLayers: 'Weft layers',
 };

@@ -1,3 +1,4 @@
+import { LOCALE } from '../../../../shared/words';
 import { useState, type ReactNode } from 'react';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
@@ -8,7 +9,7 @@ import { useRestoreVersion } from '../api/restore-version';
 import { CompareView } from './compare-view';
 import { VersionView } from './version-view';
 
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+const when = new Intl.DateTimeFormat(LOCALE, { dateStyle: 'medium', timeStyle: 'short' });
 const cell = 'px-3 py-2 text-left align-top';
 
 /**

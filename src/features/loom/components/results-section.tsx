@@ -1,3 +1,4 @@
+import { LOCALE } from '../../../../shared/words';
 import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
@@ -86,7 +87,7 @@ export function ResultsSection({ draftId, unit: planUnit }: { draftId: number; u
         <ul aria-label="Results so far" className="flex flex-col gap-1 text-sm">
           {results.data.results.map((r) => (
             <li key={r.id}>
-              {new Date(r.createdAt).toLocaleDateString('en-GB')} · {r.mine ? 'you' : r.weaverName}: <Allowances r={r} />
+              {new Date(r.createdAt).toLocaleDateString(LOCALE)} · {r.mine ? 'you' : r.weaverName}: <Allowances r={r} />
               {r.notes ? ` — ${r.notes}` : ''}
             </li>
           ))}

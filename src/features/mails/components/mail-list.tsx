@@ -1,3 +1,4 @@
+import { LOCALE } from '../../../../shared/words';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorNotice } from '../../../components/ui/error-notice';
@@ -44,7 +45,7 @@ function MailItem({ mail }: { mail: CapturedMail }) {
       <article aria-label={mail.subject} className="flex flex-col gap-2 rounded-md border border-line bg-surface p-4">
         <h2 className="font-semibold">{mail.subject}</h2>
         <p className="text-sm text-muted">
-          To {mail.to} · <time dateTime={mail.date}>{new Date(mail.date).toLocaleString()}</time>
+          To {mail.to} · <time dateTime={mail.date}>{new Date(mail.date).toLocaleString(LOCALE)}</time>
         </p>
         <p className="text-sm break-words whitespace-pre-wrap">
           {linkify(mail.text).map((part, i) =>

@@ -100,7 +100,7 @@ export function YarnsPage() {
       {yarns.isPending ? <Spinner label="Loading yarns…" /> : yarns.isError ? (
         <ErrorNotice title="Could not load your yarns" error={yarns.error} onRetry={() => void yarns.refetch()} />
       ) : yarns.data.yarns.length === 0 ? (
-        <EmptyState title="No yarns yet">Yarns you add here can be picked when you make a new colourway.</EmptyState>
+        <EmptyState title="No yarns yet">Yarns you add here can be chosen when you make a new colourway.</EmptyState>
       ) : (
         <div className="overflow-x-auto rounded-md border border-line bg-surface">
           <table className="w-full border-collapse text-sm">
