@@ -27,7 +27,7 @@ describe('new colourway as a student', () => {
     const forkId = Number(new URL(page.url()).pathname.split('/').pop());
     // Where it came from is in the draft's Notes and photos.
     await page.getByRole('navigation', { name: 'Sections of this draft' }).getByRole('link', { name: 'Notes and photos' }).click();
-    const forkedFrom = page.getByRole('list', { name: 'Forked from, nearest first' });
+    const forkedFrom = page.getByRole('list', { name: 'Made from, nearest first' });
     await forkedFrom.getByRole('link', { name: 'Point twill scarf' }).waitFor();
     expect(await forkedFrom.textContent()).toMatch(/version 1/);
     await screenshot(page, 'fork-lineage');

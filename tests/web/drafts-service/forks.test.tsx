@@ -122,7 +122,7 @@ describe('lineage', () => {
     });
     renderApp('/drafts/7/notes');
     const section = await screen.findByRole('region', { name: 'Lineage' });
-    const parents = within(await within(section).findByRole('list', { name: 'Forked from, nearest first' })).getAllByRole('listitem');
+    const parents = within(await within(section).findByRole('list', { name: 'Made from, nearest first' })).getAllByRole('listitem');
     expect(parents.map((li) => li.textContent)).toEqual([
       'Twill sampler by Tamsin Greaves (version 5)',
       'Straight draw by Ola Brightwater',

@@ -45,6 +45,8 @@ describe('share controls', () => {
 
     fireEvent.click(panel.getByRole('button', { name: 'Copy' }));
     expect(writeText).toHaveBeenCalledWith(url);
+    // Copying says it worked, so the weaver knows the link is ready to paste.
+    expect((await panel.findByRole('status')).textContent).toContain('Copied: paste it where you need it.');
     expect(panel.getByRole('button', { name: 'Make a new link' })).toBeTruthy();
     expect(panel.getByRole('button', { name: 'Withdraw link' })).toBeTruthy();
   });

@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { NAMES } from '../../../../shared/words';
 import { ErrorNotice } from '../../../components/ui/error-notice';
 import { Spinner } from '../../../components/ui/spinner';
 import type { LineageDraft } from '../../../types/api';
@@ -12,7 +13,7 @@ function DraftLink({ draft }: { draft: LineageDraft }) {
   );
 }
 
-/** The draft's family: what it was forked from (nearest first) and the colourways made from it. */
+/** The draft's family: what it was made from (nearest first) and the colourways made from it. */
 export function LineageView({ draftId }: { draftId: number }) {
   const query = useLineage(draftId);
   if (query.isPending) return <Spinner label="Loading the lineage…" />;
@@ -22,11 +23,11 @@ export function LineageView({ draftId }: { draftId: number }) {
     <section aria-labelledby="lineage-heading" className="flex flex-col gap-2 text-sm">
       <h2 id="lineage-heading" className="text-lg font-semibold">Lineage</h2>
       <div>
-        <h3 className="font-medium">Forked from</h3>
+        <h3 className="font-medium">{NAMES.madeFrom}</h3>
         {ancestors.length === 0 && hiddenAncestors === 0 ? (
           <p className="text-muted">Nothing: this draft started here.</p>
         ) : (
-          <ol aria-label="Forked from, nearest first" className="ml-5 list-decimal">
+          <ol aria-label={`${NAMES.madeFrom}, nearest first`} className="ml-5 list-decimal">
             {ancestors.map((a, i) => (
               <li key={a.id}>
                 <DraftLink draft={a} />

@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
 import { useCreateShareLink } from '../api/create-share-link';
@@ -11,6 +12,16 @@ export function ShareControls({ draftId }: { draftId: number }) {
   const revoke = useRevokeShareLink(draftId);
   const shared = status.data?.shared ?? false;
   const url = create.data?.url;
+  const [copied, setCopied] = useState<'done' | 'failed' | null>(null);
+  const copy = async (text: string) => {
+    try {
+      if (!navigator.clipboard) throw new Error('no clipboard');
+      await navigator.clipboard.writeText(text);
+      setCopied('done');
+    } catch {
+      setCopied('failed');
+    }
+  };
 
   return (
     <section aria-labelledby="share-heading" className="flex flex-col gap-2 text-sm">
@@ -24,8 +35,11 @@ export function ShareControls({ draftId }: { draftId: number }) {
         <p className="flex flex-wrap items-center gap-2">
           <label htmlFor="share-url" className="font-medium">Link</label>
           <input id="share-url" readOnly value={url} className="w-96 max-w-full rounded-md border border-field px-2 py-1" onFocus={(e) => e.target.select()} />
-          <Button variant="quiet" onClick={() => void navigator.clipboard?.writeText(url)}>Copy</Button>
-          <span className="text-muted">Shown once: keep it now.</span>
+          <Button variant="quiet" onClick={() => void copy(url)}>Copy</Button>
+          <span role="status" className={copied === 'failed' ? 'font-medium text-danger' : 'text-muted'}>
+            {copied === 'done' ? 'Copied: paste it where you need it. ' : copied === 'failed' ? 'Could not copy: select the link and copy it yourself. ' : ''}
+            Shown once: keep it now.
+          </span>
         </p>
       )}
       <div className="flex gap-2">
