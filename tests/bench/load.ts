@@ -16,6 +16,7 @@ import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Sequelize } from 'sequelize';
 import { startMariaDB, type MariaDB } from '../../scripts/lib/mariadb.mjs';
+import { startS3Fake, type S3Fake } from '../../scripts/lib/s3-fake.mjs';
 import { loadConfig } from '../../server/config';
 import { doubleWeaveTableMat } from '../../server/db/seeders/demo-drafts';
 import { createSequelize } from '../../server/db/sequelize';
@@ -41,14 +42,16 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const log = (text: string) => console.log(`[load] ${text}`);
 
 let db: MariaDB | undefined;
+let s3: S3Fake | undefined;
 let sequelize: Sequelize | undefined;
 let server: AppServer | undefined;
 
-/** Stops the server, the seeding connection and MariaDB, and removes the load database. */
+/** Stops the server, the seeding connection, MariaDB and the object store, and removes their data. */
 async function stopEverything() {
   await server?.stop();
   await sequelize?.close().catch(() => undefined);
   await db?.stop();
+  await s3?.stop();
   rmSync(dir, { recursive: true, force: true });
 }
 
@@ -62,12 +65,13 @@ async function main(): Promise<number> {
   rmSync(dir, { recursive: true, force: true });
   const started = Date.now();
   db = await startMariaDB({ dir, port: await freePort(), database: 'shedwright_load', user: 'shedwright' });
-  // As `npm start` runs it (migrations, demo seed, server/index.ts), over the load database.
+  s3 = await startS3Fake({ port: 0, dir: join(dir, 's3'), bucket: 'shedwright-load' });
+  // As `npm start` runs it (migrations, demo seed, server/index.ts), over the load database and object store.
   server = await startAppServer({
     ...db.env,
+    ...s3.env,
     SHEDWRIGHT_DEV: '0',
     SHEDWRIGHT_STATIC_DIR: join(dir, 'no-client'),
-    SHEDWRIGHT_ATTACHMENTS_DIR: join(dir, 'attachments'),
     // Every weaver signs in from the same loopback address.
     SHEDWRIGHT_SIGNIN_LIMIT: String(CONNECTIONS * 10),
   });
