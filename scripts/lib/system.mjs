@@ -1,6 +1,6 @@
 // Installs what a fresh Debian machine lacks: npm packages from the lock file and Debian packages.
 import { spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 
 export const root = new URL('../..', import.meta.url).pathname.replace(/\/$/, '');
@@ -17,7 +17,10 @@ export function has(command) {
 
 /** npm packages from the lock file, when node_modules is missing or older than the lock. */
 export function ensureNodeModules() {
-  if (existsSync(join(root, 'node_modules', '.package-lock.json'))) return;
+  const installed = join(root, 'node_modules', '.package-lock.json');
+  // npm writes its own copy of the lock when it installs; a lock changed since then (a pull that
+  // adds a package) means node_modules is stale.
+  if (existsSync(installed) && statSync(installed).mtimeMs >= statSync(join(root, 'package-lock.json')).mtimeMs) return;
   console.log('Installing npm packages from package-lock.json …');
   run('npm', ['ci', '--no-audit', '--no-fund']);
 }
