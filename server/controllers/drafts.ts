@@ -2,7 +2,8 @@ import type { CreateDraftBody, DraftListQuery, ForkBody, SaveDraftBody, UpdateDr
 import { toWif } from '../../shared/weave';
 import type { Ctx } from '../http/handler';
 import { versionDocument } from '../services/draft-documents';
-import { attachmentDisposition, draftFromWifFile } from '../services/draft-files';
+import { attachmentDisposition } from '../services/draft-files';
+import { parseWifUpload } from '../services/wif-parse';
 import { draftThumbnail } from '../services/draft-thumbnails';
 import { createFromBody, createFromDocument, deleteDraft, forkDraft, lineage, updateDraft } from '../services/draft-lifecycle';
 import { saveDraft, VersionConflict } from '../services/draft-versions';
@@ -55,7 +56,7 @@ export async function draftLineage({ app, req, res, params }: Ctx<unknown, unkno
 }
 
 export async function importWif({ app, req, res, body }: Ctx<{ studioId?: number }, unknown, unknown>) {
-  const { draft: document, warnings } = draftFromWifFile(req.file);
+  const { draft: document, warnings } = await parseWifUpload(req.file);
   const draft = await createFromDocument(app.models, req.user!.id, document, body.studioId, `Imported from ${req.file!.originalname}`);
   res.status(201).json({ draft, warnings });
 }

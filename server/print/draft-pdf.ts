@@ -1,5 +1,6 @@
+import { PassThrough, type Writable } from 'node:stream';
 import PDFDocument from 'pdfkit';
-import { hexToRgb, pickCount, type Draft } from '../../shared/weave';
+import { hexToRgb, isLayered, pickCount, type Draft } from '../../shared/weave';
 import { clothSett, computePlan, planBlocker, type ClothSett, type PlanDocument, type PlanOutputs } from '../../shared/plan';
 import { cellOrigin, gridBounds, type DraftShape, type GridPlacement } from '../../shared/print/draft-layout';
 import { PAGE_MARGIN, LEGEND_HEAD, LEGEND_ROW, PAGE_OVERLAP, planDraftPages, type PagePart, type PrintView, type ViewCut } from '../../shared/print/draft-pages';
@@ -10,7 +11,7 @@ import { fontData } from './fonts';
 import { drawMask, embedMask, gridPixels, markBits, placeGrid, type PdfPixels } from './pdf-image';
 import { BODY_SIZE, GRID_LINE, GRID_RULE, INK, LABEL_SIZE, MUTED, plural, swatch, text, type Doc } from './pdf-style';
 import { writeText, type TextItem } from './pdf-text';
-import { drawLoomLists, drawPlanPage, listOrientation, settText } from './plan-pages';
+import { drawLoomLists, drawPlanPage, estimateLoomListPages, listOrientation, settText } from './plan-pages';
 import { cellImage, clothSources, layerTint, orientCells, threadImage, threadPitch, type CellImage, type ClothSources } from './raster';
 
 /**
@@ -26,14 +27,34 @@ export const PRINT_SLICE_MS = 25;
 /**
  * A function to await between steps of a long job: it lets the event loop run once every
  * PRINT_SLICE_MS, so a thousand-page print delays other requests by milliseconds, not seconds.
+ * `check` runs at every step and may throw to stop the job.
  */
-export function turnTaker(sliceMs = PRINT_SLICE_MS): () => Promise<void> {
+export function turnTaker(sliceMs = PRINT_SLICE_MS, check: () => void | Promise<void> = () => {}): () => Promise<void> {
   let since = performance.now();
   return async () => {
+    await check();
     if (performance.now() - since < sliceMs) return;
     await new Promise<void>((resolve) => setImmediate(resolve));
     since = performance.now();
   };
+}
+
+/** Most pages a print may have, most cells its sheets may show, and longest it may take. */
+export const PRINT_LIMITS = { pages: 300, cells: 4_000_000, ms: 60_000 };
+
+/** Why a print was stopped part way. */
+export class PrintStopped extends Error {
+  constructor(readonly reason: 'client gone' | 'too long' | 'too many pages', readonly pages: number) {
+    super(`The print stopped after ${pages} pages: ${reason}`);
+    this.name = 'PrintStopped';
+  }
+}
+
+/** What a print will be before it is made: its pages (the lists' estimated; null when not counted) and the cells its sheets show. */
+export interface PrintExtent {
+  pages: number | null;
+  cells: number;
+  window: PrintWindow;
 }
 
 export interface DraftPdfInput {
@@ -62,8 +83,20 @@ export interface DraftPdfInput {
  * @example await renderDraftPdf({ draft, meta, options: { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, numberEvery: 4 } })
  */
 export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
-  const { draft, meta, options } = input;
-  const page = pageSize(options.paper, options.orientation);
+  const out = new PassThrough();
+  const chunks: Buffer[] = [];
+  out.on('data', (c: Buffer) => chunks.push(c));
+  const ended = new Promise<void>((resolve, reject) => {
+    out.on('end', resolve);
+    out.on('error', reject);
+  });
+  await streamDraftPdf(input, out);
+  await ended;
+  return Buffer.concat(chunks);
+}
+
+/** A PDF document of the print's page size with its fonts, no page yet. */
+function printDocument(page: { width: number; height: number }, meta: PrintMeta): Doc {
   const doc = new PDFDocument({
     size: [page.width, page.height],
     margin: PAGE_MARGIN,
@@ -73,8 +106,66 @@ export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
   doc.registerFont('regular', fontData('regular'));
   doc.registerFont('semibold', fontData('semibold'));
   doc.font('regular');
-  const chunks: Buffer[] = [];
-  doc.on('data', (c: Buffer) => chunks.push(c));
+  return doc;
+}
+
+const yarnNamesOf = (legend: LegendRow[]) => (colour: number) => legend.find((r) => r.colour === colour)?.yarns ?? 'no yarn named';
+
+/** The views a draft's print shows after the draft sheets. */
+function printViews(draft: Draft): PrintView[] {
+  return isLayered(draft) ? ['structure', 'front', 'back', 'layers'] : ['structure'];
+}
+
+/**
+ * Sizes up a print without making it: the cells its sheets show and, when those are no more than
+ * `maxCells`, its pages: the draft sheets and cloth views exactly, the plan page, and the loom-side
+ * lists from their rows (pages is null past maxCells). No cloth is computed; the lists' rows are
+ * measured taking turns with other work.
+ * @throws RangeError for a range outside the draft (as the print would).
+ */
+export async function printExtent(input: DraftPdfInput, maxCells = Infinity): Promise<PrintExtent> {
+  const { draft, options } = input;
+  const page = pageSize(options.paper, options.orientation);
+  const window = printWindow(draft, options.range);
+  const cells = (window.ends.end - window.ends.start) * (window.picks.end - window.picks.start);
+  if (cells > maxCells) return { pages: null, cells, window };
+  const legend = legendRows(draft);
+  const layout = planDraftPages({
+    page, shape: draftShape(draft), arrangement: options, views: printViews(draft), legendRows: legend.length,
+    maxViewSheets: MAX_VIEW_SHEETS, window, fitWidth: options.fitWidth,
+  });
+  const outputs = planOutputs(input);
+  // A document never written, for the font's measures.
+  const measure = printDocument(page, input.meta);
+  const lists = await estimateLoomListPages(measure, draft, yarnNamesOf(legend), listKinds(input, outputs), listOrientation(input.plan, options.workingOrder), outputs, page, window.picks, turnTaker());
+  return { pages: layout.pages.length + 1 + lists, cells, window };
+}
+
+const planOutputs = (input: DraftPdfInput) =>
+  // An empty draft has nothing to count: its plan page says so instead of showing figures.
+  (input.plan && !planBlocker(input.draft) ? (input.outputs ?? computePlan(input.draft, input.plan)) : undefined);
+const listKinds = (input: DraftPdfInput, outputs: PlanOutputs | undefined): readonly LoomListKind[] =>
+  input.lists ?? (outputs ? LOOM_LIST_KINDS : (['threading', 'weaving'] as const));
+
+/** How a print is watched while it is made: a signal to stop it, its time and page limits. */
+export interface PrintControl {
+  signal?: AbortSignal;
+  /** performance.now() past which the print stops. */
+  deadline?: number;
+  /** Pages past which the print stops (the estimate of the lists can be short). */
+  maxPages?: number;
+}
+
+/**
+ * As renderDraftPdf, writing the PDF to `out` page by page as it is made (waiting while `out` is
+ * full), so memory does not grow with the pages. Ends `out` when done; rejects with PrintStopped
+ * (leaving `out` to the caller) when the signal fires or a limit is passed.
+ */
+export async function streamDraftPdf(input: DraftPdfInput, out: Writable, control: PrintControl = {}): Promise<{ pages: number }> {
+  const { draft, meta, options } = input;
+  const page = pageSize(options.paper, options.orientation);
+  const doc = printDocument(page, meta);
+  doc.pipe(out);
   // Numbered as each page opens: keeping every page open until the end to print "of N" costs
   // more memory than a thousand-page draft can spare.
   let pageNumber = 0;
@@ -85,37 +176,73 @@ export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
     doc.x = x;
     doc.y = y;
   });
-  const finished = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
+  const finished = new Promise<void>((resolve, reject) => {
+    out.on('finish', resolve);
+    out.on('close', resolve);
     doc.on('error', reject);
   });
+  const check = async () => {
+    if (control.signal?.aborted) throw new PrintStopped('client gone', pageNumber);
+    if (control.deadline !== undefined && performance.now() > control.deadline) throw new PrintStopped('too long', pageNumber);
+    if (control.maxPages !== undefined && pageNumber > control.maxPages) throw new PrintStopped('too many pages', pageNumber);
+    // A slow reader: wait for it rather than hold the pages in memory.
+    if (out.writableNeedDrain) {
+      await new Promise<void>((resolve) => {
+        const done = () => { out.off('drain', done); out.off('close', done); control.signal?.removeEventListener('abort', done); resolve(); };
+        out.on('drain', done);
+        out.on('close', done);
+        control.signal?.addEventListener('abort', done);
+      });
+      if (control.signal?.aborted) throw new PrintStopped('client gone', pageNumber);
+    }
+  };
+  const breathe = turnTaker(PRINT_SLICE_MS, check);
+  try {
+    const shape = draftShape(draft);
+    const views = printViews(draft);
+    const legend = legendRows(draft);
+    const window = printWindow(draft, options.range);
+    const layout = planDraftPages({ page, shape, arrangement: options, views, legendRows: legend.length, maxViewSheets: MAX_VIEW_SHEETS, window, fitWidth: options.fitWidth });
+    const tiled = layout.pages.flatMap((p) => p.parts).some((p) => p.kind === 'draft' && p.across * p.down > 1);
+    // The cloth is computed for the ends and picks the sheets show only: a range of a huge draft costs what the range does.
+    const sources = clothSources(windowDraft(draft, window), input.plan);
+    const ctx: DrawContext = {
+      doc, draft, sett: clothSett(draft, input.plan), options, shape, legend, sources, images: new Map(), ink: new GridInk(doc), tiled, viewCut: layout.viewCut, window,
+    };
+    for (const [i, p] of layout.pages.entries()) {
+      await breathe();
+      doc.addPage();
+      if (i === 0) drawTitleBlock(ctx, meta);
+      else drawRunningHead(ctx, meta.title, p.parts);
+      for (const part of p.parts) drawPart(ctx, part);
+    }
 
-  const sources = clothSources(draft, input.plan);
-  const shape = draftShape(draft);
-  const views: PrintView[] = sources.layers ? ['structure', 'front', 'back', 'layers'] : ['structure'];
-  const legend = legendRows(draft);
-  const window = printWindow(draft, options.range);
-  const layout = planDraftPages({ page, shape, arrangement: options, views, legendRows: legend.length, maxViewSheets: MAX_VIEW_SHEETS, window, fitWidth: options.fitWidth });
-  const tiled = layout.pages.flatMap((p) => p.parts).some((p) => p.kind === 'draft' && p.across * p.down > 1);
-  const ctx: DrawContext = { doc, draft, sett: clothSett(draft, input.plan), options, shape, legend, sources, images: new Map(), ink: new GridInk(doc), tiled, viewCut: layout.viewCut, window };
-  const breathe = turnTaker();
-  for (const [i, p] of layout.pages.entries()) {
+    const outputs = planOutputs(input);
+    const yarnNames = yarnNamesOf(legend);
     await breathe();
-    doc.addPage();
-    if (i === 0) drawTitleBlock(ctx, meta);
-    else drawRunningHead(ctx, meta.title, p.parts);
-    for (const part of p.parts) drawPart(ctx, part);
+    drawPlanPage(doc, draft, yarnNames, input.plan && outputs ? { doc: input.plan, outputs } : undefined);
+    await drawLoomLists(doc, draft, yarnNames, listKinds(input, outputs), listOrientation(input.plan, options.workingOrder), outputs, breathe, { ...window.picks, repeat: window.part === 'repeat' });
+    await check();
+  } catch (err) {
+    doc.unpipe(out);
+    throw err;
   }
-
-  // An empty draft has nothing to count: its plan page says so instead of showing figures.
-  const outputs = input.plan && !planBlocker(draft) ? (input.outputs ?? computePlan(draft, input.plan)) : undefined;
-  const yarnNames = (colour: number) => legend.find((r) => r.colour === colour)?.yarns ?? 'no yarn named';
-  drawPlanPage(doc, draft, yarnNames, input.plan && outputs ? { doc: input.plan, outputs } : undefined);
-  const which = input.lists ?? (outputs ? LOOM_LIST_KINDS : (['threading', 'weaving'] as const));
-  await drawLoomLists(doc, draft, yarnNames, which, listOrientation(input.plan, options.workingOrder), outputs, breathe, { ...window.picks, repeat: window.part === 'repeat' });
-
   doc.end();
-  return finished;
+  await finished;
+  return { pages: pageNumber };
+}
+
+/** The ends and picks of the window as a draft of their own (blocks dropped: they describe the whole). */
+function windowDraft(draft: Draft, w: PrintWindow): Draft {
+  if (w.ends.start === 0 && w.picks.start === 0 && w.ends.end === draft.threading.length && w.picks.end === pickCount(draft)) return draft;
+  const { blocks: _blocks, ...rest } = draft;
+  const ends = <T,>(list: T[]) => list.slice(w.ends.start, w.ends.end);
+  const picks = <T,>(list: T[]) => list.slice(w.picks.start, w.picks.end);
+  return {
+    ...rest,
+    threading: ends(draft.threading), warpColors: ends(draft.warpColors), warpLayers: ends(draft.warpLayers),
+    treadling: picks(draft.treadling), liftplan: picks(draft.liftplan), weftColors: picks(draft.weftColors), weftLayers: picks(draft.weftLayers),
+  };
 }
 
 interface LegendRow {
@@ -134,6 +261,7 @@ interface DrawContext {
   options: PrintOptions;
   shape: DraftShape;
   legend: LegendRow[];
+  /** The cloth of the window's ends and picks only: index it through inWindow. */
   sources: ClothSources;
   /** Cell images made on first use. */
   images: Map<PrintView | 'colour', CellImage>;
@@ -227,6 +355,12 @@ const VIEW_CAPTIONS: Record<PrintView, string> = {
   back: 'Back face, as seen turned over',
   layers: 'Layer map (the number in each area is the layer on top at the front)',
 };
+
+/** A span of the draft's ends or picks as a span of the window's cloth (ctx.sources), which starts at the window. */
+function inWindow(ctx: DrawContext, span: Span, side: 'ends' | 'picks'): Span {
+  const start = ctx.window[side].start;
+  return { start: span.start - start, end: span.end - start };
+}
 
 function image(ctx: DrawContext, view: PrintView | 'colour'): CellImage {
   let img = ctx.images.get(view);
@@ -358,7 +492,7 @@ function drawDraftTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'draft'
   const { tile, layout: l } = part;
   const every = options.numberEvery;
 
-  placeImage(doc, image(ctx, 'colour'), l.drawdown, tile.cols, tile.rows);
+  placeImage(doc, image(ctx, 'colour'), l.drawdown, inWindow(ctx, tile.cols, 'ends'), inWindow(ctx, tile.rows, 'picks'));
   colourStrip(doc, draft, l.warpColours, draft.warpColors.slice(tile.cols.start, tile.cols.end), true);
   colourStrip(doc, draft, l.weftColours, draft.weftColors.slice(tile.rows.start, tile.rows.end), false);
   const { cols, rows } = tile;
@@ -404,9 +538,9 @@ function drawViewTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'view' }
   text(doc, VIEW_CAPTIONS[view] + sheet, l.caption.x, l.caption.y + 2, BODY_SIZE - 1, INK, 'semibold');
   if (view === 'front' || view === 'back') {
     // Both faces thread by thread; the cells' grid would hide the threads, so only the numbers frame them.
-    placeGrid(doc, l.grid, facePixels(ctx.sources, view, l.grid, tile.cols, tile.rows));
+    placeGrid(doc, l.grid, facePixels(ctx.sources, view, l.grid, inWindow(ctx, tile.cols, 'ends'), inWindow(ctx, tile.rows, 'picks')));
   } else {
-    placeImage(doc, image(ctx, view), l.grid, tile.cols, tile.rows);
+    placeImage(doc, image(ctx, view), l.grid, inWindow(ctx, tile.cols, 'ends'), inWindow(ctx, tile.rows, 'picks'));
     ctx.ink.grid(l.grid, tile.cols.start, tile.rows.start, options.numberEvery);
   }
   // Smaller view cells number fewer ends, so the numbers never run into each other.
@@ -418,7 +552,7 @@ function drawViewTile(ctx: DrawContext, part: Extract<PagePart, { kind: 'view' }
     pickX: l.pickLabels.x,
     pickWidth: l.pickLabels.width,
   });
-  if (view === 'layers') layerNumbers(ctx, l.grid, tile.cols, tile.rows);
+  if (view === 'layers') layerNumbers(ctx, l.grid, inWindow(ctx, tile.cols, 'ends'), inWindow(ctx, tile.rows, 'picks'));
 }
 
 /** Points between two numbers along a view's edge: room for four digits at the label size. */

@@ -23,6 +23,9 @@ import type { LoomListKind } from '../../shared/print/types';
 import { BODY_SIZE, INK, MUTED, plural, ROW_HEIGHT, swatch, text, type Doc, type FontStyle } from './pdf-style';
 import { textWidth } from './pdf-text';
 
+/** Where a tick row's detail starts, after its box and label. */
+const TICK_INDENT = 110;
+
 /** Writes top to bottom between the margins, turning the page when the next block would not fit. */
 class Flow {
   y = PAGE_MARGIN;
@@ -88,7 +91,7 @@ class Flow {
   /** A box to tick by hand, a bold label, and the step's detail beside it, wrapped when long. */
   tick(label: string, detail: string): void {
     const { doc } = this;
-    const indent = 110;
+    const indent = TICK_INDENT;
     const width = this.width - indent;
     // Most steps fit on one line; measuring a wrapped height is much slower, so only long ones pay for it.
     const oneLine = textWidth(doc, detail, BODY_SIZE) <= width;
@@ -206,14 +209,21 @@ export async function drawLoomLists(
   /** The picks the weaving list shows (0-based, [start, end)); default every pick of the draft. */
   picks?: { start: number; end: number; repeat: boolean },
 ): Promise<void> {
-  const threading = outputs?.threading ?? draftThreading(draft, orientation);
-  const weaving = outputs?.weaving ?? weavingList(draft, { totalPicks: pickCount(draft), shaftNumbering: orientation.side === 'front' ? orientation.shaftNumbering : orientation.shaftNumbering === 'near' ? 'far' : 'near' });
+  const { threading, weaving } = listsOf(draft, orientation, outputs);
   for (const kind of which) {
     if (kind === 'threading') await threadingList(doc, threading, orientation, breathe);
     else if (kind === 'sleying' && outputs) await sleyingList(doc, outputs, orientation, breathe);
     else if (kind === 'tie-on' && outputs) await tieOnList(doc, outputs, orientation, breathe);
     else if (kind === 'weaving') await weavingPages(doc, draft, picks ? picksWithin(weaving, picks) : weaving, yarnNames, breathe, outputs?.picksReason, picks);
   }
+}
+
+/** The threading groups and weaving rows the lists show: the plan's, or the draft's own without one. */
+function listsOf(draft: Draft, orientation: Orientation, outputs?: PlanOutputs): { threading: Group<ThreadingStep>[]; weaving: WeavingList } {
+  return {
+    threading: outputs?.threading ?? draftThreading(draft, orientation),
+    weaving: outputs?.weaving ?? weavingList(draft, { totalPicks: pickCount(draft), shaftNumbering: orientation.side === 'front' ? orientation.shaftNumbering : orientation.shaftNumbering === 'near' ? 'far' : 'near' }),
+  };
 }
 
 /** The draft's own ends, once through, when no plan says how wide the warp is. */
@@ -228,44 +238,82 @@ const REST = 'Sit square to the loom, and rest your hands and eyes between group
 
 type Breathe = () => Promise<void>;
 
-async function threadingList(doc: Doc, groups: Group<ThreadingStep>[], o: Orientation, breathe: Breathe): Promise<void> {
-  const flow = new Flow(doc, 'Threading');
-  flow.line(orientationWords(o), MUTED);
-  flow.line(`Each group lists its ends in the order you reach them, with the shaft for each${groups.some((g) => g.items.some((s) => s.dent !== undefined)) ? ' and the dent it is sleyed in' : ''}. ${REST}`, MUTED, BODY_SIZE - 1);
+/** One line of a loom-side list: a box to tick, its label and what to do. */
+interface TickRow {
+  label: string;
+  detail: string;
+}
+
+function threadingRows(groups: Group<ThreadingStep>[]): TickRow[] {
+  const rows: TickRow[] = [];
   for (const g of groups) {
-    await breathe();
     const first = g.items[0];
     const last = g.items[g.items.length - 1];
     if (!first || !last) continue;
     const steps = g.items.map((s) => `${s.end}: ${s.shafts.length ? s.shafts.join('+') : 'no shaft'}${s.dent !== undefined ? ` (dent ${s.dent})` : ''}${s.selvedge ? ' (selvedge)' : ''}`).join('   ');
-    flow.tick(`Group ${g.index} of ${g.of}`, `Ends ${range(first.end, last.end)}  —  ${steps}`);
+    rows.push({ label: `Group ${g.index} of ${g.of}`, detail: `Ends ${range(first.end, last.end)}  —  ${steps}` });
   }
+  return rows;
+}
+
+function sleyingRows(outputs: PlanOutputs): TickRow[] {
+  const rows: TickRow[] = [];
+  for (const g of outputs.sleying) {
+    const first = g.items[0];
+    const last = g.items[g.items.length - 1];
+    if (!first || !last) continue;
+    const dents = g.items.map((d) => `${d.dent}: ${d.ends.length ? d.ends.map((e) => e.end).join(', ') : 'empty'}`).join('   ');
+    rows.push({ label: `Group ${g.index} of ${g.of}`, detail: `Dents ${range(first.dent, last.dent)}  —  ${dents}` });
+  }
+  return rows;
+}
+
+function tieOnRows(outputs: PlanOutputs): TickRow[] {
+  const rows: TickRow[] = [];
+  for (const g of outputs.tieOn) {
+    const first = g.items[0];
+    const last = g.items[g.items.length - 1];
+    if (first === undefined || last === undefined) continue;
+    rows.push({ label: `Bundle ${g.index} of ${g.of}`, detail: `Ends ${range(first, last)} (${g.items.length} ends)` });
+  }
+  return rows;
+}
+
+function weavingRows(draft: Draft, list: WeavingList, yarnNames: YarnNames): TickRow[] {
+  const layered = draft.weftLayers.some((l) => l > 1);
+  return list.rows.map((r) => {
+    const label = r.fromPick === r.toPick ? `Pick ${r.fromPick}` : `Picks ${r.fromPick}–${r.toPick}`;
+    const how = r.treadles ? `treadle ${r.treadles.join('+')} (raises ${r.raised.join(' ') || 'nothing'})` : `raise ${r.raised.join(' ') || 'nothing'}`;
+    const layer = layered ? ` · layer ${r.layer}` : '';
+    return { label, detail: `${how} · ${yarnNames(r.color)}${layer}${r.times > 1 ? ` · ${r.times} times` : ''}` };
+  });
+}
+
+async function tickAll(flow: Flow, rows: TickRow[], breathe: Breathe): Promise<void> {
+  for (const r of rows) {
+    await breathe();
+    flow.tick(r.label, r.detail);
+  }
+}
+
+async function threadingList(doc: Doc, groups: Group<ThreadingStep>[], o: Orientation, breathe: Breathe): Promise<void> {
+  const flow = new Flow(doc, 'Threading');
+  flow.line(orientationWords(o), MUTED);
+  flow.line(`Each group lists its ends in the order you reach them, with the shaft for each${groups.some((g) => g.items.some((s) => s.dent !== undefined)) ? ' and the dent it is sleyed in' : ''}. ${REST}`, MUTED, BODY_SIZE - 1);
+  await tickAll(flow, threadingRows(groups), breathe);
 }
 
 async function sleyingList(doc: Doc, outputs: PlanOutputs, o: Orientation, breathe: Breathe): Promise<void> {
   const flow = new Flow(doc, 'Sleying');
   flow.line(`${orientationWords(o)} Denting ${dentingLabel(outputs.denting.pattern)}.`, MUTED);
   flow.line(`Each group lists its dents with the ends that go through them. ${REST}`, MUTED, BODY_SIZE - 1);
-  for (const g of outputs.sleying) {
-    await breathe();
-    const first = g.items[0];
-    const last = g.items[g.items.length - 1];
-    if (!first || !last) continue;
-    const dents = g.items.map((d) => `${d.dent}: ${d.ends.length ? d.ends.map((e) => e.end).join(', ') : 'empty'}`).join('   ');
-    flow.tick(`Group ${g.index} of ${g.of}`, `Dents ${range(first.dent, last.dent)}  —  ${dents}`);
-  }
+  await tickAll(flow, sleyingRows(outputs), breathe);
 }
 
 async function tieOnList(doc: Doc, outputs: PlanOutputs, o: Orientation, breathe: Breathe): Promise<void> {
   const flow = new Flow(doc, 'Tying on');
   flow.line(orientationWords(o), MUTED);
-  for (const g of outputs.tieOn) {
-    await breathe();
-    const first = g.items[0];
-    const last = g.items[g.items.length - 1];
-    if (first === undefined || last === undefined) continue;
-    flow.tick(`Bundle ${g.index} of ${g.of}`, `Ends ${range(first, last)} (${g.items.length} ends)`);
-  }
+  await tickAll(flow, tieOnRows(outputs), breathe);
 }
 
 /** The rows of a weaving list inside picks [start, end), a row cut where the window cuts it. */
@@ -297,14 +345,50 @@ async function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames
     } else flow.line(`This list shows ${shown} of the draft's ${all}, as chosen for this print.`, INK);
   }
   flow.line(`Tick each line as you weave it. ${REST}`, MUTED, BODY_SIZE - 1);
-  const layered = draft.weftLayers.some((l) => l > 1);
-  for (const r of list.rows) {
-    await breathe();
-    const label = r.fromPick === r.toPick ? `Pick ${r.fromPick}` : `Picks ${r.fromPick}–${r.toPick}`;
-    const how = r.treadles ? `treadle ${r.treadles.join('+')} (raises ${r.raised.join(' ') || 'nothing'})` : `raise ${r.raised.join(' ') || 'nothing'}`;
-    const layer = layered ? ` · layer ${r.layer}` : '';
-    flow.tick(label, `${how} · ${yarnNames(r.color)}${layer}${r.times > 1 ? ` · ${r.times} times` : ''}`);
+  await tickAll(flow, weavingRows(draft, list, yarnNames), breathe);
+}
+
+/**
+ * About how many pages the loom-side lists of drawLoomLists take, from their rows measured in the
+ * print's font: a row too long for one line is counted by its width, not wrapped word by word.
+ */
+export async function estimateLoomListPages(
+  measure: Doc,
+  draft: Draft,
+  yarnNames: YarnNames,
+  which: readonly LoomListKind[],
+  orientation: Orientation,
+  outputs: PlanOutputs | undefined,
+  page: { width: number; height: number },
+  picks?: { start: number; end: number },
+  breathe: Breathe = async () => {},
+): Promise<number> {
+  const { threading, weaving } = listsOf(draft, orientation, outputs);
+  const width = page.width - 2 * PAGE_MARGIN - TICK_INDENT;
+  const bottom = page.height - PAGE_MARGIN;
+  const lineHeight = measure.font('regular').fontSize(BODY_SIZE).currentLineHeight(true);
+  let pages = 0;
+  for (const kind of which) {
+    const rows = kind === 'threading' ? threadingRows(threading)
+      : kind === 'sleying' && outputs ? sleyingRows(outputs)
+        : kind === 'tie-on' && outputs ? tieOnRows(outputs)
+          : kind === 'weaving' ? weavingRows(draft, picks ? picksWithin(weaving, picks) : weaving, yarnNames) : null;
+    if (!rows) continue;
+    // A list opens a page with its heading and two or three lines about it.
+    pages++;
+    let y = PAGE_MARGIN + 24 + 3 * (BODY_SIZE + 5);
+    for (const r of rows) {
+      await breathe();
+      const w = textWidth(measure, r.detail, BODY_SIZE);
+      const h = w <= width ? ROW_HEIGHT : Math.max(ROW_HEIGHT, Math.ceil(w / width) * lineHeight + 4);
+      if (y + h > bottom) {
+        pages++;
+        y = PAGE_MARGIN + 18;
+      }
+      y += h;
+    }
   }
+  return pages;
 }
 
 /** The plan's list settings with the print's working order laid over them. */

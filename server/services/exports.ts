@@ -1,3 +1,5 @@
+import { EventEmitter } from 'node:events';
+import type { Writable } from 'node:stream';
 import type { DrawdownPngQuery, PrintQuery } from '../../shared/api/exports';
 import type { LoomList } from '../../shared/api/plans';
 import type { PlanDocument } from '../../shared/plan';
@@ -5,7 +7,7 @@ import type { LoomListKind, PrintMeta } from '../../shared/print/types';
 import { isLayered, parseDraft, pickCount, type Draft } from '../../shared/weave';
 import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
-import { renderDraftPdf } from '../print/draft-pdf';
+import { PRINT_LIMITS, printExtent, PrintStopped, streamDraftPdf, type DraftPdfInput } from '../print/draft-pdf';
 import { renderDrawdownPngAsync } from '../print/drawdown-png';
 import { getPlan } from './plans';
 import { sharedDraft } from './sharing';
@@ -69,34 +71,83 @@ function oneAtATime<T>(job: () => Promise<T>): Promise<T> {
   return run;
 }
 
-/** The printed draft as a PDF, following the query's paper, arrangement, numbering, lists and working order. */
-export function printPdf(p: Printable, q: PrintQuery): Promise<Buffer> {
+/** The print the query asks for: paper, arrangement, numbering, lists, working order and part of the draft. */
+export function printInput(p: Printable, q: PrintQuery): DraftPdfInput {
   const workingOrder = {
     ...(q.from ? { side: q.from } : {}),
     ...(q.direction ? { direction: q.direction } : {}),
     ...(q.shaftNumbering ? { shaftNumbering: q.shaftNumbering } : {}),
   };
+  return {
+    draft: p.draft,
+    meta: p.meta,
+    ...(p.plan ? { plan: p.plan } : {}),
+    ...(q.lists ? { lists: q.lists.map((l) => LIST_KINDS[l]) } : {}),
+    options: {
+      paper: q.paper,
+      orientation: q.orientation,
+      threadingAbove: q.threadingAbove,
+      treadlingRight: q.treadlingRight,
+      shaftsFromBottom: q.shaftsFromBottom,
+      numberEvery: q.numberEvery,
+      workingOrder,
+      // Naming ends or picks is asking for a range.
+      range: { ...(q.part ? { part: q.part } : q.ends || q.picks ? { part: 'range' as const } : {}), ...(q.ends ? { ends: q.ends } : {}), ...(q.picks ? { picks: q.picks } : {}) },
+      fitWidth: q.fitWidth,
+    },
+  };
+}
+
+const CHOOSE_LESS = 'choose a range of ends and picks, or one repeat';
+const count = (n: number) => n.toLocaleString('en');
+
+/**
+ * Refuses (422) a print past PRINT_LIMITS before any of it is made, saying how big it would be and
+ * what to choose instead; a range outside the draft is a 422 too.
+ */
+export async function checkPrintSize(input: DraftPdfInput): Promise<void> {
+  let extent;
+  try {
+    extent = await printExtent(input, PRINT_LIMITS.cells);
+  } catch (err) {
+    if (err instanceof RangeError) throw new HttpError(422, 'unprocessable', err.message);
+    throw err;
+  }
+  const { window, pages } = extent;
+  if (pages === null) {
+    const shown = `${count(window.ends.end - window.ends.start)} ends × ${count(window.picks.end - window.picks.start)} picks`;
+    throw new HttpError(422, 'unprocessable', `This print would show ${shown}, more than the ${count(PRINT_LIMITS.cells)} cells a print can hold; ${CHOOSE_LESS}`,
+      { part: CHOOSE_LESS });
+  }
+  if (pages > PRINT_LIMITS.pages) {
+    throw new HttpError(422, 'unprocessable', `This draft prints as ${count(pages)} pages, more than the ${PRINT_LIMITS.pages} a print can have; ${CHOOSE_LESS}`,
+      { part: CHOOSE_LESS });
+  }
+}
+
+/**
+ * What prints do, for tests and logs: 'done' ({ pages }) when a print has gone out whole,
+ * 'stopped' ({ reason, pages }) when one was stopped part way.
+ */
+export const printEvents = new EventEmitter();
+
+/**
+ * Writes the print to `out` as it is made, one print at a time. Stops when `signal` fires (the
+ * client left), past PRINT_LIMITS.ms or well past the page limit, rejecting with PrintStopped.
+ */
+export function streamPrint(input: DraftPdfInput, out: Writable, signal: AbortSignal): Promise<void> {
   return oneAtATime(async () => {
     try {
-      return await renderDraftPdf({
-        draft: p.draft,
-        meta: p.meta,
-        ...(p.plan ? { plan: p.plan } : {}),
-        ...(q.lists ? { lists: q.lists.map((l) => LIST_KINDS[l]) } : {}),
-        options: {
-          paper: q.paper,
-          orientation: q.orientation,
-          threadingAbove: q.threadingAbove,
-          treadlingRight: q.treadlingRight,
-          shaftsFromBottom: q.shaftsFromBottom,
-          numberEvery: q.numberEvery,
-          workingOrder,
-          // Naming ends or picks is asking for a range.
-          range: { ...(q.part ? { part: q.part } : q.ends || q.picks ? { part: 'range' as const } : {}), ...(q.ends ? { ends: q.ends } : {}), ...(q.picks ? { picks: q.picks } : {}) },
-          fitWidth: q.fitWidth,
-        },
+      if (signal.aborted) throw new PrintStopped('client gone', 0);
+      const { pages } = await streamDraftPdf(input, out, {
+        signal,
+        deadline: performance.now() + PRINT_LIMITS.ms,
+        // The lists' pages are estimated: a little over is fine, a runaway is not.
+        maxPages: Math.ceil(PRINT_LIMITS.pages * 1.25),
       });
+      printEvents.emit('done', { pages });
     } catch (err) {
+      if (err instanceof PrintStopped) printEvents.emit('stopped', { reason: err.reason, pages: err.pages });
       if (err instanceof RangeError) throw new HttpError(422, 'unprocessable', err.message);
       throw err;
     }
@@ -109,7 +160,7 @@ export function printPdf(p: Printable, q: PrintQuery): Promise<Buffer> {
  */
 export const EXPORT_MAX_PIXELS = 16_000_000;
 
-/** A picture of the cloth; 400 for a picture too big at that scale, 422 for a face of a one-layer draft. */
+/** A picture of the cloth; 400 for a picture too big at that scale, 422 for one too big at any scale or a face of a one-layer draft. */
 export function drawdownPng(p: Printable, q: DrawdownPngQuery): Promise<Buffer> {
   const { draft } = p;
   if ((q.view === 'front' || q.view === 'back') && !isLayered(draft)) {
@@ -117,10 +168,13 @@ export function drawdownPng(p: Printable, q: DrawdownPngQuery): Promise<Buffer> 
   }
   const cells = draft.threading.length * pickCount(draft);
   if (cells === 0) throw new HttpError(422, 'unprocessable', 'The draft has no cells to draw yet');
+  if (cells > EXPORT_MAX_PIXELS) {
+    throw new HttpError(422, 'unprocessable', `This draft has ${count(draft.threading.length)} ends × ${count(pickCount(draft))} picks, more than the `
+      + `${count(EXPORT_MAX_PIXELS)} cells a picture can show; print it instead and ${CHOOSE_LESS}`, { scale: 'too big at any scale' });
+  }
   if (cells * q.scale * q.scale > EXPORT_MAX_PIXELS) {
     const most = Math.floor(Math.sqrt(EXPORT_MAX_PIXELS / cells));
-    const hint = most >= 1 ? `at most ${most} for this draft` : 'this draft is too big for a picture; print it instead';
-    throw new HttpError(400, 'validation', `The picture would be too big at ${q.scale} pixels per cell`, { scale: hint });
+    throw new HttpError(400, 'validation', `The picture would be too big at ${q.scale} pixels per cell`, { scale: `at most ${most} for this draft` });
   }
   return renderDrawdownPngAsync(draft, { view: q.view, scale: q.scale, threadingAbove: q.threadingAbove, treadlingRight: q.treadlingRight });
 }

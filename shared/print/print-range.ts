@@ -34,12 +34,18 @@ export interface PrintWindow {
  * @example repeatLength(5, (i, j) => 'abcab'[i] === 'abcab'[j]) // 5: "abc" is not there twice
  */
 export function repeatLength(length: number, same: (i: number, j: number) => boolean): number {
-  for (let p = 1; p * 2 <= length; p++) {
-    let ok = true;
-    for (let i = 0; i + p < length && ok; i++) ok = same(i, i + p);
-    if (ok) return p;
+  if (length < 2) return length;
+  // The shortest period is length − (the longest proper prefix that is also a suffix), found in
+  // linear time (Knuth–Morris–Pratt's failure function): trying every period would take
+  // length² / 2 comparisons for a list like 1 1 1 … 1 2, seconds for 20 000 ends.
+  const border = new Int32Array(length);
+  for (let i = 1, k = 0; i < length; i++) {
+    while (k > 0 && !same(i, k)) k = border[k - 1];
+    if (same(i, k)) k++;
+    border[i] = k;
   }
-  return length;
+  const p = length - border[length - 1];
+  return p * 2 <= length ? p : length;
 }
 
 const sameList = (a: readonly number[] | undefined, b: readonly number[] | undefined): boolean =>

@@ -49,3 +49,22 @@ export function bigPointTwill(n: number): Draft {
     ],
   });
 }
+
+/**
+ * The outside probe's draft: `ends` × `picks` on 32 shafts with a lift plan raising every other
+ * shaft, stepping by one each pick. At 20 000 × 20 000 its WIF is about 1.3 MB, under the upload limit.
+ */
+export function probeLiftPlan(ends = 20_000, picks = 20_000): Draft {
+  const shafts = 32;
+  return createDraft({
+    name: 'Probe lift plan',
+    shafts,
+    treadles: shafts,
+    control: 'liftplan',
+    threading: Array.from({ length: ends }, (_, i) => [(i % shafts) + 1]),
+    liftplan: Array.from({ length: picks }, (_, i) => Array.from({ length: shafts / 2 }, (_, k) => ((i + 2 * k) % shafts) + 1)),
+    palette: [HARBOUR, MUSTARD],
+    warpColors: Array.from({ length: ends }, () => 0),
+    weftColors: Array.from({ length: picks }, () => 1),
+  });
+}

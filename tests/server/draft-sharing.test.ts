@@ -2,6 +2,7 @@ import { once } from 'node:events';
 import fc from 'fast-check';
 import { createServer, request as httpRequest, type IncomingMessage } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   acceptInviteResponseSchema, commentListResponseSchema, PHOTO_MAX_BYTES, photoListResponseSchema, sharedDraftResponseSchema,
@@ -12,6 +13,8 @@ import { pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { encodePngRgb } from '../../server/print/png';
 import { createDraft } from '../../server/services/drafts';
 import { sniffImageType } from '../../server/services/photos';
+import { wifParseEvents } from '../../server/services/wif-parse';
+import { probeLiftPlan } from '../helpers/print-fixtures';
 import { startTestServer, type TestClient, type TestServer } from '../helpers/server';
 import { uniqueEmail } from '../helpers/test-db';
 
@@ -274,6 +277,45 @@ describe('WIF import', () => {
     const named = await upload(s.owner, '/api/drafts/import-wif', Buffer.from(untitled), 'Spring mat.wif');
     expect(named.body.draft.name).toBe('Spring mat');
   });
+
+  it('finding 2: other requests are answered while a large WIF file is read', async () => {
+    const s = await scene();
+    // The probe's file: 20 000 ends × 20 000 picks on 32 shafts, about 1.3 MB.
+    const wif = Buffer.from(toWif(probeLiftPlan()));
+    expect(wif.length).toBeGreaterThan(1_000_000);
+    // From the moment the reading starts to the moment it ends, ask for the session again and
+    // again: a read that held the event loop would let none of them be answered in between.
+    let reading = false;
+    let answeredWhileReading = 0;
+    const pinging: Promise<void>[] = [];
+    const onStart = () => {
+      reading = true;
+      pinging.push((async () => {
+        while (reading) {
+          const res = await s.viewer.get('/api/session');
+          if (reading && res.status === 200) answeredWhileReading++;
+        }
+      })());
+    };
+    const onEnd = () => { reading = false; };
+    wifParseEvents.on('start', onStart);
+    wifParseEvents.on('end', onEnd);
+    const delay = monitorEventLoopDelay({ resolution: 5 });
+    try {
+      delay.enable();
+      const res = await upload(s.owner, '/api/drafts/import-wif', wif, 'probe.wif');
+      delay.disable();
+      expect(res.status, res.text).toBe(201);
+      expect(res.body.draft).toMatchObject({ ends: 20_000, picks: 20_000, shafts: 32 });
+      await Promise.all(pinging);
+      expect(pinging).toHaveLength(1);
+      expect(answeredWhileReading).toBeGreaterThan(0);
+      console.log(`WIF import of ${wif.length} bytes: ${answeredWhileReading} other requests answered while it was read; longest event-loop block ${(delay.max / 1e6).toFixed(0)} ms`);
+    } finally {
+      wifParseEvents.off('start', onStart);
+      wifParseEvents.off('end', onEnd);
+    }
+  }, 60_000);
 
   it('finding 11: a WIF without a [TEXT] title is named after its file', async () => {
     const s = await scene();

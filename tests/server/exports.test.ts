@@ -1,3 +1,6 @@
+import { once } from 'node:events';
+import { createServer, request as httpRequest, type IncomingMessage } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
@@ -7,7 +10,8 @@ import { pickCount, type Draft } from '../../shared/weave';
 import { doubleWeaveTableMat, pointTwillScarf } from '../../server/db/seeders/demo-drafts';
 import { renderDrawdownPng } from '../../server/print/drawdown-png';
 import { createDraft } from '../../server/services/drafts';
-import { bigPointTwill, checkerboard } from '../helpers/print-fixtures';
+import { printEvents } from '../../server/services/exports';
+import { bigPointTwill, checkerboard, probeLiftPlan } from '../helpers/print-fixtures';
 import { startTestServer, type TestClient, type TestServer } from '../helpers/server';
 
 let server: TestServer;
@@ -110,8 +114,8 @@ describe('GET /api/drafts/:id/print.pdf', () => {
   });
 
   it('keeps answering other requests while a large draft prints', async () => {
-    // 1200 ends × 1200 picks on 8 shafts: a few hundred sheets.
-    const big = bigPointTwill(1200);
+    // 1000 ends × 1000 picks on 8 shafts: about 220 sheets, under the 300-page limit.
+    const big = bigPointTwill(1000);
     const s = await scene(big);
     const delay = monitorEventLoopDelay({ resolution: 5 });
     delay.enable();
@@ -204,3 +208,84 @@ describe('prints and pictures through a public link', () => {
     expect((await stranger.get(`/api/shared/${token}/drawdown.png`)).status).toBe(404);
   });
 });
+
+describe('bounded printing', () => {
+  it('finding 2: a print past the limits answers 422 before any of it is made, saying how big it is; a range or one repeat prints', async () => {
+    // 1200 × 1200 on 8 shafts prints as about 311 pages whole.
+    const long = await scene(bigPointTwill(1200));
+    const refused = await s(long.viewer, `/api/drafts/${long.draftId}/print.pdf?part=whole`);
+    expect(refused.status).toBe(422);
+    expect(refused.body.error.message).toMatch(/^This draft prints as [\d,]+ pages, more than the 300 a print can have; choose a range of ends and picks, or one repeat$/);
+    // A browser tab opened on the print's address gets the same words as a page.
+    const tab = await long.viewer.agent.get(`/api/drafts/${long.draftId}/print.pdf?part=whole`).set('accept', 'text/html,application/xhtml+xml,*/*;q=0.8');
+    expect(tab.status).toBe(422);
+    expect(tab.headers['content-type']).toMatch(/^text\/html/);
+    expect(tab.text).toMatch(/prints as [\d,]+ pages/);
+    expect((await fetchBinary(long.viewer, `/api/drafts/${long.draftId}/print.pdf?part=repeat`)).status).toBe(200);
+
+    // The probe's 20 000 × 20 000 draft: refused at once whole, through a public link too; a range of it prints.
+    const huge = await scene(probeLiftPlan());
+    const whole = await s(huge.viewer, `/api/drafts/${huge.draftId}/print.pdf?part=whole`);
+    expect(whole.status).toBe(422);
+    expect(whole.body.error.message).toBe('This print would show 20,000 ends × 20,000 picks, more than the 4,000,000 cells a print can hold; choose a range of ends and picks, or one repeat');
+    const link = await huge.owner.post(`/api/drafts/${huge.draftId}/share`);
+    expect(link.status).toBeLessThan(300);
+    const token = link.body.token as string;
+    expect((await server.client().get(`/api/shared/${token}/print.pdf?part=whole`)).status).toBe(422);
+    const part = await fetchBinary(huge.viewer, `/api/drafts/${huge.draftId}/print.pdf?ends=1-100&picks=1-100&lists=`);
+    expect(part.status).toBe(200);
+    expect((await readPdf(part.body as Buffer)).text).toContain('ends 1–100');
+
+    // A picture too big at any scale says so; the library's thumbnail shows the start of the cloth only.
+    const png = await s(huge.viewer, `/api/drafts/${huge.draftId}/drawdown.png?scale=1`);
+    expect(png.status).toBe(422);
+    expect(png.body.error.message).toMatch(/^This draft has 20,000 ends × 20,000 picks, more than the 16,000,000 cells a picture can show; print it instead and choose a range/);
+    const thumb = await fetchBinary(huge.viewer, `/api/drafts/${huge.draftId}/thumbnail.png`);
+    expect(thumb.status).toBe(200);
+    // PNG width and height, bytes 16–23 (ISO/IEC 15948 IHDR): 96 ends and picks at 2 pixels each, at most.
+    const bytes = thumb.body as Buffer;
+    expect(Math.max(bytes.readUInt32BE(16), bytes.readUInt32BE(20))).toBeLessThanOrEqual(96 * 2 * 4);
+  }, 120_000);
+
+  it('finding 2: a print goes out as it is made, and stops when the client goes away', async () => {
+    // About 220 pages: seconds of work, a little of it enough to send the first bytes.
+    const long = await scene(bigPointTwill(1000));
+    const events: { kind: string; reason?: string; pages: number }[] = [];
+    const onDone = (e: { pages: number }) => events.push({ kind: 'done', ...e });
+    const onStopped = (e: { reason: string; pages: number }) => events.push({ kind: 'stopped', ...e });
+    printEvents.on('done', onDone);
+    printEvents.on('stopped', onStopped);
+    const listening = createServer(server.app).listen(0, '127.0.0.1');
+    await once(listening, 'listening');
+    try {
+      const { port } = listening.address() as AddressInfo;
+      const cookie = (long.viewer.agent as unknown as { jar: { getCookies(a: unknown): { toValueString(): string }[] } }).jar
+        .getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false }).map((c) => c.toValueString()).join('; ');
+      const asking = httpRequest({ host: '127.0.0.1', port, path: `/api/drafts/${long.draftId}/print.pdf?part=whole&lists=`, headers: { cookie } });
+      asking.on('error', () => undefined);
+      asking.end();
+      const [answer] = (await once(asking, 'response')) as [IncomingMessage];
+      expect(answer.statusCode).toBe(200);
+      const [first] = (await once(answer, 'data')) as [Buffer];
+      // The first bytes of the PDF came while the print was still being made.
+      expect(first.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+      expect(events).toEqual([]);
+      asking.destroy();
+      const started = Date.now();
+      while (events.length === 0 && Date.now() - started < 60_000) await new Promise((r) => setTimeout(r, 20));
+      expect(events).toHaveLength(1);
+      expect(events[0]).toMatchObject({ kind: 'stopped', reason: 'client gone' });
+      expect(events[0].pages).toBeLessThan(200);
+    } finally {
+      printEvents.off('done', onDone);
+      printEvents.off('stopped', onStopped);
+      listening.closeAllConnections();
+      listening.close();
+    }
+  }, 120_000);
+});
+
+/** A GET whose JSON error body is parsed (supertest parses JSON answers; a PDF stays a buffer). */
+function s(client: TestClient, path: string) {
+  return client.agent.get(path).set('accept', 'application/json');
+}

@@ -9,9 +9,10 @@ import { defaultPlan } from '../../../shared/plan';
 import { cellCentre } from '../../../shared/print/draft-layout';
 import { planDraftPages } from '../../../shared/print/draft-pages';
 import { pageSize, type PrintOptions } from '../../../shared/print/types';
-import { renderDraftPdf } from '../../../server/print/draft-pdf';
+import { PassThrough } from 'node:stream';
+import { PrintStopped, renderDraftPdf, streamDraftPdf } from '../../../server/print/draft-pdf';
 import { doubleWeaveProfile } from '../../helpers/draft-fixtures';
-import { checkerboard, HARBOUR, MUSTARD } from '../../helpers/print-fixtures';
+import { bigPointTwill, checkerboard, HARBOUR, MUSTARD } from '../../helpers/print-fixtures';
 import { doubleWeaveTableMat } from '../../../server/db/seeders/demo-drafts';
 
 const work = mkdtempSync(join(tmpdir(), 'shedwright-print-'));
@@ -236,4 +237,34 @@ describe('renderDraftPdf', () => {
     const { text } = await readBack(await renderDraftPdf({ draft, meta, options: { ...options, workingOrder: { side: 'back' } }, lists: ['threading'] }));
     expect(text).toContain('Working from the back of the loom');
   });
+});
+
+describe('a print watched while it is made', () => {
+  const options: PrintOptions = { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, numberEvery: 4, range: { part: 'whole' } };
+  const meta = { title: 'Watched', author: '', studio: '', date: '', version: 1 };
+  /** Streams a print of about 140 pages to a reader that takes everything, with `control`. */
+  async function watched(control: Parameters<typeof streamDraftPdf>[2]) {
+    const out = new PassThrough();
+    let bytes = 0;
+    out.on('data', (c: Buffer) => { bytes += c.length; });
+    const outcome = await streamDraftPdf({ draft: bigPointTwill(800), meta, lists: [], options }, out, control).then((r) => r, (err: unknown) => err);
+    return { outcome, bytes };
+  }
+
+  it('finding 2: a print past its time, or whose client has gone, stops part way', async () => {
+    const late = await watched({ deadline: performance.now() });
+    expect(late.outcome).toBeInstanceOf(PrintStopped);
+    expect(late.outcome).toMatchObject({ reason: 'too long', pages: 0 });
+    const gone = new AbortController();
+    gone.abort();
+    expect((await watched({ signal: gone.signal })).outcome).toMatchObject({ reason: 'client gone', pages: 0 });
+    const runaway = await watched({ maxPages: 10 });
+    expect(runaway.outcome).toMatchObject({ reason: 'too many pages' });
+    expect((runaway.outcome as PrintStopped).pages).toBeLessThanOrEqual(12);
+    // Unwatched, the same print runs to its end.
+    const whole = await watched({});
+    expect(whole.outcome).toMatchObject({ pages: expect.any(Number) });
+    expect((whole.outcome as { pages: number }).pages).toBeGreaterThan(100);
+    expect(whole.bytes).toBeGreaterThan(runaway.bytes);
+  }, 60_000);
 });
