@@ -1,4 +1,5 @@
 import { PassThrough, type Writable } from 'node:stream';
+import { CLOTH_VIEW_NAMES } from '../../shared/words';
 import PDFDocument from 'pdfkit';
 import { hexToRgb, isLayered, pickCount, type Draft } from '../../shared/weave';
 import { clothSett, computePlan, planBlocker, type ClothSett, type PlanDocument, type PlanOutputs } from '../../shared/plan';
@@ -350,10 +351,10 @@ function drawRunningHead(ctx: DrawContext, title: string, parts: PagePart[]): vo
 }
 
 const VIEW_CAPTIONS: Record<PrintView, string> = {
-  structure: 'Drawdown in two tones (black: end up)',
-  front: 'Front face',
-  back: 'Back face, as seen turned over',
-  layers: 'Layer map (the number in each area is the layer on top at the front)',
+  structure: `${CLOTH_VIEW_NAMES.structure}: drawdown in two tones (black: end up)`,
+  front: `${CLOTH_VIEW_NAMES.front}: the front face`,
+  back: `${CLOTH_VIEW_NAMES.back}: the back face, as seen turned over`,
+  layers: `${CLOTH_VIEW_NAMES.layers} (the number in each area is the layer on top at the front)`,
 };
 
 /** A span of the draft's ends or picks as a span of the window's cloth (ctx.sources), which starts at the window. */

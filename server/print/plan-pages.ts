@@ -1,4 +1,4 @@
-import { formatNumber } from '../../shared/words';
+import { formatNumber, LOOM_LIST_NAMES } from '../../shared/words';
 import { pickCount, type Draft } from '../../shared/weave';
 import {
   planBlocker,
@@ -238,7 +238,7 @@ const REST = 'Sit square to the loom, and rest your hands and eyes between group
 
 type Breathe = () => Promise<void>;
 
-/** One line of a loom-side list: a box to tick, its label and what to do. */
+/** One line of a list for the loom: a box to tick, its label and what to do. */
 interface TickRow {
   label: string;
   detail: string;
@@ -297,21 +297,21 @@ async function tickAll(flow: Flow, rows: TickRow[], breathe: Breathe): Promise<v
 }
 
 async function threadingList(doc: Doc, groups: Group<ThreadingStep>[], o: Orientation, breathe: Breathe): Promise<void> {
-  const flow = new Flow(doc, 'Threading');
+  const flow = new Flow(doc, LOOM_LIST_NAMES.threading);
   flow.line(orientationWords(o), MUTED);
   flow.line(`Each group lists its ends in the order you reach them, with the shaft for each${groups.some((g) => g.items.some((s) => s.dent !== undefined)) ? ' and the dent it is sleyed in' : ''}. ${REST}`, MUTED, BODY_SIZE - 1);
   await tickAll(flow, threadingRows(groups), breathe);
 }
 
 async function sleyingList(doc: Doc, outputs: PlanOutputs, o: Orientation, breathe: Breathe): Promise<void> {
-  const flow = new Flow(doc, 'Sleying');
+  const flow = new Flow(doc, LOOM_LIST_NAMES.sleying);
   flow.line(`${orientationWords(o)} Denting ${dentingLabel(outputs.denting.pattern)}.`, MUTED);
   flow.line(`Each group lists its dents with the ends that go through them. ${REST}`, MUTED, BODY_SIZE - 1);
   await tickAll(flow, sleyingRows(outputs), breathe);
 }
 
 async function tieOnList(doc: Doc, outputs: PlanOutputs, o: Orientation, breathe: Breathe): Promise<void> {
-  const flow = new Flow(doc, 'Tying on');
+  const flow = new Flow(doc, LOOM_LIST_NAMES.tieOn);
   flow.line(orientationWords(o), MUTED);
   await tickAll(flow, tieOnRows(outputs), breathe);
 }
@@ -329,7 +329,7 @@ function picksWithin(list: WeavingList, picks: { start: number; end: number }): 
 }
 
 async function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames: YarnNames, breathe: Breathe, picksReason?: string, window?: { start: number; end: number; repeat: boolean }): Promise<void> {
-  const flow = new Flow(doc, draft.control === 'liftplan' ? 'Lift plan' : 'Treadling');
+  const flow = new Flow(doc, `${LOOM_LIST_NAMES.weaving}: ${draft.control === 'liftplan' ? 'lift plan' : 'treadling'}`);
   const times = picksReason
     ? `${picksReason} `
     : list.repeats > 0 ? `Weave the sequence ${plural(list.repeats, 'time')}${list.extraPicks ? `, then picks 1–${list.extraPicks} once more` : ''}. ` : '';
@@ -349,7 +349,7 @@ async function weavingPages(doc: Doc, draft: Draft, list: WeavingList, yarnNames
 }
 
 /**
- * About how many pages the loom-side lists of drawLoomLists take, from their rows measured in the
+ * About how many pages the lists for the loom of drawLoomLists take, from their rows measured in the
  * print's font: a row too long for one line is counted by its width, not wrapped word by word.
  */
 export async function estimateLoomListPages(

@@ -1,4 +1,4 @@
-// The loom-side guide as a student meets it: open the double-weave mat at the loom, thread from
+// The At the loom page as a student meets it: open the double-weave mat at the loom, thread from
 // the back of the loom for a few groups, reload, and find the same place.
 import { describe, expect, it } from 'vitest';
 import { demoAccounts } from '../../server/db/demo-accounts';

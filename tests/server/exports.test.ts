@@ -76,7 +76,7 @@ describe('GET /api/drafts/:id/print.pdf', () => {
     expect(pages[total - 1]).toContain('Threading');
   });
 
-  it('uses the saved plan: its figures on the plan page and every loom-side list by default', async () => {
+  it('uses the saved plan: its figures on the plan page and every list for the loom by default', async () => {
     const s = await scene();
     const plan = { unit: 'cm', finishedWidth: 30, finishedLength: 150, pieces: 1, warpYarn: { text: '8/2 cotton' }, weftYarn: { text: '8/2 cotton' } };
     const saved = await s.owner.send('put', `/api/drafts/${s.draftId}/plan`, plan);
@@ -85,7 +85,7 @@ describe('GET /api/drafts/:id/print.pdf', () => {
     expect(res.status).toBe(200);
     const { text } = await readPdf(res.body as Buffer);
     expect(text).toContain('Reed and dents');
-    for (const heading of ['Threading', 'Sleying', 'Tying on', 'Treadling']) expect(text).toContain(heading);
+    for (const heading of ['Threading', 'Sleying', 'Tying on', 'Weaving: treadling']) expect(text).toContain(heading);
   });
 
   it.each([

@@ -75,7 +75,7 @@ describe('plans', () => {
   });
 });
 
-describe('loom-side progress', () => {
+describe('progress at the loom', () => {
   it('is kept per person, per list, with the working order', async () => {
     const s = await scene();
     expect((await s.viewer.get(`${s.base}/progress`)).body).toEqual({ progress: null });

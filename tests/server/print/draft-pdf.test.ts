@@ -88,7 +88,7 @@ describe('renderDraftPdf', () => {
     expect(pages[1]).toContain('No plan has been saved');
     expect(pages[2]).toContain('Threading');
     expect(pages[2]).toContain('Group 1 of');
-    expect(pages[3]).toContain('Treadling');
+    expect(pages[3]).toContain('Weaving: treadling');
     expect(pages[3]).toContain('Pick 20');
     // Every page carries its number.
     expect(text).toContain('Checkerboard sampler · page 4');
@@ -157,9 +157,9 @@ describe('renderDraftPdf', () => {
     const pdf = await renderDraftPdf({ draft, meta, options, lists: [] });
     const { pages } = await readBack(pdf);
     expect(pages[0]).toMatch(/The cloth views after the draft show ends 1–\d+ and picks 1–\d+ only \(the whole cloth would take \d+ sheets each\); the draft sheets show every end and pick\./);
-    const structure = pages.filter((p) => p.includes('Drawdown in two tones'));
+    const structure = pages.filter((p) => p.includes('Structure: drawdown in two tones'));
     expect(structure).toHaveLength(1);
-    expect(structure[0]).toMatch(/Drawdown in two tones \(black: end up\) \(ends 1–\d+, picks 1–\d+ only\)/);
+    expect(structure[0]).toMatch(/Structure: drawdown in two tones \(black: end up\) \(ends 1–\d+, picks 1–\d+ only\)/);
     // Every end and pick is still on a draft sheet: the last sheet's running head names the last end and pick.
     expect(pages.some((p) => /Draft: sheet \d+ of \d+ · ends \d+–900 · picks \d+–700/.test(p))).toBe(true);
   });
@@ -181,7 +181,7 @@ describe('renderDraftPdf', () => {
     expect(pages[0]).toContain('180 ends × 150 picks');
   });
 
-  it('prints both faces and the layer map of a double weave, and the plan with every loom-side list', async () => {
+  it('prints both faces and the layer map of a double weave, and the plan with every list for the loom', async () => {
     const draft: Draft = {
       ...expandProfile(doubleWeaveProfile(), 'double-weave'),
       yarns: [
@@ -194,13 +194,13 @@ describe('renderDraftPdf', () => {
     const pdf = await renderDraftPdf({ draft, meta: { ...meta, title: 'Two-block mat' }, plan, options: { ...options, paper: 'letter' } });
     expect(pdf.toString('latin1')).toContain('/MediaBox [0 0 612 792]');
     const { pages, text } = await readBack(pdf);
-    expect(pages[0]).toContain('Front face');
-    expect(pages[0]).toContain('Back face, as seen turned over');
+    expect(pages[0]).toContain('Front: the front face');
+    expect(pages[0]).toContain('Back: the back face, as seen turned over');
     expect(pages[0]).toContain('Layer map');
     expect(pages[0]).toContain('lift plan');
     expect(pages[1]).toContain('Reed and dents');
     expect(pages[1]).toMatch(/Warp yarn per colour[\s\S]*Deep navy/);
-    for (const heading of ['Threading', 'Sleying', 'Tying on', 'Lift plan']) expect(text).toContain(heading);
+    for (const heading of ['Threading', 'Sleying', 'Tying on', 'Weaving: lift plan']) expect(text).toContain(heading);
     expect(text).toContain('Working from the front of the loom, right to left');
   });
 
@@ -212,7 +212,7 @@ describe('renderDraftPdf', () => {
     console.log(`demo mat, default print: ${total} A4 pages`);
     expect(total).toBeLessThanOrEqual(12);
     expect(pages[0]).toContain('one repeat, ends 1–80 of 440 and picks 1–80 of 560');
-    for (const heading of ['Front face', 'Back face', 'Layer map', 'Colours and yarns', 'Reed and dents', 'Threading', 'Sleying', 'Tying on', 'Lift plan']) expect(text).toContain(heading);
+    for (const heading of ['Front: the front face', 'Back: the back face', 'Layer map', 'Colours and yarns', 'Reed and dents', 'Threading', 'Sleying', 'Tying on', 'Weaving: lift plan']) expect(text).toContain(heading);
     // The threading list covers the whole warp, to the last end.
     expect(text).toMatch(/Ends 440–|–440\b|\b440: /);
     // Each end's dent is on its own line of the threading list.

@@ -63,19 +63,19 @@ describe('PrintOptions', () => {
     render(<PrintOptions base="/api/drafts/7" ends={60} picks={40} layered files />);
     const exportList = within(screen.getByRole('heading', { name: 'Export' }).parentElement!);
     // 4 megapixels ÷ 2400 cells → 40 pixels a cell, capped at 16.
-    const colour = exportList.getByRole('link', { name: 'Cloth in colour (PNG, 960 × 640 pixels)' });
+    const colour = exportList.getByRole('link', { name: 'Colour view (PNG, 960 × 640 pixels)' });
     fireEvent.click(screen.getByLabelText('Treadling on the right'));
     const url = new URL(colour.getAttribute('href')!, 'http://localhost');
     expect(url.pathname).toBe('/api/drafts/7/drawdown.png');
     expect(drawdownPngQuerySchema.parse(Object.fromEntries(url.searchParams))).toEqual({ view: 'colour', scale: 16, threadingAbove: true, treadlingRight: false });
-    for (const name of [/Drawdown in two tones/, /Front face/, /Back face/]) expect(exportList.getByRole('link', { name })).toBeTruthy();
+    for (const name of [/Structure view/, /Front view/, /Back view/]) expect(exportList.getByRole('link', { name })).toBeTruthy();
     expect(exportList.getByRole('link', { name: /WIF/ }).getAttribute('href')).toBe('/api/drafts/7/export.wif');
     expect(exportList.getByRole('link', { name: /JSON/ }).getAttribute('href')).toBe('/api/drafts/7/export.json');
   });
 
   it('leaves out faces of one-layer cloth, files behind a public link, and pictures of a huge draft', () => {
     const { unmount } = render(<PrintOptions base="/api/shared/abc" ends={60} picks={40} layered={false} />);
-    expect(screen.queryByRole('link', { name: /Front face/ })).toBeNull();
+    expect(screen.queryByRole('link', { name: /Front view/ })).toBeNull();
     expect(screen.queryByRole('link', { name: /WIF/ })).toBeNull();
     expect(printQuery(printLink()).path).toBe('/api/shared/abc/print.pdf');
     unmount();

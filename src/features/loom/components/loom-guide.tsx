@@ -1,3 +1,4 @@
+import { LOOM_LIST_NAMES } from '../../../../shared/words';
 import { useEffect, useEffectEvent, useMemo, useState, type ReactNode } from 'react';
 import { ColourSwatch } from '../../../components/ui/colour-swatch';
 import type { LoomList, Progress, WorkingOrder } from '../../../../shared/api/plans';
@@ -11,7 +12,7 @@ import { readLoomCache, writeLoomCache } from '../offline-store';
 import { usePlace, type SaveState } from '../use-place';
 import { ResultsSection } from './results-section';
 
-const LIST_LABELS: Record<LoomList, string> = { threading: 'Threading', sleying: 'Sleying', tieon: 'Tie-on', weaving: 'Weaving' };
+const LIST_LABELS: Record<LoomList, string> = { threading: LOOM_LIST_NAMES.threading, sleying: LOOM_LIST_NAMES.sleying, tieon: LOOM_LIST_NAMES.tieOn, weaving: LOOM_LIST_NAMES.weaving };
 const BIG = 'min-h-12 min-w-12 rounded-md border px-4 text-base font-medium';
 
 function Choice<T extends string>({ legend, value, options, onChange }: {
@@ -45,7 +46,7 @@ const SAVE_WORDS: Record<SaveState, string> = {
   failed: 'Your place could not be saved on the server; it is kept on this device.',
 };
 
-/** The loom-side guide once the draft and plan are in hand. */
+/** The At the loom page once the draft and plan are in hand. */
 export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
   detail: Pick<DraftDetail, 'id' | 'name' | 'document'>; savedPlan: PlanDocument | null; serverPlace: Progress | null | undefined; offline: boolean;
 }) {

@@ -1,3 +1,4 @@
+import { SECTION_NAMES } from '../../../../shared/words';
 import { useQuery, type UseQueryOptions } from '@tanstack/react-query';
 import { useEffect } from 'react';
 import { ErrorNotice } from '../../../components/ui/error-notice';
@@ -45,8 +46,8 @@ export function LoomPage({ draftId, draftQuery, planQuery }: { draftId: number; 
     );
   }
   const failed = (!detail && draft.error) || (planDoc === undefined && plan.error);
-  if (failed) return <ErrorNotice title="Could not open the loom-side guide" error={failed} onRetry={() => { void draft.refetch(); void plan.refetch(); }} />;
-  if (!detail || planDoc === undefined) return <Spinner label="Loading the loom-side guide…" />;
+  if (failed) return <ErrorNotice title={`Could not open ${SECTION_NAMES.loom}`} error={failed} onRetry={() => { void draft.refetch(); void plan.refetch(); }} />;
+  if (!detail || planDoc === undefined) return <Spinner label={`Loading ${SECTION_NAMES.loom}…`} />;
   // Offline on arrival: go on from the place kept on this device.
   const serverPlace = progress.data ? progress.data.progress : progress.isError ? null : undefined;
   return <LoomGuide detail={detail} savedPlan={planDoc} serverPlace={serverPlace} offline={offline(draft)} />;

@@ -1,3 +1,4 @@
+import { ARRANGEMENT_NAMES, CLOTH_VIEW_NAMES, LOOM_LIST_NAMES } from '../../../../shared/words';
 import { useId, useState } from 'react';
 import type { PngViewName } from '../../../../shared/api/exports';
 import { loomLists, type LoomList, type WorkingOrder } from '../../../../shared/api/plans';
@@ -20,8 +21,18 @@ export interface PrintOptionsProps {
   repeat?: { ends: number; picks: number } | null;
 }
 
-const LIST_LABELS: Record<LoomList, string> = { threading: 'Threading', sleying: 'Sleying', tieon: 'Tying on', weaving: 'Treadling or lift plan' };
-const VIEW_LABELS: Record<PngViewName, string> = { colour: 'Cloth in colour', structure: 'Drawdown in two tones', front: 'Front face', back: 'Back face' };
+const LIST_LABELS: Record<LoomList, string> = {
+  threading: LOOM_LIST_NAMES.threading,
+  sleying: LOOM_LIST_NAMES.sleying,
+  tieon: LOOM_LIST_NAMES.tieOn,
+  weaving: `${LOOM_LIST_NAMES.weaving} (treadling or lift plan)`,
+};
+const VIEW_LABELS: Record<PngViewName, string> = {
+  colour: `${CLOTH_VIEW_NAMES.colour} view`,
+  structure: `${CLOTH_VIEW_NAMES.structure} view`,
+  front: `${CLOTH_VIEW_NAMES.front} view`,
+  back: `${CLOTH_VIEW_NAMES.back} view`,
+};
 
 /** Pictures above this size are not offered (the server allows 16 megapixels). */
 const PICTURE_PIXELS = 4_000_000;
@@ -34,7 +45,7 @@ export function pictureScale(ends: number, picks: number): number | null {
 }
 
 /**
- * Print and Export: paper, arrangement, numbering, which loom-side lists and in which working
+ * Print and Export: paper, arrangement, numbering, which lists for the loom and in which working
  * order, then a link that opens the printed draft, and links to pictures and files of the draft.
  */
 export function PrintOptions({ base, ends, picks, layered, arrangement, files = false, repeat = null }: PrintOptionsProps) {
@@ -99,13 +110,13 @@ export function PrintOptions({ base, ends, picks, layered, arrangement, files = 
 
       <fieldset className="flex flex-col gap-1">
         <legend className="font-medium">Arrangement</legend>
-        <Check label="Threading above the drawdown" checked={choices.threadingAbove} onChange={(v) => set({ threadingAbove: v })} />
-        <Check label="Treadling on the right" checked={choices.treadlingRight} onChange={(v) => set({ treadlingRight: v })} />
-        <Check label="Shaft 1 at the bottom of the threading" checked={choices.shaftsFromBottom} onChange={(v) => set({ shaftsFromBottom: v })} />
+        <Check label={ARRANGEMENT_NAMES.threadingAbove} checked={choices.threadingAbove} onChange={(v) => set({ threadingAbove: v })} />
+        <Check label={ARRANGEMENT_NAMES.treadlingRight} checked={choices.treadlingRight} onChange={(v) => set({ treadlingRight: v })} />
+        <Check label={ARRANGEMENT_NAMES.shaftOneAtBottom} checked={choices.shaftsFromBottom} onChange={(v) => set({ shaftsFromBottom: v })} />
       </fieldset>
 
       <fieldset className="flex flex-col gap-1">
-        <legend className="font-medium">Loom-side lists</legend>
+        <legend className="font-medium">Lists to work from at the loom</legend>
         {loomLists.map((l) => (
           <Check key={l} label={LIST_LABELS[l]} checked={choices.lists.includes(l)} onChange={(v) => toggleList(l, v)} />
         ))}
