@@ -98,6 +98,19 @@ describe('sign-up, reset and account', () => {
     expect(server.to('POST /api/auth/sign-up/confirm')[0].body).toEqual({ token: 'w3lc0me' });
   });
 
+  it('says a used sign-up link is used, and offers sign-in and sign-up instead of the button', async () => {
+    mockApi({
+      'GET /api/session': { body: { user: null } },
+      'GET /api/csrf': { body: { token: 'tok-1' } },
+      'POST /api/auth/sign-up/confirm': apiError(400, 'bad_request', 'This link is invalid, has been used or has expired; sign in, or sign up again'),
+    });
+    renderApp('/welcome?token=used');
+    fireEvent.click(await screen.findByRole('button', { name: 'Make my account' }));
+    expect((await screen.findByRole('alert')).textContent).toContain('has been used');
+    expect(screen.queryByRole('button', { name: 'Make my account' })).toBeNull();
+    expect(screen.getByRole('link', { name: 'Sign up again' }).getAttribute('href')).toBe('/sign-up');
+  });
+
   it('sets a new password from the mailed token and opens the drafts', async () => {
     const server = mockApi({
       'GET /api/session': { body: { user: null } },

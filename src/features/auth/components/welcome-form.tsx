@@ -1,6 +1,7 @@
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/error-notice';
+import { isApiError } from '../../../lib/api-client';
 import { useConfirmSignUp } from '../api/sign-up';
 
 export interface WelcomeFormProps {
@@ -32,10 +33,15 @@ export function WelcomeForm({ token, onDone }: WelcomeFormProps) {
           </p>
         </div>
       )}
-      <p>Your e-mail address is confirmed by this link. Make the account and sign in:</p>
-      <Button type="button" variant="primary" busy={confirm.isPending} busyLabel="Making the account…" onClick={() => confirm.mutate({ token }, { onSuccess: onDone })}>
-        Make my account
-      </Button>
+      {/* A used or old link stays so: another try would only say the same. */}
+      {!isApiError(confirm.error, 400) && (
+        <>
+          <p>Your e-mail address is confirmed by this link. Make the account and sign in:</p>
+          <Button type="button" variant="primary" busy={confirm.isPending} busyLabel="Making the account…" onClick={() => confirm.mutate({ token }, { onSuccess: onDone })}>
+            Make my account
+          </Button>
+        </>
+      )}
     </div>
   );
 }
