@@ -64,10 +64,8 @@ export const ARRANGEMENT_NAMES = {
   shaftOneAtBottom: 'Shaft 1 at the bottom of the threading',
 } as const;
 
-/** How shaft 1 is placed, worded the same in the editor, the At the loom page and print. */
-export function shaftOneWords(near: boolean): string {
-  return near ? 'Shaft 1 nearest you' : 'Shaft 1 farthest from you';
-}
+/** Which shaft the weaver counts as shaft 1, worded the same on the At the loom page, in Print and on paper. */
+export const SHAFT_NUMBERING_NAMES = { question: 'Shaft 1 is', near: 'Nearest you', far: 'Farthest from you' } as const;
 
 /** A number the British way (1,234.5), with at most `digits` decimals. */
 export function formatNumber(n: number, digits = 0): string {

@@ -1,4 +1,4 @@
-import { LOOM_LIST_NAMES } from '../../../../shared/words';
+import { LOOM_LIST_NAMES, SHAFT_NUMBERING_NAMES } from '../../../../shared/words';
 import { useEffect, useEffectEvent, useMemo, useState, type ReactNode } from 'react';
 import { ColourSwatch } from '../../../components/ui/colour-swatch';
 import type { LoomList, Progress, WorkingOrder } from '../../../../shared/api/plans';
@@ -116,7 +116,7 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
         <div className="mt-2 flex flex-col gap-3">
           <Choice legend="Working from" value={place.settings.side} options={[['front', 'Front of the loom'], ['back', 'Back of the loom']]} onChange={(side) => setOrder({ side })} />
           <Choice legend="Direction" value={place.settings.direction} options={[['right-to-left', 'Right to left'], ['left-to-right', 'Left to right']]} onChange={(direction) => setOrder({ direction })} />
-          <Choice legend="Shaft 1 is" value={place.settings.shaftNumbering} options={[['near', 'Nearest me'], ['far', 'Farthest from me']]} onChange={(shaftNumbering) => setOrder({ shaftNumbering })} />
+          <Choice legend={SHAFT_NUMBERING_NAMES.question} value={place.settings.shaftNumbering} options={[['near', SHAFT_NUMBERING_NAMES.near], ['far', SHAFT_NUMBERING_NAMES.far]]} onChange={(shaftNumbering) => setOrder({ shaftNumbering })} />
           {list === 'tieon' && (
             <label className="flex flex-col gap-1 text-sm font-medium">
               Ends per bundle

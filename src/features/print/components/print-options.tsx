@@ -1,4 +1,4 @@
-import { ARRANGEMENT_NAMES, CLOTH_VIEW_NAMES, LOOM_LIST_NAMES } from '../../../../shared/words';
+import { ARRANGEMENT_NAMES, CLOTH_VIEW_NAMES, LOOM_LIST_NAMES, SHAFT_NUMBERING_NAMES } from '../../../../shared/words';
 import { useId, useState } from 'react';
 import type { PngViewName } from '../../../../shared/api/exports';
 import { loomLists, type LoomList, type WorkingOrder } from '../../../../shared/api/plans';
@@ -132,9 +132,9 @@ export function PrintOptions({ base, ends, picks, layered, arrangement, files = 
           <option value="right-to-left">Right to left</option>
           <option value="left-to-right">Left to right</option>
         </SelectField>
-        <SelectField label="Shaft 1 is" value={choices.workingOrder.shaftNumbering} onChange={(e) => order({ shaftNumbering: e.target.value as WorkingOrder['shaftNumbering'] })}>
-          <option value="near">Nearest you</option>
-          <option value="far">Farthest from you</option>
+        <SelectField label={SHAFT_NUMBERING_NAMES.question} value={choices.workingOrder.shaftNumbering} onChange={(e) => order({ shaftNumbering: e.target.value as WorkingOrder['shaftNumbering'] })}>
+          <option value="near">{SHAFT_NUMBERING_NAMES.near}</option>
+          <option value="far">{SHAFT_NUMBERING_NAMES.far}</option>
         </SelectField>
       </div>
 
