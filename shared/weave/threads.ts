@@ -246,6 +246,123 @@ export function renderThreads(input: ThreadPictureInput, options: ThreadPictureO
   return { width: win.width, height: win.height, rgba: boxAverage(big.rgba, big.width, big.height, k) };
 }
 
+/**
+ * The picture's columns cut into spans, one per thread space crossed (the pixels whose centres lie
+ * in one end's space). A span's pixels are worked out from a few ends only, its `refs`: the end
+ * drawn in each pixel and, per weft layer, the ends of that layer either side of it. Spans of the
+ * same `shape` (the same widths, shading, colours and layers, reading their refs the same way) are
+ * drawn alike in rows of the same kind wherever their refs lie the same way over and under, so
+ * each such span is drawn once and copied. Per weft layer l, a span's shape and refs are at
+ * l * count + span.
+ */
+interface Spans {
+  count: number;
+  start: Int32Array;
+  length: Int32Array;
+  cell: Int32Array;
+  shape: Int32Array;
+  refFrom: Int32Array;
+  refTo: Int32Array;
+  refs: Int32Array;
+  /**
+   * Per ref: the bits of its end's state the span reads, and how many: all 3 where the span draws
+   * that end (its over and under along its length counts), bit 0 alone where only the weft's
+   * crossing of it does.
+   */
+  refMask: Uint8Array;
+  refBits: Uint8Array;
+  /** Most bits any span's over-and-under state takes. */
+  bits: number;
+}
+
+/** Float words as their bit patterns, to compare and hash them as integers. */
+const bitsOf = (a: Float32Array) => new Uint32Array(a.buffer, a.byteOffset, a.length);
+
+function spansOf(xs: Axis, width: number, layers: number, endLayer: Uint8Array, warpBase: Int32Array): Spans {
+  const starts: number[] = [];
+  const cells: number[] = [];
+  const ends: number[] = [];
+  for (let x = 0; x < width; ) {
+    const c = xs.cell[x];
+    let e = x + 1;
+    while (e < width && xs.cell[e] === c) e++;
+    if (c >= 0) {
+      starts.push(x);
+      ends.push(e);
+      cells.push(c);
+    }
+    x = e;
+  }
+  const count = starts.length;
+  const refFrom = new Int32Array((layers + 1) * count);
+  const refTo = new Int32Array((layers + 1) * count);
+  const refs: number[] = [];
+  const wide: number[] = [];
+  const looks: Uint32Array[] = [];
+  const cover = bitsOf(xs.cover);
+  const shade = bitsOf(xs.shade);
+  const between = bitsOf(xs.between);
+  let most = 0;
+  for (let l = 0; l <= layers; l++) {
+    const wo = l * width;
+    for (let r = 0; r < count; r++) {
+      const from = refs.length;
+      const refOf = (t: number, drawn: boolean) => {
+        for (let q = from; q < refs.length; q++) {
+          if (refs[q] !== t) continue;
+          if (drawn) wide[q] = 1;
+          return q - from;
+        }
+        refs.push(t);
+        wide.push(drawn ? 1 : 0);
+        return refs.length - 1 - from;
+      };
+      const x0 = starts[r];
+      const n = ends[r] - x0;
+      const look = new Uint32Array(1 + 8 * n + 8);
+      look[0] = n;
+      for (let i = 0; i < n; i++) {
+        const x = x0 + i;
+        const et = xs.thread[x];
+        const e0 = xs.before[wo + x];
+        const e1 = xs.after[wo + x];
+        look.set([cover[x], shade[x], refOf(et, true), endLayer[et], warpBase[et], e0 < 0 ? -1 : refOf(e0, false), e1 < 0 ? -1 : refOf(e1, false), between[wo + x]], 1 + 8 * i);
+      }
+      // The refs' widths, so spans of one shape number their states alike (no span reads more than 8 ends).
+      let bits = 0;
+      for (let q = from; q < refs.length; q++) {
+        if (q - from < 8) look[1 + 8 * n + q - from] = 1 + wide[q];
+        bits += wide[q] === 1 ? 3 : 1;
+      }
+      if (refs.length - from > 8) bits = Infinity;
+      most = Math.max(most, bits);
+      looks.push(look);
+      refFrom[l * count + r] = from;
+      refTo[l * count + r] = refs.length;
+    }
+  }
+  return {
+    count,
+    start: Int32Array.from(starts),
+    length: Int32Array.from(ends, (e, r) => e - starts[r]),
+    cell: Int32Array.from(cells),
+    shape: classesOf(looks.length, (i) => looks[i]),
+    refFrom,
+    refTo,
+    refs: Int32Array.from(refs),
+    refMask: Uint8Array.from(wide, (w) => (w === 1 ? 7 : 1)),
+    refBits: Uint8Array.from(wide, (w) => (w === 1 ? 3 : 1)),
+    bits: most,
+  };
+}
+
+/** Spans whose state takes more bits than this are drawn pixel by pixel. */
+const MAX_STATE_BITS = 20;
+/** Largest table of drawn spans kept as a flat array; a larger one is a map. */
+const MAX_SLOT_TABLE = 1 << 20;
+/** Drawn spans remembered in a map at most (a picture whose spans seldom repeat stops remembering). */
+const MAX_SLOT_MAP = 1 << 18;
+
 function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, repeats: number, win: Window): ThreadPicture {
   const { draft, drawdown, sizes } = input;
   const { ends, picks, stride, bits } = drawdown;
@@ -285,110 +402,196 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
   const weftBase = Int32Array.from({ length: picks }, (_, p) => (draft.weftColors[p] ?? 0) * LEVELS);
   const endLayer = wl ?? new Uint8Array(ends).fill(1);
   const flip = back ? 1 : 0;
-  // Per row: each end's brightness along its length there, and how lit the row's pick is
-  // where it meets each end (lit over an end, shaded under it).
+  // Per row, each end's state there: bit 0 set where the row's pick passes under it, bits 1 and
+  // 2 where it lies over the picks of its own layer before and after the row.
+  const state = new Uint8Array(ends);
+  // And, worked out from the state of an end only where a span is drawn (settle): its brightness
+  // along its length there (lit over the picks of its layer, graded between them), and how lit
+  // the row's pick is where it meets it (lit over an end, shaded under it).
   const warpAlong = new Float32Array(ends);
   const weftLit = new Float32Array(ends);
-  // Cloth repeats: a picture row is drawn once and copied wherever the same rows of the drawdown
-  // (its pick's and, per layer, the picks before and after it), the same layers on top and
-  // beneath, the same weft and the same place across the pick come again.
+  // Per layer, for the row: the picks of that layer before and after it, where the row lies
+  // between them, and where their rows of the drawdown start.
+  const before = new Int32Array(layers + 1);
+  const after = new Int32Array(layers + 1);
+  const between = new Float32Array(layers + 1);
+  const beforeRow = new Int32Array(layers + 1);
+  const afterRow = new Int32Array(layers + 1);
+  const known = new Uint8Array(layers + 1);
+  const flips = back ? 7 : 0;
+  const settle = (e: number) => {
+    const l = endLayer[e];
+    const c = state[e];
+    const s0 = before[l] < 0 ? -1 : (c & 2) !== 0 ? 1 : UNDER_SHADE;
+    const s1 = after[l] < 0 ? s0 : (c & 4) !== 0 ? 1 : UNDER_SHADE;
+    warpAlong[e] = s0 < 0 ? (after[l] < 0 ? 1 : s1) : s0 + (s1 - s0) * between[l];
+    weftLit[e] = (c & 1) === 1 ? UNDER_SHADE : 1;
+  };
+  // Kinds of row. Rows of one kind have the same weft colour, layer, coverage and shading, and lie
+  // the same way between the picks of each layer. Rows of one kind that also cross the same rows
+  // of the drawdown (their pick's and, per layer, the picks before and after), with the same layers
+  // on top and beneath, are the same pixels: cloth repeats, and such a row is drawn once and copied.
   const interlacing = classesOf(picks, (p) => bits.subarray(p * stride, (p + 1) * stride));
   const above = upper ? classesOf(picks, (p) => upper.subarray(p * ends, (p + 1) * ends)) : null;
   const beneath = lower ? classesOf(picks, (p) => lower.subarray(p * ends, (p + 1) * ends)) : null;
-  const drawnRows = new Map<string, number>();
+  const kindLength = 3 + 3 * (layers + 1);
+  const lookLength = kindLength + 3 + 2 * (layers + 1);
+  const rowLooks = new Uint32Array(H * lookLength);
+  const coverBits = bitsOf(ys.cover);
+  const shadeBits = bitsOf(ys.shade);
+  const betweenBits = bitsOf(ys.between);
+  for (let y = 0; y < H; y++) {
+    const pt = ys.thread[y];
+    if (pt < 0) continue;
+    const look = y * lookLength;
+    rowLooks[look] = weftBase[pt] * 256 + (pl ? pl[pt] : 1);
+    rowLooks[look + 1] = coverBits[y];
+    rowLooks[look + 2] = shadeBits[y];
+    for (let l = 0; l <= layers; l++) {
+      const o = l * H + y;
+      const p0 = ys.before[o];
+      const p1 = ys.after[o];
+      rowLooks[look + 3 + 3 * l] = p0 < 0 ? 0 : 1;
+      rowLooks[look + 4 + 3 * l] = p1 < 0 ? 0 : 1;
+      rowLooks[look + 5 + 3 * l] = betweenBits[o];
+      rowLooks[look + kindLength + 3 + 2 * l] = p0 < 0 ? -1 : interlacing[p0];
+      rowLooks[look + kindLength + 4 + 2 * l] = p1 < 0 ? -1 : interlacing[p1];
+    }
+    rowLooks[look + kindLength] = interlacing[pt];
+    rowLooks[look + kindLength + 1] = above ? above[ys.cell[y]] : 0;
+    rowLooks[look + kindLength + 2] = beneath ? beneath[ys.cell[y]] : 0;
+  }
+  const rowKind = classesOf(H, (y) => rowLooks.subarray(y * lookLength, y * lookLength + kindLength));
+  const rowRepeat = classesOf(H, (y) => rowLooks.subarray(y * lookLength, (y + 1) * lookLength));
+  const drawnRows = new Int32Array(H).fill(-1);
+  // And within rows: a span of a thread space is drawn once per kind of row, shape of span and
+  // state of the ends it reads, and copied wherever they come again (see Spans).
+  const spans = spansOf(xs, W, layers, endLayer, warpBase);
+  let kinds = 0;
+  for (let y = 0; y < H; y++) kinds = Math.max(kinds, rowKind[y] + 1);
+  let sides = layers + 1;
+  for (const faces of [upper, lower]) if (faces) for (let i = 0; i < faces.length; i++) sides = Math.max(sides, faces[i] + 1);
+  const shapes = spans.count === 0 ? 0 : Math.max(...spans.shape) + 1;
+  const states = spans.bits <= MAX_STATE_BITS ? 2 ** spans.bits * sides * sides : 0;
+  const slotCount = kinds * shapes * states;
+  const slots = states > 0 && slotCount <= MAX_SLOT_TABLE ? new Int32Array(slotCount) : null;
+  const slotMap = states > 0 && !slots ? new Map<number, number>() : null;
   for (let y = 0; y < H; y++) {
     const pc = ys.cell[y];
     if (pc < 0) continue;
+    const same = drawnRows[rowRepeat[y]];
+    if (same >= 0) {
+      words.copyWithin(y * W, same * W, (same + 1) * W);
+      continue;
+    }
+    drawnRows[rowRepeat[y]] = y;
     const pt = ys.thread[y];
     const ay = ys.cover[y];
     const weftLayer = pl ? pl[pt] : 1;
     const weftShade = ys.shade[y];
-    let key = `${ay},${weftShade},${weftBase[pt]},${weftLayer},${interlacing[pt]},${above ? above[pc] : 0},${beneath ? beneath[pc] : 0}`;
-    for (let l = 1; l <= layers; l++) {
+    for (let l = 0; l <= layers; l++) {
       const o = l * H + y;
-      const p0 = ys.before[o];
-      const p1 = ys.after[o];
-      key += `;${p0 < 0 ? -1 : interlacing[p0]},${p1 < 0 ? -1 : interlacing[p1]},${ys.between[o]}`;
+      before[l] = ys.before[o];
+      after[l] = ys.after[o];
+      between[l] = ys.between[o];
+      beforeRow[l] = Math.max(0, before[l]) * stride;
+      afterRow[l] = Math.max(0, after[l]) * stride;
+      known[l] = 1 | (before[l] < 0 ? 0 : 2) | (after[l] < 0 ? 0 : 4);
     }
-    const same = drawnRows.get(key);
-    if (same !== undefined) {
-      words.copyWithin(y * W, same * W, (same + 1) * W);
-      continue;
-    }
-    drawnRows.set(key, y);
     const row = pt * stride;
-    // An end is lit over the picks of its own layer it lies over, graded between them.
     for (let e = 0; e < ends; e++) {
-      const o = endLayer[e] * H + y;
-      const p0 = ys.before[o];
-      const p1 = ys.after[o];
-      const s0 = p0 < 0 ? -1 : (((bits[p0 * stride + (e >>> 5)] >>> (e & 31)) & 1) ^ flip) === 1 ? 1 : UNDER_SHADE;
-      const s1 = p1 < 0 ? s0 : (((bits[p1 * stride + (e >>> 5)] >>> (e & 31)) & 1) ^ flip) === 1 ? 1 : UNDER_SHADE;
-      warpAlong[e] = s0 < 0 ? (p1 < 0 ? 1 : s1) : s0 + (s1 - s0) * ys.between[o];
-      weftLit[e] = (((bits[row + (e >>> 5)] >>> (e & 31)) & 1) ^ flip) === 1 ? UNDER_SHADE : 1;
+      const l = endLayer[e];
+      const w = e >>> 5;
+      const at = e & 31;
+      const lie = ((bits[row + w] >>> at) & 1) | (((bits[beforeRow[l] + w] >>> at) & 1) << 1) | (((bits[afterRow[l] + w] >>> at) & 1) << 2);
+      state[e] = (lie ^ flips) & known[l];
     }
+    if (states === 0) for (let e = 0; e < ends; e++) settle(e);
     const wo = weftLayer * W;
     const cellRow = pc * ends;
     const out = y * W;
-    for (let x = 0; x < W; x++) {
-      const ec = xs.cell[x];
-      if (ec < 0) continue;
-      const et = xs.thread[x];
-      const ax = xs.cover[x];
-      const up = weftLit[et] !== 1;
+    const kindBase = rowKind[y] * shapes;
+    const lo = weftLayer * spans.count;
+    for (let sp = 0; sp < spans.count; sp++) {
+      const x0 = spans.start[sp];
+      const x1 = x0 + spans.length[sp];
+      const ec = spans.cell[sp];
       const top = upper ? upper[cellRow + ec] : 1;
-      const axTop = endLayer[et] === top ? ax : 0;
-      const ayTop = weftLayer === top ? ay : 0;
-      const warp = warpBase[et] + level(xs.shade[x] * warpAlong[et]);
-      // Most pixels lie wholly inside the end on top: one look-up.
-      if (axTop === 1 && (up || ayTop === 0)) {
-        words[out + x] = table[warp];
-        continue;
-      }
-      const e0 = xs.before[wo + x];
-      const e1 = xs.after[wo + x];
-      const w0 = e0 < 0 ? 1 : weftLit[e0];
-      const along = e1 < 0 ? w0 : e0 < 0 ? weftLit[e1] : w0 + (weftLit[e1] - w0) * xs.between[wo + x];
-      const weft = weftBase[pt] + level(weftShade * along);
-      if (ayTop === 1 && (!up || axTop === 0)) {
-        words[out + x] = table[weft];
-        continue;
-      }
-      // Edges and gaps: the background, then the layer beneath in its shadow, then the layer on
-      // top, each laid over what is there by how much of the pixel it covers (the thread
-      // underneath at a crossing first). Written out with plain numbers: this is the hottest loop.
-      let r = bgR;
-      let g = bgG;
-      let b = bgB;
       const below = lower ? lower[cellRow + ec] : top;
-      const axLow = below !== top && endLayer[et] === below ? ax : 0;
-      const ayLow = below !== top && weftLayer === below ? ay : 0;
-      for (let pass = axLow > 0 || ayLow > 0 ? 0 : 1; pass < 2; pass++) {
-        const w = pass === 0 ? warpBase[et] + level(xs.shade[x] * warpAlong[et] * LOWER_LAYER_SHADE) : warp;
-        const f = pass === 0 ? weftBase[pt] + level(weftShade * along * LOWER_LAYER_SHADE) : weft;
-        const wa = pass === 0 ? axLow : axTop;
-        const fa = pass === 0 ? ayLow : ayTop;
-        const i1 = (up ? f : w) * 4;
-        const a1 = up ? fa : wa;
-        const i2 = (up ? w : f) * 4;
-        const a2 = up ? wa : fa;
-        if (a1 > 0) {
-          r += (bytes[i1] - r) * a1;
-          g += (bytes[i1 + 1] - g) * a1;
-          b += (bytes[i1 + 2] - b) * a1;
+      let slot = -1;
+      if (states > 0) {
+        let s = 0;
+        const from = spans.refFrom[lo + sp];
+        const to = spans.refTo[lo + sp];
+        for (let q = from; q < to; q++) s = (s << spans.refBits[q]) | (state[spans.refs[q]] & spans.refMask[q]);
+        slot = (kindBase + spans.shape[lo + sp]) * states + (s * sides + top) * sides + below;
+        const at = slots ? slots[slot] : (slotMap?.get(slot) ?? 0);
+        if (at > 0) {
+          const n = x1 - x0;
+          if (n <= 16) for (let i = 0; i < n; i++) words[out + x0 + i] = words[at - 1 + i];
+          else words.copyWithin(out + x0, at - 1, at - 1 + n);
+          continue;
         }
-        if (a2 > 0) {
-          r += (bytes[i2] - r) * a2;
-          g += (bytes[i2 + 1] - g) * a2;
-          b += (bytes[i2 + 2] - b) * a2;
-        }
+        for (let q = from; q < to; q++) settle(spans.refs[q]);
       }
-      const i = (out + x) * 4;
-      rgba[i] = r;
-      rgba[i + 1] = g;
-      rgba[i + 2] = b;
+      for (let x = x0; x < x1; x++) {
+        const et = xs.thread[x];
+        const ax = xs.cover[x];
+        const up = weftLit[et] !== 1;
+        const axTop = endLayer[et] === top ? ax : 0;
+        const ayTop = weftLayer === top ? ay : 0;
+        const warp = warpBase[et] + level(xs.shade[x] * warpAlong[et]);
+        // Most pixels lie wholly inside the end on top: one look-up.
+        if (axTop === 1 && (up || ayTop === 0)) {
+          words[out + x] = table[warp];
+          continue;
+        }
+        const e0 = xs.before[wo + x];
+        const e1 = xs.after[wo + x];
+        const w0 = e0 < 0 ? 1 : weftLit[e0];
+        const along = e1 < 0 ? w0 : e0 < 0 ? weftLit[e1] : w0 + (weftLit[e1] - w0) * xs.between[wo + x];
+        const weft = weftBase[pt] + level(weftShade * along);
+        if (ayTop === 1 && (!up || axTop === 0)) {
+          words[out + x] = table[weft];
+          continue;
+        }
+        // Edges and gaps: the background, then the layer beneath in its shadow, then the layer on
+        // top, each laid over what is there by how much of the pixel it covers (the thread
+        // underneath at a crossing first).
+        let r = bgR;
+        let g = bgG;
+        let b = bgB;
+        const axLow = below !== top && endLayer[et] === below ? ax : 0;
+        const ayLow = below !== top && weftLayer === below ? ay : 0;
+        for (let pass = axLow > 0 || ayLow > 0 ? 0 : 1; pass < 2; pass++) {
+          const w = pass === 0 ? warpBase[et] + level(xs.shade[x] * warpAlong[et] * LOWER_LAYER_SHADE) : warp;
+          const f = pass === 0 ? weftBase[pt] + level(weftShade * along * LOWER_LAYER_SHADE) : weft;
+          const wa = pass === 0 ? axLow : axTop;
+          const fa = pass === 0 ? ayLow : ayTop;
+          const i1 = (up ? f : w) * 4;
+          const a1 = up ? fa : wa;
+          const i2 = (up ? w : f) * 4;
+          const a2 = up ? wa : fa;
+          if (a1 > 0) {
+            r += (bytes[i1] - r) * a1;
+            g += (bytes[i1 + 1] - g) * a1;
+            b += (bytes[i1 + 2] - b) * a1;
+          }
+          if (a2 > 0) {
+            r += (bytes[i2] - r) * a2;
+            g += (bytes[i2 + 1] - g) * a2;
+            b += (bytes[i2 + 2] - b) * a2;
+          }
+        }
+        const i = (out + x) * 4;
+        rgba[i] = r;
+        rgba[i + 1] = g;
+        rgba[i + 2] = b;
+      }
+      if (slot < 0) continue;
+      if (slots) slots[slot] = out + x0 + 1;
+      else if (slotMap && slotMap.size < MAX_SLOT_MAP) slotMap.set(slot, out + x0 + 1);
     }
   }
   return { width: W, height: H, rgba };
 }
-
