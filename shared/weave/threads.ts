@@ -184,19 +184,29 @@ function shadedPalette(palette: readonly string[]): Uint32Array {
 
 const level = (shade: number) => (shade * (LEVELS - 1) + 0.5) | 0;
 
-/** A number per item, the same for items whose `values` are the same (a class of equal rows). */
-function classesOf(count: number, values: (i: number) => Uint32Array | Uint8Array): Int32Array {
+/** A number per row of `rows` (`count` rows of `length` values), the same for rows of the same values. */
+function classesOf(rows: Uint32Array | Uint8Array, count: number, length: number): Int32Array {
   // Rows are hashed, and a row whose hash was seen is compared in full with the rows seen under it.
   const byHash = new Map<number, number[]>();
   const out = new Int32Array(count);
   let classes = 0;
   for (let i = 0; i < count; i++) {
-    const row = values(i);
+    const at = i * length;
     let h = 2166136261;
-    for (let k = 0; k < row.length; k++) h = Math.imul(h ^ row[k], 16777619);
+    for (let k = 0; k < length; k++) h = Math.imul(h ^ rows[at + k], 16777619);
     const seen = byHash.get(h);
-    const match = seen?.find((j) => sameValues(values(j), row));
-    if (match !== undefined) {
+    let match = -1;
+    if (seen) {
+      for (const j of seen) {
+        let k = 0;
+        while (k < length && rows[j * length + k] === rows[at + k]) k++;
+        if (k === length) {
+          match = j;
+          break;
+        }
+      }
+    }
+    if (match >= 0) {
       out[i] = out[match];
       continue;
     }
@@ -205,12 +215,6 @@ function classesOf(count: number, values: (i: number) => Uint32Array | Uint8Arra
     else byHash.set(h, [i]);
   }
   return out;
-}
-
-function sameValues(a: ArrayLike<number>, b: ArrayLike<number>): boolean {
-  if (a.length !== b.length) return false;
-  for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return false;
-  return true;
 }
 
 /**
@@ -298,7 +302,11 @@ function spansOf(xs: Axis, width: number, layers: number, endLayer: Uint8Array, 
   const refTo = new Int32Array((layers + 1) * count);
   const refs: number[] = [];
   const wide: number[] = [];
-  const looks: Uint32Array[] = [];
+  let widest = 0;
+  for (let r = 0; r < count; r++) widest = Math.max(widest, ends[r] - starts[r]);
+  // Each span's look: its width, then per pixel 8 numbers, then its refs' widths.
+  const lookLength = 1 + 8 * widest + MAX_REFS;
+  const looks = new Uint32Array((layers + 1) * count * lookLength);
   const cover = bitsOf(xs.cover);
   const shade = bitsOf(xs.shade);
   const between = bitsOf(xs.between);
@@ -319,24 +327,31 @@ function spansOf(xs: Axis, width: number, layers: number, endLayer: Uint8Array, 
       };
       const x0 = starts[r];
       const n = ends[r] - x0;
-      const look = new Uint32Array(1 + 8 * n + 8);
-      look[0] = n;
+      const look = (l * count + r) * lookLength;
+      looks[look] = n;
       for (let i = 0; i < n; i++) {
         const x = x0 + i;
         const et = xs.thread[x];
         const e0 = xs.before[wo + x];
         const e1 = xs.after[wo + x];
-        look.set([cover[x], shade[x], refOf(et, true), endLayer[et], warpBase[et], e0 < 0 ? -1 : refOf(e0, false), e1 < 0 ? -1 : refOf(e1, false), between[wo + x]], 1 + 8 * i);
+        const o = look + 1 + 8 * i;
+        looks[o] = cover[x];
+        looks[o + 1] = shade[x];
+        looks[o + 2] = refOf(et, true);
+        looks[o + 3] = endLayer[et];
+        looks[o + 4] = warpBase[et];
+        looks[o + 5] = e0 < 0 ? -1 : refOf(e0, false);
+        looks[o + 6] = e1 < 0 ? -1 : refOf(e1, false);
+        looks[o + 7] = between[wo + x];
       }
-      // The refs' widths, so spans of one shape number their states alike (no span reads more than 8 ends).
+      // The refs' widths, so spans of one shape number their states alike.
       let bits = 0;
       for (let q = from; q < refs.length; q++) {
-        if (q - from < 8) look[1 + 8 * n + q - from] = 1 + wide[q];
+        if (q - from < MAX_REFS) looks[look + 1 + 8 * widest + q - from] = 1 + wide[q];
         bits += wide[q] === 1 ? 3 : 1;
       }
-      if (refs.length - from > 8) bits = Infinity;
+      if (refs.length - from > MAX_REFS) bits = Infinity;
       most = Math.max(most, bits);
-      looks.push(look);
       refFrom[l * count + r] = from;
       refTo[l * count + r] = refs.length;
     }
@@ -346,7 +361,7 @@ function spansOf(xs: Axis, width: number, layers: number, endLayer: Uint8Array, 
     start: Int32Array.from(starts),
     length: Int32Array.from(ends, (e, r) => e - starts[r]),
     cell: Int32Array.from(cells),
-    shape: classesOf(looks.length, (i) => looks[i]),
+    shape: classesOf(looks, (layers + 1) * count, lookLength),
     refFrom,
     refTo,
     refs: Int32Array.from(refs),
@@ -356,6 +371,8 @@ function spansOf(xs: Axis, width: number, layers: number, endLayer: Uint8Array, 
   };
 }
 
+/** Spans reading more ends than this are drawn pixel by pixel. */
+const MAX_REFS = 8;
 /** Spans whose state takes more bits than this are drawn pixel by pixel. */
 const MAX_STATE_BITS = 20;
 /** Largest table of drawn spans kept as a flat array; a larger one is a map. */
@@ -401,7 +418,6 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
   const warpBase = Int32Array.from({ length: ends }, (_, e) => (draft.warpColors[e] ?? 0) * LEVELS);
   const weftBase = Int32Array.from({ length: picks }, (_, p) => (draft.weftColors[p] ?? 0) * LEVELS);
   const endLayer = wl ?? new Uint8Array(ends).fill(1);
-  const flip = back ? 1 : 0;
   // Per row, each end's state there: bit 0 set where the row's pick passes under it, bits 1 and
   // 2 where it lies over the picks of its own layer before and after the row.
   const state = new Uint8Array(ends);
@@ -431,38 +447,41 @@ function drawThreads(input: ThreadPictureInput, options: ThreadPictureOptions, r
   // the same way between the picks of each layer. Rows of one kind that also cross the same rows
   // of the drawdown (their pick's and, per layer, the picks before and after), with the same layers
   // on top and beneath, are the same pixels: cloth repeats, and such a row is drawn once and copied.
-  const interlacing = classesOf(picks, (p) => bits.subarray(p * stride, (p + 1) * stride));
-  const above = upper ? classesOf(picks, (p) => upper.subarray(p * ends, (p + 1) * ends)) : null;
-  const beneath = lower ? classesOf(picks, (p) => lower.subarray(p * ends, (p + 1) * ends)) : null;
+  const interlacing = classesOf(bits, picks, stride);
+  const above = upper ? classesOf(upper, picks, ends) : null;
+  const beneath = lower ? classesOf(lower, picks, ends) : null;
   const kindLength = 3 + 3 * (layers + 1);
-  const lookLength = kindLength + 3 + 2 * (layers + 1);
-  const rowLooks = new Uint32Array(H * lookLength);
+  const repeatLength = 4 + 2 * (layers + 1);
+  const kindLooks = new Uint32Array(H * kindLength);
+  const repeatLooks = new Uint32Array(H * repeatLength);
   const coverBits = bitsOf(ys.cover);
   const shadeBits = bitsOf(ys.shade);
   const betweenBits = bitsOf(ys.between);
   for (let y = 0; y < H; y++) {
     const pt = ys.thread[y];
     if (pt < 0) continue;
-    const look = y * lookLength;
-    rowLooks[look] = weftBase[pt] * 256 + (pl ? pl[pt] : 1);
-    rowLooks[look + 1] = coverBits[y];
-    rowLooks[look + 2] = shadeBits[y];
+    const kind = y * kindLength;
+    const repeat = y * repeatLength;
+    kindLooks[kind] = weftBase[pt] * 256 + (pl ? pl[pt] : 1);
+    kindLooks[kind + 1] = coverBits[y];
+    kindLooks[kind + 2] = shadeBits[y];
+    repeatLooks[repeat + 1] = interlacing[pt];
+    repeatLooks[repeat + 2] = above ? above[ys.cell[y]] : 0;
+    repeatLooks[repeat + 3] = beneath ? beneath[ys.cell[y]] : 0;
     for (let l = 0; l <= layers; l++) {
       const o = l * H + y;
       const p0 = ys.before[o];
       const p1 = ys.after[o];
-      rowLooks[look + 3 + 3 * l] = p0 < 0 ? 0 : 1;
-      rowLooks[look + 4 + 3 * l] = p1 < 0 ? 0 : 1;
-      rowLooks[look + 5 + 3 * l] = betweenBits[o];
-      rowLooks[look + kindLength + 3 + 2 * l] = p0 < 0 ? -1 : interlacing[p0];
-      rowLooks[look + kindLength + 4 + 2 * l] = p1 < 0 ? -1 : interlacing[p1];
+      kindLooks[kind + 3 + 3 * l] = p0 < 0 ? 0 : 1;
+      kindLooks[kind + 4 + 3 * l] = p1 < 0 ? 0 : 1;
+      kindLooks[kind + 5 + 3 * l] = betweenBits[o];
+      repeatLooks[repeat + 4 + 2 * l] = p0 < 0 ? -1 : interlacing[p0];
+      repeatLooks[repeat + 5 + 2 * l] = p1 < 0 ? -1 : interlacing[p1];
     }
-    rowLooks[look + kindLength] = interlacing[pt];
-    rowLooks[look + kindLength + 1] = above ? above[ys.cell[y]] : 0;
-    rowLooks[look + kindLength + 2] = beneath ? beneath[ys.cell[y]] : 0;
   }
-  const rowKind = classesOf(H, (y) => rowLooks.subarray(y * lookLength, y * lookLength + kindLength));
-  const rowRepeat = classesOf(H, (y) => rowLooks.subarray(y * lookLength, (y + 1) * lookLength));
+  const rowKind = classesOf(kindLooks, H, kindLength);
+  for (let y = 0; y < H; y++) repeatLooks[y * repeatLength] = rowKind[y];
+  const rowRepeat = classesOf(repeatLooks, H, repeatLength);
   const drawnRows = new Int32Array(H).fill(-1);
   // And within rows: a span of a thread space is drawn once per kind of row, shape of span and
   // state of the ends it reads, and copied wherever they come again (see Spans).
