@@ -31,7 +31,7 @@ function toHttpError(err: unknown): HttpError | null {
     return new HttpError(503, 'database_unavailable', 'The database is not reachable right now; try again in a moment.');
   }
   const e = err as { type?: string; code?: string; status?: number };
-  if (e?.code === 'EBADCSRFTOKEN') return new HttpError(403, 'csrf', 'Missing or invalid CSRF token; fetch /api/csrf');
+  if (e?.code === 'EBADCSRFTOKEN') return new HttpError(403, 'csrf', 'This page was open too long to save from. Reload the page and try again; nothing was changed.');
   if (e?.type === 'entity.parse.failed') return new HttpError(400, 'bad_request', 'The body is not valid JSON');
   if (e?.type === 'entity.too.large') return new HttpError(413, 'too_large', 'The body is too large');
   if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) {

@@ -103,6 +103,9 @@ describe('CSRF', () => {
     const none = await client.send('post', '/api/studios', { name: 'No token' }, { csrf: false });
     expect(none.status).toBe(403);
     expect(none.body.error.code).toBe('csrf');
+    // What reaches the screen says what to do, in the weaver's words, with no protocol names.
+    expect(none.body.error.message).toBe('This page was open too long to save from. Reload the page and try again; nothing was changed.');
+    expect(none.body.error.message).not.toMatch(/csrf|token/i);
     const wrong = await client.agent.post('/api/studios').set('x-csrf-token', 'f'.repeat(256)).send({ name: 'Wrong' });
     expect(wrong.status).toBe(403);
     expect(wrong.body.error.code).toBe('csrf');
