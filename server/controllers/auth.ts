@@ -19,9 +19,14 @@ export async function csrfToken({ req, res }: In<unknown>) {
   res.json({ token: req.csrfToken!() });
 }
 
+/**
+ * Who is signed in, and for a signed-in caller the session's CSRF token: the app asks this first on
+ * every page load, so a save sent as the weaver leaves a page never has to ask for a token first (a
+ * request the next page load would cut off). Nobody signed in gets no token, and no session is made.
+ */
 export async function session(ctx: In<unknown>) {
   const user = ctx.req.user ? await loadSessionUser(ctx.app.models, ctx.req.user.id) : null;
-  ctx.res.json({ user });
+  ctx.res.json(user ? { user, csrfToken: ctx.req.csrfToken!() } : { user });
 }
 
 /**

@@ -5,7 +5,7 @@ import { versionDocument } from '../services/draft-documents';
 import { attachmentDisposition } from '../services/draft-files';
 import { parseWifUpload } from '../services/wif-parse';
 import { draftThumbnail } from '../services/draft-thumbnails';
-import { createFromBody, createFromDocument, deleteDraft, forkDraft, lineage, updateDraft } from '../services/draft-lifecycle';
+import { binContents, binDraft, createFromBody, createFromDocument, forkDraft, lineage, restoreDraft, updateDraft } from '../services/draft-lifecycle';
 import { saveDraft, VersionConflict } from '../services/draft-versions';
 import { draftDetail, listDraftsJson } from '../services/drafts';
 
@@ -27,8 +27,17 @@ export async function update({ app, req, res, params, body, role }: Ctx<UpdateDr
 }
 
 export async function remove({ app, res, params }: Ctx<unknown, unknown, { id: number }>) {
-  await deleteDraft(app.models, app.storage, params.id);
+  await binDraft(app.models, params.id);
   res.status(204).end();
+}
+
+export async function restore({ app, res, params, role }: Ctx<unknown, unknown, { id: number }>) {
+  await restoreDraft(app.models, params.id);
+  res.json({ draft: await draftDetail(app.models, params.id, role!) });
+}
+
+export async function bin({ app, req, res }: Ctx<unknown, unknown, unknown>) {
+  res.json(await binContents(app.models, app.storage, req.user!.id));
 }
 
 /** 409 carries the server's version and document beside the error, so the client can offer both. */

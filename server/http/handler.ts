@@ -35,6 +35,8 @@ export interface RouteSpec {
   resource?: 'studio' | 'draft';
   /** A tool for developers: the route exists only in development mode (config.dev). */
   devOnly?: boolean;
+  /** The route acts on a draft in the Bin (restoring it); every other draft route finds no such draft. */
+  inBin?: boolean;
   /** A member acting on their own `:userId` (leaving a studio) needs only 'viewer'. */
   allowSelf?: boolean;
   /** Reads a multipart file (after the access check, before validation); see middleware/upload. */

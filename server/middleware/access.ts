@@ -27,7 +27,7 @@ export async function resourceRole(
   if (minimum === 'public' || minimum === 'user') return null;
   if (params.id === undefined) throw new Error(`${spec.method} ${spec.path}: a studio role needs an :id`);
   const role = spec.resource === 'draft'
-    ? await draftRole(app.models, userId, params.id)
+    ? await draftRole(app.models, userId, params.id, { inBin: spec.inBin === true })
     : await studioRole(app.models, userId, params.id);
   if (!role) throw notFound(spec.resource === 'draft' ? 'No such draft' : 'No such studio');
   const self = spec.allowSelf && params.userId === userId;

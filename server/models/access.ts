@@ -19,6 +19,8 @@ export const accountOf = (row: Pick<AccountFields, 'id' | 'email' | 'name'> & { 
 export interface DraftOwnership {
   ownerId: number;
   studioId: number | null;
+  /** When it was put in the Bin, or null. */
+  binnedAt: Date | null;
 }
 
 /**
@@ -44,8 +46,8 @@ export function accessReads(models: { User: UserModel; Membership: MembershipMod
       return new Map(rows.map((r) => [r.studioId, r.role]));
     },
     async draftOwnership(draftId) {
-      const row = await models.Draft.findByPk(draftId, { attributes: ['ownerId', 'studioId'], raw: true });
-      return row ? { ownerId: row.ownerId, studioId: row.studioId } : null;
+      const row = await models.Draft.findByPk(draftId, { attributes: ['ownerId', 'studioId', 'binnedAt'], raw: true });
+      return row ? { ownerId: row.ownerId, studioId: row.studioId, binnedAt: row.binnedAt ? new Date(row.binnedAt) : null } : null;
     },
   };
 }

@@ -29,12 +29,14 @@ export interface DraftAttributes {
   thumbnail: Buffer | null;
   /** Number of the newest DraftVersion. */
   version: number;
+  /** When the draft was put in the Bin; null while it is in use. */
+  binnedAt: Date | null;
   createdAt: Date;
   updatedAt: Date;
 }
 export type DraftCreation = Optional<
   DraftAttributes,
-  'id' | 'studioId' | 'tags' | 'structure' | 'parentDraftId' | 'parentVersion' | 'thumbnail' | 'version' | 'createdAt' | 'updatedAt'
+  'id' | 'studioId' | 'tags' | 'structure' | 'parentDraftId' | 'parentVersion' | 'thumbnail' | 'version' | 'binnedAt' | 'createdAt' | 'updatedAt'
 >;
 export interface DraftRow extends Model<DraftAttributes, DraftCreation>, DraftAttributes {
   /** Present when included in the query. */
@@ -61,6 +63,7 @@ export function defineDraft(sequelize: Sequelize): DraftModel {
     parentVersion: { type: DataTypes.INTEGER, allowNull: true },
     thumbnail: { type: DataTypes.BLOB('medium'), allowNull: true },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+    binnedAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   }, { tableName: 'drafts' });

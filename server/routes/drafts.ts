@@ -22,7 +22,10 @@ export const draftRoutes = [
   defineRoute({ method: 'get', path: '/api/drafts/:id', minimumRole: 'viewer', ...draft, handle: drafts.detail }),
   defineRoute({ method: 'put', path: '/api/drafts/:id', minimumRole: 'editor', ...draft, body: saveDraftBodySchema, handle: drafts.save }),
   defineRoute({ method: 'patch', path: '/api/drafts/:id', minimumRole: 'editor', ...draft, body: updateDraftBodySchema, handle: drafts.update }),
+  // Delete puts the draft in the Bin; its owner restores it from there within BIN_DAYS.
   defineRoute({ method: 'delete', path: '/api/drafts/:id', minimumRole: 'owner', ...draft, handle: drafts.remove }),
+  defineRoute({ method: 'get', path: '/api/bin', minimumRole: 'user', handle: drafts.bin }),
+  defineRoute({ method: 'post', path: '/api/drafts/:id/restore', minimumRole: 'owner', ...draft, inBin: true, handle: drafts.restore }),
   defineRoute({
     method: 'get', path: '/api/drafts/:id/thumbnail.png', minimumRole: 'viewer', ...draft, query: thumbnailQuery, handle: drafts.thumbnail,
   }),

@@ -1,12 +1,12 @@
 import { Op, type WhereOptions } from 'sequelize';
 import { roleRank } from '../../shared/api/auth';
-import type { CreateDraftBody, DraftSummary, ForkBody, LineageDraft, LineageResponse, UpdateDraftBody } from '../../shared/api';
+import type { BinResponse, CreateDraftBody, DraftSummary, ForkBody, LineageDraft, LineageResponse, UpdateDraftBody } from '../../shared/api';
 import { startingDraft, StartingDraftError, type Draft } from '../../shared/weave';
 import { forbidden, HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { DraftRow } from '../models/draft';
 import { parseDocument, versionDocument } from './draft-documents';
-import { createDraft, draftDetail, LARGE_COLUMNS, visibleDraftsWhere } from './drafts';
+import { BIN_DAYS, binCutoff, createDraft, draftDetail, LARGE_COLUMNS, visibleDraftsWhere } from './drafts';
 import { studioRole } from './studios';
 
 /** Adding a draft to a studio takes the editor role there; a studio the user is not in does not exist for them. */
@@ -89,6 +89,45 @@ export async function updateDraft(models: Models, userId: number, draftId: numbe
     const doc = typeof latest.document === 'string' ? JSON.parse(latest.document) as Draft : latest.document as Draft;
     await models.DraftVersion.update({ document: { ...doc, name: body.name } }, { where: { id: latest.id }, transaction });
   });
+}
+
+/** DELETE /api/drafts/:id: into the Bin, from which its owner can restore it for BIN_DAYS. */
+export async function binDraft(models: Models, draftId: number): Promise<void> {
+  await models.Draft.update({ binnedAt: new Date() }, { where: { id: draftId } });
+}
+
+/** POST /api/drafts/:id/restore: out of the Bin, just as it was. */
+export async function restoreDraft(models: Models, draftId: number): Promise<void> {
+  await models.Draft.update({ binnedAt: null }, { where: { id: draftId } });
+}
+
+/**
+ * The Bin of one weaver: her own drafts and those of studios she owns (who may delete them), put
+ * there within BIN_DAYS. Drafts past that are deleted for good first, whoever's they are.
+ */
+export async function binContents(models: Models, storage: { delete(key: string): Promise<void> }, userId: number): Promise<BinResponse> {
+  const cutoff = binCutoff();
+  const expired = await models.Draft.findAll({ where: { binnedAt: { [Op.lt]: cutoff } }, attributes: ['id'] });
+  for (const row of expired) await deleteDraft(models, storage, row.id);
+  const owned = [...(await models.access.studioRoles(userId))].filter(([, role]) => role === 'owner').map(([id]) => id);
+  const rows = await models.Draft.findAll({
+    where: {
+      binnedAt: { [Op.gte]: cutoff },
+      [Op.or]: [{ ownerId: userId, studioId: null }, ...(owned.length > 0 ? [{ studioId: { [Op.in]: owned } }] : [])],
+    },
+    attributes: ['id', 'name', 'binnedAt'],
+    include: [{ model: models.Studio, as: 'studio', attributes: ['name'] }],
+    order: [['binnedAt', 'DESC'], ['id', 'DESC']],
+  });
+  return {
+    drafts: rows.map((r) => ({
+      id: r.id,
+      name: r.name,
+      studioName: r.studio?.name ?? null,
+      binnedAt: r.binnedAt!.toISOString(),
+      purgeAt: new Date(r.binnedAt!.getTime() + BIN_DAYS * 86_400_000).toISOString(),
+    })),
+  };
 }
 
 /** Deletes a draft with its history, comments and links; its photos are removed from storage afterwards. */

@@ -1,6 +1,6 @@
 import { literal, Op } from 'sequelize';
 import { SITTING_MINUTES, type CompareResponse, type SaveDraftBody, type VersionDetailResponse, type VersionSummary } from '../../shared/api';
-import { compareDrafts, comparisonImage, pickCount, type Draft } from '../../shared/weave';
+import { alignDrafts, compareDrafts, comparisonImage, pickCount, type Draft, type ThreadAlignment } from '../../shared/weave';
 import { encodePngRgb } from '../print/png';
 import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
@@ -151,11 +151,16 @@ export async function versionThumbnail(models: Models, draftId: number, n: numbe
 export async function compareVersions(models: Models, draftId: number, a: number, b: number): Promise<CompareResponse> {
   const [va, vb] = await Promise.all([versionDocument(models, draftId, a), versionDocument(models, draftId, b)]);
   const result = compareDrafts(va.document, vb.document);
+  const aligned = alignDrafts(va.document, vb.document);
+  const counted = (t: ThreadAlignment): ThreadAlignment => ({
+    inserted: t.inserted.map((i) => i + 1), removed: t.removed.map((i) => i + 1), changed: t.changed.map((i) => i + 1),
+  });
   return {
     a,
     b,
     ends: result.ends.map((e) => e + 1),
     picks: result.picks.map((p) => p + 1),
+    aligned: { ends: counted(aligned.ends), picks: counted(aligned.picks) },
     tieup: result.tieup,
     cells: result.cells,
     imageUrl: `/api/drafts/${draftId}/compare.png?a=${a}&b=${b}`,

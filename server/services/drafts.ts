@@ -11,6 +11,11 @@ import { studioRole } from './studios';
 
 export { draftStats } from './draft-derived';
 
+/** Days a deleted draft stays in the Bin before it is gone for good. */
+export const BIN_DAYS = 30;
+/** Drafts put in the Bin before this moment are past restoring. */
+export const binCutoff = (now = new Date()) => new Date(now.getTime() - BIN_DAYS * 86_400_000);
+
 /** Saves a new draft with its first version, both in one transaction. */
 export async function createDraft(
   models: Models,
@@ -54,7 +59,8 @@ const memberStudioIds = async (models: Models, userId: number) => [...(await mod
 export async function visibleDraftsWhere(models: Models, userId: number): Promise<WhereOptions> {
   const studioIds = await memberStudioIds(models, userId);
   const personal = { ownerId: userId, studioId: null };
-  return studioIds.length > 0 ? { [Op.or]: [personal, { studioId: { [Op.in]: studioIds } }] } : personal;
+  const mine = studioIds.length > 0 ? { [Op.or]: [personal, { studioId: { [Op.in]: studioIds } }] } : personal;
+  return { [Op.and]: [mine, { binnedAt: null }] };
 }
 
 /** The columns a library entry shows, with the names of the draft's owner and studio. */
@@ -105,7 +111,7 @@ async function readLibraryPage(models: Models, userId: number, query: DraftListQ
   // What visibleDraftsWhere says, in SQL.
   const studioIds = await memberStudioIds(models, userId);
   const personal = '(`ownerId` = ? AND `studioId` IS NULL)';
-  const filters = [studioIds.length > 0 ? `(${personal} OR \`studioId\` IN (${studioIds.map(() => '?').join(', ')}))` : personal];
+  const filters = [studioIds.length > 0 ? `(${personal} OR \`studioId\` IN (${studioIds.map(() => '?').join(', ')}))` : personal, '`binnedAt` IS NULL'];
   const values: unknown[] = [userId, ...studioIds];
   const filter = (sql: string, value: unknown) => {
     filters.push(sql);
@@ -145,9 +151,12 @@ async function readLibraryPage(models: Models, userId: number, query: DraftListQ
  * author keeps no rights of their own once removed or demoted); a personal draft is its owner's
  * alone. null when they cannot see it (which the routes answer with 404).
  */
-export async function draftRole(models: Models, userId: number, draftId: number): Promise<StudioRole | null> {
+export async function draftRole(models: Models, userId: number, draftId: number, { inBin = false } = {}): Promise<StudioRole | null> {
   const row = await models.access.draftOwnership(draftId);
   if (!row) return null;
+  // A draft in the Bin exists only for the routes that act on the Bin, and only for BIN_DAYS.
+  if ((row.binnedAt !== null) !== inBin) return null;
+  if (row.binnedAt !== null && row.binnedAt.getTime() < binCutoff().getTime()) return null;
   if (row.studioId !== null) return studioRole(models, userId, row.studioId);
   return row.ownerId === userId ? 'owner' : null;
 }

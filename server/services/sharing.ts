@@ -30,10 +30,10 @@ export async function revokeShareLinks(models: Models, draftId: number): Promise
 export async function sharedDraft(models: Models, token: string): Promise<SharedDraftResponse> {
   const link = await models.ShareLink.findOne({ where: { tokenHash: tokenHash(token), revokedAt: { [Op.is]: null } } });
   const draft = link && await models.Draft.findByPk(link.draftId, {
-    attributes: ['name', 'version', 'updatedAt', 'document'],
+    attributes: ['name', 'version', 'updatedAt', 'document', 'binnedAt'],
     include: [{ model: models.User, as: 'owner', attributes: ['name'] }],
   });
-  if (!draft) throw notFound('This link does not exist or has been withdrawn');
+  if (!draft || draft.binnedAt) throw notFound('This link does not exist or has been withdrawn');
   return {
     draft: { name: draft.name, ownerName: draft.owner?.name ?? '', version: draft.version, updatedAt: draft.updatedAt.toISOString(), document: draft.document },
   };

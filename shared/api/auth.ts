@@ -80,7 +80,8 @@ export const sessionUserSchema = z.object({
 });
 export type SessionUser = z.infer<typeof sessionUserSchema>;
 
-export const sessionResponseSchema = z.object({ user: sessionUserSchema.nullable() });
+/** `csrfToken` comes with a signed-in user, so the client's first write needs no token request. */
+export const sessionResponseSchema = z.object({ user: sessionUserSchema.nullable(), csrfToken: z.string().optional() });
 export type SessionResponse = z.infer<typeof sessionResponseSchema>;
 
 /** Sign-up, sign-in and reset: the session was regenerated, so a fresh CSRF token comes along. */

@@ -97,6 +97,19 @@ export const updateDraftBodySchema = z.object({ name: draftName.optional(), tags
   .refine((b) => b.name !== undefined || b.tags !== undefined || b.studioId !== undefined, { error: 'Give a name, tags or a studio' });
 export type UpdateDraftBody = z.infer<typeof updateDraftBodySchema>;
 
+/** GET /api/bin: drafts the caller deleted (or could have: her own, and those of studios she owns), newest first. */
+export const binItemSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  studioName: z.string().nullable(),
+  binnedAt: z.string(),
+  /** When it goes for good. */
+  purgeAt: z.string(),
+});
+export type BinItem = z.infer<typeof binItemSchema>;
+export const binResponseSchema = z.object({ drafts: z.array(binItemSchema) });
+export type BinResponse = z.infer<typeof binResponseSchema>;
+
 /**
  * PUT /api/drafts/:id: save the document on top of `baseVersion`, the version the client last had.
  * Without `named` it is an autosave: it carries the sitting's working version forward (the same

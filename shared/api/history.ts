@@ -35,11 +35,21 @@ export const compareQuerySchema = z.object({ a: versionNumber, b: versionNumber 
 export type CompareQuery = z.infer<typeof compareQuerySchema>;
 
 /** What changed from version a to version b; ends and picks are 1-based here, as a weaver counts them. */
+/** Threads lined up by content (1-based): inserted and changed numbered in version b, removed in version a. */
+const alignmentSchema = z.object({
+  inserted: z.array(z.number().int()),
+  removed: z.array(z.number().int()),
+  changed: z.array(z.number().int()),
+});
+
 export const compareResponseSchema = z.object({
   a: z.number().int(),
   b: z.number().int(),
+  /** Ends and picks that differ place by place (1-based). */
   ends: z.array(z.number().int()),
   picks: z.array(z.number().int()),
+  /** The same, lined up by content: an insertion reads as an insertion. */
+  aligned: z.object({ ends: alignmentSchema, picks: alignmentSchema }),
   tieup: z.array(z.object({ treadle: z.number().int(), shaft: z.number().int() })),
   cells: z.number().int(),
   imageUrl: z.string(),

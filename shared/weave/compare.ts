@@ -157,3 +157,91 @@ export function comparisonImage(a: Draft, b: Draft, maxEnds = 2000, maxPicks = 2
   }
   return { width, height, rgb };
 }
+
+/** How the threads of one draft line up with another's: numbers are 0-based, inserted and changed counted in the newer draft, removed in the older. */
+export interface ThreadAlignment {
+  inserted: number[];
+  removed: number[];
+  /** Threads that stand where a different thread stood (as many as both sides of a gap have). */
+  changed: number[];
+}
+
+/** Above this many cells (ends of one × ends of the other, after the common start and end) the middle is compared place by place. */
+const MAX_ALIGNMENT_CELLS = 4_000_000;
+
+/**
+ * Lines two sequences of thread keys up by a longest common subsequence, so an insertion reads as
+ * an insertion: threads in neither the common start, the common end nor the subsequence are paired
+ * off gap by gap as changed, and what is left over is inserted or removed.
+ *
+ * @example alignThreads(['a', 'b'], ['a', 'x', 'b']) // { inserted: [1], removed: [], changed: [] }
+ */
+export function alignThreads(a: readonly string[], b: readonly string[]): ThreadAlignment {
+  let start = 0;
+  while (start < a.length && start < b.length && a[start] === b[start]) start++;
+  let endA = a.length;
+  let endB = b.length;
+  while (endA > start && endB > start && a[endA - 1] === b[endB - 1]) {
+    endA--;
+    endB--;
+  }
+  const n = endA - start;
+  const m = endB - start;
+  const matches: [number, number][] = [];
+  if (n > 0 && m > 0 && n * m <= MAX_ALIGNMENT_CELLS) {
+    // lcs[i * (m + 1) + j]: the longest common subsequence of a[start + i ..] and b[start + j ..].
+    const w = m + 1;
+    const lcs = new Uint32Array((n + 1) * w);
+    for (let i = n - 1; i >= 0; i--) {
+      for (let j = m - 1; j >= 0; j--) {
+        lcs[i * w + j] = a[start + i] === b[start + j] ? lcs[(i + 1) * w + j + 1] + 1 : Math.max(lcs[(i + 1) * w + j], lcs[i * w + j + 1]);
+      }
+    }
+    let i = 0;
+    let j = 0;
+    while (i < n && j < m) {
+      if (a[start + i] === b[start + j]) {
+        matches.push([start + i, start + j]);
+        i++;
+        j++;
+      } else if (lcs[(i + 1) * w + j] >= lcs[i * w + j + 1]) i++;
+      else j++;
+    }
+  }
+  const out: ThreadAlignment = { inserted: [], removed: [], changed: [] };
+  let i = start;
+  let j = start;
+  const gap = (toA: number, toB: number) => {
+    const paired = Math.min(toA - i, toB - j);
+    for (let t = 0; t < toB - j; t++) (t < paired ? out.changed : out.inserted).push(j + t);
+    for (let t = paired; t < toA - i; t++) out.removed.push(i + t);
+  };
+  for (const [x, y] of matches) {
+    gap(x, y);
+    i = x + 1;
+    j = y + 1;
+  }
+  gap(endA, endB);
+  return out;
+}
+
+/** An end as the comparison sees it: its shafts, its colour as seen, its layer. */
+const endKeys = (d: Draft): string[] =>
+  d.threading.map((shafts, e) => `${[...shafts].sort((x, y) => x - y).join(',')}|${d.palette[d.warpColors[e]]}|${layerAt(d.warpLayers, e)}`);
+
+/** A pick as the comparison sees it: the shed and the shafts it lifts, its treadles when both drafts are treadled, its colour and layer. */
+function pickKeys(d: Draft, bothTreadled: boolean): string[] {
+  return Array.from(liftMasks(d), (mask, p) => {
+    const treadles = bothTreadled ? [...(d.treadling[p] ?? [])].sort((x, y) => x - y).join(',') : '';
+    return `${d.shed}|${mask}|${treadles}|${d.palette[d.weftColors[p]]}|${layerAt(d.weftLayers, p)}`;
+  });
+}
+
+/**
+ * The ends and picks of draft `b` (newer) lined up with those of `a` (older) by content (see
+ * {@link alignThreads}): 48 ends put in the middle are 48 inserted, not every end after them changed.
+ */
+export function alignDrafts(a: Draft, b: Draft): { ends: ThreadAlignment; picks: ThreadAlignment } {
+  const bothTreadled = a.control === 'treadling' && b.control === 'treadling';
+  return { ends: alignThreads(endKeys(a), endKeys(b)), picks: alignThreads(pickKeys(a, bothTreadled), pickKeys(b, bothTreadled)) };
+}

@@ -217,3 +217,27 @@ describe('never lose work', () => {
     await expect.poll(async () => (await serverDraft(page, id)).document.threading[0], { timeout: 20_000 }).toEqual([1]);
   });
 });
+
+describe('Compare', () => {
+  it('reports 48 ends put into the middle as 48 ends inserted, not every end after them changed', async () => {
+    const { page } = app.browser;
+    const id = await openNewDraft(page, 'Widened twill');
+    const before = (await serverDraft(page, id)).document;
+    const widened = structuredClone(before);
+    // 48 ends in the weft colour after end 80, threaded on as a straight draw.
+    widened.threading.splice(80, 0, ...Array.from({ length: 48 }, (_, i) => [(i % 8) + 1]));
+    widened.warpColors.splice(80, 0, ...Array.from({ length: 48 }, () => 1));
+    const saved = await callApi<{ version: number }>(page, 'PUT', `/api/drafts/${id}`, { document: widened, baseVersion: 1, named: true, message: 'Wider' });
+    expect(saved.status).toBe(200);
+
+    await page.goto(`${app.server.url}/drafts/${id}/history`);
+    await page.getByRole('checkbox', { name: 'Compare version 1' }).check();
+    await page.getByRole('checkbox', { name: `Compare version ${saved.body.version}` }).check();
+    await page.getByRole('button', { name: 'Compare' }).click();
+    const result = page.getByRole('region', { name: `Version 1 compared with version ${saved.body.version}` });
+    await result.waitFor();
+    expect(await result.getByTestId('aligned-ends').textContent()).toBe(`48 inserted (81–128 in version ${saved.body.version}); none removed; none changed`);
+    expect(await result.getByTestId('aligned-picks').textContent()).toBe('none inserted; none removed; none changed');
+  });
+});
+

@@ -165,6 +165,15 @@ const draftsServiceCases: Record<string, Case> = {
   },
   'PATCH /api/drafts/:id': { path: (f) => `/api/drafts/${f.draftId}`, body: () => ({ tags: ['matrix'] }), success: 200 },
   'DELETE /api/drafts/:id': { path: (f) => `/api/drafts/${f.draftId}`, success: 204, changes: 'studio' },
+  'GET /api/bin': { path: () => '/api/bin', success: 200 },
+  // Restoring acts on a draft in the Bin: the fixture's draft is put there first.
+  'POST /api/drafts/:id/restore': {
+    path: async (f) => {
+      await server.ctx.models.Draft.update({ binnedAt: new Date() }, { where: { id: f.draftId } });
+      return `/api/drafts/${f.draftId}/restore`;
+    },
+    success: 200, changes: 'studio',
+  },
   'GET /api/drafts/:id/thumbnail.png': { path: (f) => `/api/drafts/${f.draftId}/thumbnail.png?v=1`, success: 200 },
   'GET /api/drafts/:id/versions': { path: (f) => `/api/drafts/${f.draftId}/versions`, success: 200 },
   'GET /api/drafts/:id/versions/:n': { path: (f) => `/api/drafts/${f.draftId}/versions/1`, success: 200 },

@@ -131,3 +131,59 @@ describe('a draft\'s details', () => {
     expect((await owner.client.patch(`/api/drafts/${id}`, { studioId: other.studioId })).status).toBe(403);
   });
 });
+
+describe('a save as the weaver leaves', () => {
+  it('needs no token request of its own: the session answer carries the CSRF token, and only for someone signed in', async () => {
+    const { client } = await server.signInWithRole('owner');
+    const id = ((await client.post('/api/drafts', { name: 'Leaving', start })).body as { draft: { id: number; } }).draft.id;
+    const document = ((await client.get(`/api/drafts/${id}`)).body as { draft: { document: object } }).draft.document;
+    const session = await client.agent.get('/api/session');
+    const token = (session.body as { csrfToken?: string }).csrfToken;
+    expect(token).toBeTypeOf('string');
+    const saved = await client.agent.put(`/api/drafts/${id}`).set('x-csrf-token', token!).send({ document, baseVersion: 1 });
+    expect(saved.status).toBe(200);
+    expect((await server.client().agent.get('/api/session')).body).toEqual({ user: null });
+  });
+});
+
+describe('the Bin', () => {
+  it('keeps a deleted draft out of sight for 30 days, restorable by its owner, then deletes it for good', async () => {
+    const owner = await server.signInWithRole('owner');
+    const editorUser = await server.createUser({ name: 'Bin editor' });
+    await server.ctx.models.Membership.create({ studioId: owner.studioId, userId: editorUser.id, role: 'editor' });
+    const editor = server.client();
+    await editor.signIn(editorUser.email);
+    const id = ((await owner.client.post('/api/drafts', { name: 'Binned mat', start, studioId: owner.studioId })).body as { draft: { id: number } }).draft.id;
+    const token = ((await owner.client.post(`/api/drafts/${id}/share`)).body as { token: string }).token;
+
+    expect((await editor.delete(`/api/drafts/${id}`)).status).toBe(403);
+    expect((await owner.client.delete(`/api/drafts/${id}`)).status).toBe(204);
+    // Gone from everywhere it showed: the draft, the library, a share link.
+    expect((await owner.client.get(`/api/drafts/${id}`)).status).toBe(404);
+    expect((await editor.get(`/api/drafts/${id}`)).status).toBe(404);
+    expect(((await owner.client.get('/api/drafts?q=Binned')).body as { total: number }).total).toBe(0);
+    expect((await server.client().get(`/api/shared/${token}`)).status).toBe(404);
+    // In the owner's Bin, not the editor's.
+    const bin = (await owner.client.get('/api/bin')).body as { drafts: { id: number; name: string; purgeAt: string; binnedAt: string }[] };
+    expect(bin.drafts.map((d) => [d.id, d.name])).toEqual([[id, 'Binned mat']]);
+    expect(Date.parse(bin.drafts[0].purgeAt) - Date.parse(bin.drafts[0].binnedAt)).toBe(30 * 86_400_000);
+    expect(((await editor.get('/api/bin')).body as { drafts: unknown[] }).drafts).toEqual([]);
+    expect((await editor.post(`/api/drafts/${id}/restore`)).status).toBe(403);
+
+    const restored = await owner.client.post(`/api/drafts/${id}/restore`);
+    expect(restored.status).toBe(200);
+    expect((restored.body as { draft: { name: string; version: number } }).draft).toMatchObject({ name: 'Binned mat', version: 1 });
+    expect((await editor.get(`/api/drafts/${id}`)).status).toBe(200);
+    expect((await server.client().get(`/api/shared/${token}`)).status).toBe(200);
+    // Restoring a draft not in the Bin: there is no such draft in the Bin.
+    expect((await owner.client.post(`/api/drafts/${id}/restore`)).status).toBe(404);
+
+    // After 30 days it cannot be restored, and the next look at any Bin deletes it with its history.
+    expect((await owner.client.delete(`/api/drafts/${id}`)).status).toBe(204);
+    await server.ctx.models.Draft.update({ binnedAt: new Date(Date.now() - 30 * 86_400_000 - 60_000) }, { where: { id } });
+    expect((await owner.client.post(`/api/drafts/${id}/restore`)).status).toBe(404);
+    await editor.get('/api/bin');
+    expect(await server.ctx.models.Draft.count({ where: { id } })).toBe(0);
+    expect(await server.ctx.models.DraftVersion.count({ where: { draftId: id } })).toBe(0);
+  });
+});

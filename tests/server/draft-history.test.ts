@@ -339,6 +339,9 @@ describe('create, rename, tags, delete', () => {
     await s.viewer.client.post(`/api/drafts/${s.draftId}/comments`, { text: 'Pretty' });
     expect((await s.owner.delete(`/api/drafts/${s.draftId}`)).status).toBe(204);
     expect((await s.owner.get(`/api/drafts/${s.draftId}`)).status).toBe(404);
+    // In the Bin for 30 days; past that, the next look at a Bin deletes it for good.
+    await server.ctx.models.Draft.update({ binnedAt: new Date(Date.now() - 31 * 86_400_000) }, { where: { id: s.draftId } });
+    expect((await s.owner.get('/api/bin')).status).toBe(200);
     expect(await server.ctx.models.DraftVersion.count({ where: { draftId: s.draftId } })).toBe(0);
     expect(await server.ctx.models.Comment.count({ where: { draftId: s.draftId } })).toBe(0);
   });

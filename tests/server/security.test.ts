@@ -194,6 +194,18 @@ describe("another studio's things", () => {
       expect([404, 422], JSON.stringify(res.body)).toContain(res.status);
       if (res.status === 422) throw new Error('the WIF file was refused before the studio was checked; make it valid');
     },
+    'GET /api/bin': async (role) => {
+      // The target's draft in its studio's Bin for the moment of the call.
+      const { Draft } = server.ctx.models;
+      await Draft.update({ binnedAt: new Date() }, { where: { id: target.draftId } });
+      try {
+        const res = await callers.get(role)!.client.get('/api/bin');
+        expect(res.status).toBe(200);
+        expect((res.body.drafts as { id: number }[]).map((d) => d.id)).not.toContain(target.draftId);
+      } finally {
+        await Draft.update({ binnedAt: null }, { where: { id: target.draftId } });
+      }
+    },
     'GET /api/yarns': async (role) => {
       const res = await callers.get(role)!.client.get('/api/yarns');
       expect(res.status).toBe(200);

@@ -9,6 +9,7 @@ import * as saveProcedure from './0006-save-procedure';
 import * as workingVersions from './0007-working-versions';
 import * as pendingSignUps from './0008-pending-sign-ups';
 import * as rateLimits from './0009-rate-limits';
+import * as draftBin from './0010-draft-bin';
 
 /**
  * Every migration, oldest first. Listed by hand rather than globbed so the list is type-checked and
@@ -24,4 +25,5 @@ export const migrations: RunnableMigration<QueryInterface>[] = [
   { name: '0007-working-versions', ...workingVersions },
   { name: '0008-pending-sign-ups', ...pendingSignUps },
   { name: '0009-rate-limits', ...rateLimits },
+  { name: '0010-draft-bin', ...draftBin },
 ];

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { compareDrafts, comparisonImage, COMPARE_COLOURS, computeDrawdown, DRAFT_SCHEMA_VERSION, type Draft } from '../../../shared/weave';
+import { alignDrafts, alignThreads, compareDrafts, comparisonImage, COMPARE_COLOURS, computeDrawdown, DRAFT_SCHEMA_VERSION, type Draft } from '../../../shared/weave';
 import { contrastRatio } from '../../helpers/contrast';
 import { draftArb } from './arbitraries';
 
@@ -117,3 +117,64 @@ describe('the difference image reads without colour vision', () => {
     expect(contrastRatio(c['now-down'], c['same-up'])).toBeCloseTo(3.21, 2);
   });
 });
+
+describe('alignDrafts', () => {
+  /** A longest common subsequence's length by the textbook table (the oracle for the alignment's matches). */
+  function lcsLength(a: readonly string[], b: readonly string[]): number {
+    const t = Array.from({ length: a.length + 1 }, () => new Array<number>(b.length + 1).fill(0));
+    for (let i = 1; i <= a.length; i++) {
+      for (let j = 1; j <= b.length; j++) t[i][j] = a[i - 1] === b[j - 1] ? t[i - 1][j - 1] + 1 : Math.max(t[i - 1][j], t[i][j - 1]);
+    }
+    return t[a.length][b.length];
+  }
+
+  it('accounts for every thread once, and keeps exactly a longest common subsequence unchanged', () => {
+    const keys = fc.array(fc.constantFrom('a', 'b', 'c'), { maxLength: 30 });
+    fc.assert(fc.property(keys, keys, (a, b) => {
+      const r = alignThreads(a, b);
+      const keptInB = b.length - r.inserted.length - r.changed.length;
+      const keptInA = a.length - r.removed.length - r.changed.length;
+      expect(keptInB).toBe(keptInA);
+      expect(keptInB).toBe(lcsLength(a, b));
+      expect(new Set([...r.inserted, ...r.changed]).size).toBe(r.inserted.length + r.changed.length);
+      expect(r.inserted.every((j) => j >= 0 && j < b.length) && r.removed.every((i) => i >= 0 && i < a.length)).toBe(true);
+    }), { seed: 16, numRuns: 300 });
+  });
+
+  it('reads 48 ends put into the middle of a draft as 48 inserted ends, and nothing else changed', () => {
+    const d = straightTwillOf(377);
+    const grown = structuredClone(d);
+    const block = Array.from({ length: 48 }, (_, i) => [((i * 3) % 4) + 1]);
+    grown.threading.splice(200, 0, ...block);
+    grown.warpColors.splice(200, 0, ...block.map(() => 1));
+    const aligned = alignDrafts(d, grown);
+    expect(aligned.ends).toEqual({ inserted: Array.from({ length: 48 }, (_, i) => 200 + i), removed: [], changed: [] });
+    expect(aligned.picks).toEqual({ inserted: [], removed: [], changed: [] });
+    // Place by place, the inserted ends and the 48 pushed past the old last end all differ.
+    expect(compareDrafts(d, grown).ends.length).toBe(96);
+    // The other way round the same ends are removed.
+    expect(alignDrafts(grown, d).ends).toEqual({ inserted: [], removed: Array.from({ length: 48 }, (_, i) => 200 + i), changed: [] });
+  });
+
+  it('pairs a changed end with the end it replaced, and lines picks up the same way', () => {
+    const d = straightTwillOf(24);
+    const edited = structuredClone(d);
+    edited.threading[5] = [edited.threading[5][0] === 1 ? 2 : 1];
+    edited.treadling.splice(3, 2);
+    const aligned = alignDrafts(d, edited);
+    expect(aligned.ends).toEqual({ inserted: [], removed: [], changed: [5] });
+    expect(aligned.picks.inserted).toEqual([]);
+    expect(aligned.picks.removed).toHaveLength(2);
+  });
+});
+
+/** A 4-shaft straight twill, `ends` wide and 16 picks long, in two colours. */
+function straightTwillOf(ends: number): Draft {
+  return {
+    schemaVersion: DRAFT_SCHEMA_VERSION, name: 'twill', shafts: 4, treadles: 4, shed: 'rising', control: 'treadling',
+    threading: Array.from({ length: ends }, (_, e) => [(e % 4) + 1]), tieup: [[1, 2], [2, 3], [3, 4], [4, 1]],
+    treadling: Array.from({ length: 16 }, (_, p) => [(p % 4) + 1]), liftplan: [],
+    palette: ['#000000', '#ffffff'], warpColors: Array.from({ length: ends }, () => 0), weftColors: Array.from({ length: 16 }, () => 1),
+    warpLayers: [], weftLayers: [], sett: { warp: 10, weft: 10, unit: 'inch' }, yarns: [], notes: '',
+  };
+}

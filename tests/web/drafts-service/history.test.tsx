@@ -96,6 +96,10 @@ describe('draft history', () => {
           ends: [3, 4, 5],
           picks: Array.from({ length: 45 }, (_, i) => i + 1),
           tieup: [{ treadle: 2, shaft: 3 }],
+          aligned: {
+            ends: { inserted: [3, 4, 5], removed: [], changed: [] },
+            picks: { inserted: [], removed: [40, 41], changed: [1, 7, 8, 9] },
+          },
           cells: 128,
           imageUrl: '/api/drafts/7/compare.png?a=2&b=4',
         },
@@ -115,6 +119,8 @@ describe('draft history', () => {
     const [request] = server.to('GET /api/drafts/7/compare');
     expect(request.query.get('a')).toBe('2');
     expect(request.query.get('b')).toBe('4');
+    expect(within(result).getByTestId('aligned-ends').textContent).toBe('3 inserted (3–5 in version 4); none removed; none changed');
+    expect(within(result).getByTestId('aligned-picks').textContent).toBe('none inserted; 2 removed (40–41 in version 2); 4 changed (1, 7–9 in version 4)');
     expect(within(result).getByTestId('changed-ends').textContent).toBe('3: 3, 4, 5');
     expect(within(result).getByTestId('changed-picks').textContent).toMatch(/^45: 1, 2, .*, 40 and 5 more$/);
     expect(within(result).getByTestId('changed-tieup').textContent).toBe('1: treadle 2 shaft 3');

@@ -10,6 +10,25 @@ function numbers(list: number[]): string {
   return list.length > MAX_LISTED ? `${shown} and ${list.length - MAX_LISTED} more` : shown;
 }
 
+/** Numbers as runs: 3, 7–12, 40. */
+function runs(list: number[]): string {
+  const parts: string[] = [];
+  for (let i = 0; i < list.length; ) {
+    let j = i;
+    while (j + 1 < list.length && list[j + 1] === list[j] + 1) j++;
+    parts.push(i === j ? String(list[i]) : `${list[i]}–${list[j]}`);
+    i = j + 1;
+  }
+  const shown = parts.slice(0, MAX_LISTED).join(', ');
+  return parts.length > MAX_LISTED ? `${shown} and ${parts.length - MAX_LISTED} more runs` : shown;
+}
+
+/** Inserted, removed and changed threads, each with where they are. */
+function alignment(t: { inserted: number[]; removed: number[]; changed: number[] }, a: number, b: number): string {
+  const part = (list: number[], word: string, where: string) => (list.length === 0 ? `none ${word}` : `${list.length} ${word} (${runs(list)} ${where})`);
+  return [part(t.inserted, 'inserted', `in version ${b}`), part(t.removed, 'removed', `in version ${a}`), part(t.changed, 'changed', `in version ${b}`)].join('; ');
+}
+
 /** What changed between two versions: counts, which ends and picks, and the drawdown difference picture. */
 export function CompareView({ draftId, a, b }: { draftId: number; a: number; b: number }) {
   const query = useCompareVersions(draftId, [a, b]);
@@ -22,11 +41,15 @@ export function CompareView({ draftId, a, b }: { draftId: number; a: number; b: 
         Version {a} compared with version {b}
       </h2>
       <dl className="grid grid-cols-[max-content_1fr] gap-x-6 gap-y-1 text-sm">
-        <dt className="text-muted">Ends changed</dt>
+        <dt className="text-muted">Ends</dt>
+        <dd data-testid="aligned-ends">{alignment(c.aligned.ends, a, b)}</dd>
+        <dt className="text-muted">Picks</dt>
+        <dd data-testid="aligned-picks">{alignment(c.aligned.picks, a, b)}</dd>
+        <dt className="text-muted">Ends that differ place by place</dt>
         <dd data-testid="changed-ends">
           <strong>{c.ends.length}</strong>: {numbers(c.ends)}
         </dd>
-        <dt className="text-muted">Picks changed</dt>
+        <dt className="text-muted">Picks that differ place by place</dt>
         <dd data-testid="changed-picks">
           <strong>{c.picks.length}</strong>: {numbers(c.picks)}
         </dd>
