@@ -62,6 +62,7 @@ export const ARRANGEMENT_NAMES = {
   threadingAbove: 'Threading above the drawdown',
   treadlingRight: 'Treadling on the right',
   shaftOneAtBottom: 'Shaft 1 at the bottom of the threading',
+  endOneRight: 'End 1 on the right',
 } as const;
 
 /** Which shaft the weaver counts as shaft 1, worded the same on the At the loom page, in Print and on paper. */

@@ -81,7 +81,7 @@ export interface DraftPdfInput {
  * cells are embedded pixels and numbers are written straight into the page, so a 2000 × 2000
  * draft prints in about 1.5 s; the work yields to the event loop every PRINT_SLICE_MS.
  *
- * @example await renderDraftPdf({ draft, meta, options: { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, numberEvery: 4 } })
+ * @example await renderDraftPdf({ draft, meta, options: { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, endOneRight: true, numberEvery: 4 } })
  */
 export async function renderDraftPdf(input: DraftPdfInput): Promise<Buffer> {
   const out = new PassThrough();
@@ -138,7 +138,7 @@ export async function printExtent(input: DraftPdfInput, maxCells = Infinity): Pr
   const outputs = planOutputs(input);
   // A document never written, for the font's measures.
   const measure = printDocument(page, input.meta);
-  const lists = await estimateLoomListPages(measure, draft, yarnNamesOf(legend), listKinds(input, outputs), listOrientation(input.plan, options.workingOrder), outputs, page, window.picks, turnTaker());
+  const lists = await estimateLoomListPages(measure, draft, yarnNamesOf(legend), listKinds(input, outputs), listOrientation(draft, input.plan, options.workingOrder), outputs, page, window.picks, turnTaker());
   return { pages: layout.pages.length + 1 + lists, cells, window };
 }
 
@@ -222,7 +222,7 @@ export async function streamDraftPdf(input: DraftPdfInput, out: Writable, contro
     const yarnNames = yarnNamesOf(legend);
     await breathe();
     drawPlanPage(doc, draft, yarnNames, input.plan && outputs ? { doc: input.plan, outputs } : undefined);
-    await drawLoomLists(doc, draft, yarnNames, listKinds(input, outputs), listOrientation(input.plan, options.workingOrder), outputs, breathe, { ...window.picks, repeat: window.part === 'repeat' });
+    await drawLoomLists(doc, draft, yarnNames, listKinds(input, outputs), listOrientation(draft, input.plan, options.workingOrder), outputs, breathe, { ...window.picks, repeat: window.part === 'repeat' });
     await check();
   } catch (err) {
     doc.unpipe(out);

@@ -1,4 +1,4 @@
-import type { Draft } from '../../shared/weave';
+import { arrangementOf, type Draft } from '../../shared/weave';
 import { encodePngRgb, encodePngRgbAsync } from './png';
 import { cellImage, clothSources, orientCells, threadImage, threadPitch, type CellImage } from './raster';
 
@@ -10,8 +10,8 @@ export interface DrawdownPngOptions {
   scale: number;
   /** As in the editor: pick 1 at the top when the threading is above (default). */
   threadingAbove?: boolean;
-  /** As in the editor: end 1 on the right when the treadling is on the right (default). */
-  treadlingRight?: boolean;
+  /** End 1 on the right (default: as the draft's arrangement says). */
+  endOneRight?: boolean;
 }
 
 /** Largest picture we make: 40 megapixels is 120 MB of pixels before compression. */
@@ -42,8 +42,9 @@ function drawdownPixels(draft: Draft, options: DrawdownPngOptions): CellImage {
   const src = clothSources(draft);
   const { ends, picks } = src.drawdown;
   if (ends === 0 || picks === 0) throw new RangeError('the draft has no cells to draw');
-  const endOneRight = options.treadlingRight ?? true;
-  const flipY = !(options.threadingAbove ?? true);
+  const own = arrangementOf(draft);
+  const endOneRight = options.endOneRight ?? own.endOne === 'right';
+  const flipY = !(options.threadingAbove ?? own.threading === 'above');
   if (options.view !== 'structure') {
     // The cloth thread by thread: `scale` pixels per end, picks spaced by the sett.
     const pitch = threadPitch(src, scale);

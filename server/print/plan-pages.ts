@@ -1,5 +1,5 @@
 import { formatNumber, LOOM_LIST_NAMES } from '../../shared/words';
-import { pickCount, type Draft } from '../../shared/weave';
+import { arrangementOf, pickCount, type Draft } from '../../shared/weave';
 import {
   planBlocker,
   type ClothSett,
@@ -191,7 +191,7 @@ function numberingWords(n: ShaftNumbering): string {
 
 function orientationWords(o: Orientation): string {
   const numbering = o.shaftNumbering === 'near' ? 'shaft 1 nearest you' : 'shaft 1 farthest from you';
-  return `Working from the ${o.side} of the loom, ${o.direction.replace(/-/g, ' ')}, ${numbering}.`;
+  return `Working from the ${o.side} of the loom, ${o.direction.replace(/-/g, ' ')}, ${numbering}; end 1 is on the ${o.endOneAt} seen from the front.`;
 }
 
 /**
@@ -392,9 +392,10 @@ export async function estimateLoomListPages(
 }
 
 /** The plan's list settings with the print's working order laid over them. */
-export function listOrientation(plan: PlanDocument | undefined, override: Partial<Orientation> | undefined): Orientation {
+export function listOrientation(draft: Draft, plan: PlanDocument | undefined, override: Partial<Orientation> | undefined): Orientation {
   const base: Orientation = plan
     ? { side: plan.lists.side, direction: plan.lists.direction, shaftNumbering: plan.lists.shaftNumbering, endOneAt: plan.lists.endOneAt }
     : DEFAULT_ORIENTATION;
-  return { ...base, ...override };
+  // End 1 is where the draft's arrangement puts it, whatever the plan or the print asks.
+  return { ...base, ...override, endOneAt: arrangementOf(draft).endOne };
 }

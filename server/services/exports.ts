@@ -3,8 +3,8 @@ import type { Writable } from 'node:stream';
 import type { DrawdownPngQuery, PrintQuery } from '../../shared/api/exports';
 import type { LoomList } from '../../shared/api/plans';
 import type { PlanDocument } from '../../shared/plan';
-import type { LoomListKind, PrintMeta } from '../../shared/print/types';
-import { isLayered, parseDraft, pickCount, type Draft } from '../../shared/weave';
+import { printArrangementOf, type LoomListKind, type PrintMeta } from '../../shared/print/types';
+import { arrangementOf, isLayered, parseDraft, pickCount, type Draft } from '../../shared/weave';
 import { HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import { PRINT_LIMITS, printExtent, PrintStopped, streamDraftPdf, type DraftPdfInput } from '../print/draft-pdf';
@@ -60,6 +60,11 @@ export async function sharedPrintable(models: Models, token: string): Promise<Pr
   };
 }
 
+/** The entries whose value is given. */
+function definedOnly<T extends Record<string, unknown>>(o: T): Partial<T> {
+  return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as Partial<T>;
+}
+
 const LIST_KINDS: Record<LoomList, LoomListKind> = { threading: 'threading', sleying: 'sleying', tieon: 'tie-on', weaving: 'weaving' };
 
 /** Prints never run side by side: a second waits for the first, so a burst of prints cannot eat the server's memory. */
@@ -86,9 +91,9 @@ export function printInput(p: Printable, q: PrintQuery): DraftPdfInput {
     options: {
       paper: q.paper,
       orientation: q.orientation,
-      threadingAbove: q.threadingAbove,
-      treadlingRight: q.treadlingRight,
-      shaftsFromBottom: q.shaftsFromBottom,
+      // The draft's own arrangement, with what the query names laid over it.
+      ...printArrangementOf(arrangementOf(p.draft)),
+      ...definedOnly({ threadingAbove: q.threadingAbove, treadlingRight: q.treadlingRight, shaftsFromBottom: q.shaftsFromBottom, endOneRight: q.endOneRight }),
       numberEvery: q.numberEvery,
       workingOrder,
       // Naming ends or picks is asking for a range.
@@ -176,5 +181,6 @@ export function drawdownPng(p: Printable, q: DrawdownPngQuery): Promise<Buffer> 
     const most = Math.floor(Math.sqrt(EXPORT_MAX_PIXELS / cells));
     throw new HttpError(400, 'validation', `The picture would be too big at ${q.scale} pixels per cell`, { scale: `at most ${most} for this draft` });
   }
-  return renderDrawdownPngAsync(draft, { view: q.view, scale: q.scale, threadingAbove: q.threadingAbove, treadlingRight: q.treadlingRight });
+  const own = printArrangementOf(arrangementOf(draft));
+  return renderDrawdownPngAsync(draft, { view: q.view, scale: q.scale, threadingAbove: q.threadingAbove ?? own.threadingAbove, endOneRight: q.endOneRight ?? own.endOneRight });
 }

@@ -40,9 +40,11 @@ export const printQuerySchema = z
   .object({
     paper: z.enum(['a4', 'letter']).default('a4'),
     orientation: z.enum(['portrait', 'landscape']).default('portrait'),
-    threadingAbove: flag.default(true),
-    treadlingRight: flag.default(true),
-    shaftsFromBottom: flag.default(true),
+    /** The arrangement; each one left out follows the draft's own. */
+    threadingAbove: flag.optional(),
+    treadlingRight: flag.optional(),
+    shaftsFromBottom: flag.optional(),
+    endOneRight: flag.optional(),
     numberEvery: z.enum(['4', '8', '10']).default('4').transform((v) => Number(v) as 4 | 8 | 10),
     /** Omitted: every list the plan allows. */
     lists: listNames.optional(),
@@ -71,8 +73,9 @@ export const drawdownPngQuerySchema = z
     view: z.enum(pngViews).default('colour'),
     /** Pixels per cell side. */
     scale: z.coerce.number().int().min(1).max(64).default(8),
-    threadingAbove: flag.default(true),
-    treadlingRight: flag.default(true),
+    /** Left out: as the draft's arrangement says. */
+    threadingAbove: flag.optional(),
+    endOneRight: flag.optional(),
   })
   .strict();
 export type DrawdownPngQuery = z.output<typeof drawdownPngQuerySchema>;

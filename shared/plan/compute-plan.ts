@@ -1,7 +1,7 @@
 /**
  * Everything the Plan and At-the-loom views show, recomputed from a draft and its saved plan.
  */
-import type { Draft } from '../weave/types';
+import { arrangementOf, type Draft } from '../weave/types';
 import { convertDensity } from './units';
 import { pickCount } from '../weave/drawdown';
 import { diametersPerInch, layeredSett, maximumSett, settFromWraps, settOutside, workingSettRange, WEAVES, type SettOutside } from './sett';
@@ -109,7 +109,8 @@ export function computePlan(draft: Draft, doc: PlanDocument): PlanOutputs {
   };
   const ends = expandWarp(draft, warp.ends, doc.selvedgeEndsPerSide);
   const { lists } = doc;
-  const orientation = { side: lists.side, direction: lists.direction, shaftNumbering: lists.shaftNumbering, endOneAt: lists.endOneAt };
+  // End 1's side is the draft's, as the editor and the print show it; the plan's own old setting is not read.
+  const orientation = { side: lists.side, direction: lists.direction, shaftNumbering: lists.shaftNumbering, endOneAt: arrangementOf(draft).endOne };
   const endsPerDent = denting.pattern.reduce((a, b) => a + b, 0) / denting.pattern.length;
   // Groups of about an inch (2.5 cm) of warp unless the weaver sets a size (common practice).
   const unitWidth = doc.unit === 'inch' ? 1 : 2.5;

@@ -97,6 +97,7 @@ export const planDocumentSchema = z.object({
       side: z.enum(['front', 'back']).default(DEFAULT_ORIENTATION.side),
       direction: z.enum(['right-to-left', 'left-to-right']).default(DEFAULT_ORIENTATION.direction),
       shaftNumbering: z.enum(['near', 'far']).default(DEFAULT_ORIENTATION.shaftNumbering),
+      /** Kept so stored plans still read; end 1's side now comes from the draft's arrangement. */
       endOneAt: z.enum(['right', 'left']).default(DEFAULT_ORIENTATION.endOneAt),
       /** Ends per threading group; about an inch (2.5 cm) of ends when absent. */
       groupSize: z.number().int().min(1).optional(),

@@ -113,8 +113,8 @@ export function viewTileSize(cols: number, rows: number, cell: number): { width:
 
 /**
  * Places a draft tile with its top-left corner at (x, y), following the weaver's arrangement:
- * the tie-up sits in the corner between threading and treadling, end 1 is next to the treadling
- * and pick 1 next to the threading, so the counts run away from the tie-up (common practice).
+ * the tie-up sits in the corner between threading and treadling, end 1 on the side the draft's
+ * arrangement names and pick 1 next to the threading.
  * Colour orders and numbers sit on the outer side of the threading and treadling.
  */
 export function placeDraftTile(
@@ -144,8 +144,8 @@ export function placeDraftTile(
     trLeft = weftX + c + c;
     ddLeft = trLeft + T * c + c;
   }
-  const endX0 = arrangement.treadlingRight ? ddLeft + (cols - 1) * c : ddLeft;
-  const endStep = arrangement.treadlingRight ? -c : c;
+  const endX0 = arrangement.endOneRight ? ddLeft + (cols - 1) * c : ddLeft;
+  const endStep = arrangement.endOneRight ? -c : c;
   const treadleX0 = arrangement.treadlingRight ? trLeft : trLeft + (T - 1) * c;
   const treadleStep = arrangement.treadlingRight ? c : -c;
 
@@ -196,9 +196,9 @@ export function placeViewTile(x: number, y: number, cols: number, rows: number, 
     box: { x, y, width: size.width, height: size.height },
     caption: { x, y, width: size.width, height: CAPTION },
     grid: {
-      x0: arrangement.treadlingRight ? gridLeft + (cols - 1) * c : gridLeft,
+      x0: arrangement.endOneRight ? gridLeft + (cols - 1) * c : gridLeft,
       y0: arrangement.threadingAbove ? gridTop : gridTop + (rows - 1) * c,
-      stepX: arrangement.treadlingRight ? -c : c,
+      stepX: arrangement.endOneRight ? -c : c,
       stepY: arrangement.threadingAbove ? c : -c,
       cols,
       rows,

@@ -208,7 +208,7 @@ function layoutAt(input: DraftPagesInput, body: Rect, cell: number, countOnly: b
       const at = place(viewTileSize(cols, rows, viewCell), own);
       if (countOnly) continue;
       // The back is seen turned over, so its ends run the other way across the page.
-      const seen = view === 'back' ? { ...arrangement, treadlingRight: !arrangement.treadlingRight } : arrangement;
+      const seen = view === 'back' ? { ...arrangement, endOneRight: !arrangement.endOneRight } : arrangement;
       const layout = placeViewTile(at.x, at.y, cols, rows, viewCell, seen);
       last().parts.push({ kind: 'view', view, tile, across: vsplit.across, down: vsplit.down, layout });
     }

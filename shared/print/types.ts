@@ -1,4 +1,5 @@
 import type { Orientation } from '../plan/loom-lists';
+import type { DraftArrangement as DraftLayout } from '../weave/types';
 import type { PrintRangeChoice } from './print-range';
 
 /** Paper sizes a printed draft comes on. */
@@ -9,10 +10,17 @@ export type PageOrientation = 'portrait' | 'landscape';
 export interface DraftArrangement {
   /** Threading above the drawdown (else below). Pick 1 is the pick next to the threading. */
   threadingAbove: boolean;
-  /** Treadling or lift plan to the right of the drawdown (else left). End 1 is the end next to it. */
+  /** Treadling or lift plan to the right of the drawdown (else left). */
   treadlingRight: boolean;
   /** Shaft 1 is the bottom row of the threading (else the top row). */
   shaftsFromBottom: boolean;
+  /** End 1 on the right of the drawdown (else the left), as the draft's arrangement says. */
+  endOneRight: boolean;
+}
+
+/** The print's words for a draft's arrangement. */
+export function printArrangementOf(a: DraftLayout): DraftArrangement {
+  return { threadingAbove: a.threading === 'above', treadlingRight: a.treadling === 'right', shaftsFromBottom: a.shaftOne === 'bottom', endOneRight: a.endOne === 'right' };
 }
 
 /** A rectangle in PDF points, origin at the top left of the page, y growing downwards. */

@@ -181,6 +181,17 @@ export const draftDocumentSchema = z.strictObject(
       )
       .optional(),
     profile: blockDesignSchema.optional(),
+    arrangement: z
+      .strictObject(
+        {
+          endOne: z.enum(['left', 'right'], { error: 'must be "left" or "right"' }),
+          threading: z.enum(['above', 'below'], { error: 'must be "above" or "below"' }),
+          treadling: z.enum(['right', 'left'], { error: 'must be "right" or "left"' }),
+          shaftOne: z.enum(['bottom', 'top'], { error: 'must be "bottom" or "top"' }),
+        },
+        { error: 'must be an object like {"endOne": "right", "threading": "above", "treadling": "right", "shaftOne": "bottom"}' },
+      )
+      .optional(),
   },
   { error: 'a draft must be a JSON object' },
 );
@@ -475,6 +486,7 @@ function withDefaults(doc: DraftDocument): Draft {
   };
   if (doc.blocks) draft.blocks = doc.blocks;
   if (doc.profile) draft.profile = doc.profile;
+  if (doc.arrangement) draft.arrangement = doc.arrangement;
   return draft;
 }
 

@@ -23,6 +23,12 @@ export const DRAFT_MIGRATIONS: readonly DraftMigration[] = [
     change: 'adds the block design a draft was expanded from (`profile`), optional; nothing stored before changes meaning',
     up: (doc) => ({ ...doc }),
   },
+  {
+    from: 2,
+    change:
+      'adds the arrangement (`arrangement`: end 1 left or right, threading above or below, treadling right or left, shaft 1 at the bottom or top), optional; a document without one is laid out as the editor showed it (end 1 on the left, threading above, treadling on the right, shaft 1 at the bottom)',
+    up: (doc) => ({ ...doc }),
+  },
 ];
 
 /**

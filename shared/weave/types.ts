@@ -4,7 +4,7 @@
  * Counted things a weaver sees (shafts, treadles, layers, blocks) are 1-based numbers;
  * positions in arrays (end, pick, palette entry) are 0-based indices.
  */
-export const DRAFT_SCHEMA_VERSION = 2;
+export const DRAFT_SCHEMA_VERSION = 3;
 
 export const MAX_SHAFTS = 32;
 export const MAX_TREADLES = 32;
@@ -90,6 +90,29 @@ export interface BlockDesign {
   blockWeftColors?: number[][][];
 }
 
+/**
+ * How the draft is laid out, seen from the front of the loom: the one arrangement the editor, the
+ * cloth views, pictures, the print and the loom-side lists all follow.
+ */
+export interface DraftArrangement {
+  /** The side end 1 is on. */
+  endOne: 'left' | 'right';
+  /** The threading above or below the drawdown (pick 1 is next to it). */
+  threading: 'above' | 'below';
+  /** The treadling or lift plan to the right or left of the drawdown. */
+  treadling: 'right' | 'left';
+  /** Shaft 1 as the bottom or the top row of the threading. */
+  shaftOne: 'bottom' | 'top';
+}
+
+/** The arrangement of a draft that names none: as the editor has always shown drafts. */
+export const DEFAULT_ARRANGEMENT: Readonly<DraftArrangement> = { endOne: 'left', threading: 'above', treadling: 'right', shaftOne: 'bottom' };
+
+/** The draft's arrangement, the default where it names none. */
+export function arrangementOf(draft: Pick<Draft, 'arrangement'>): DraftArrangement {
+  return { ...DEFAULT_ARRANGEMENT, ...draft.arrangement };
+}
+
 export interface Draft {
   schemaVersion: typeof DRAFT_SCHEMA_VERSION;
   name: string;
@@ -122,4 +145,6 @@ export interface Draft {
   blocks?: BlockLinks;
   /** The block design the draft was expanded from, to reopen and change. */
   profile?: BlockDesign;
+  /** How the draft is laid out (absent: {@link DEFAULT_ARRANGEMENT}). */
+  arrangement?: DraftArrangement;
 }

@@ -12,7 +12,7 @@ import { renderDraftPdf } from '../../server/print/draft-pdf';
 import { doubleWeaveProfile } from '../helpers/draft-fixtures';
 import { bigPointTwill } from '../helpers/print-fixtures';
 
-const options: PrintOptions = { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, numberEvery: 8 };
+const options: PrintOptions = { paper: 'a4', orientation: 'portrait', threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, endOneRight: true, numberEvery: 8 };
 const BUDGET_MS = 5000;
 
 /** A 4-shaft 2/2 twill scarf on a point draw, 96 ends × 96 picks. */

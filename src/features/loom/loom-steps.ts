@@ -94,3 +94,24 @@ export function endRange(ends: readonly number[]): string {
   const runs = Math.abs(step) === 1 && ends.every((e, i) => i === 0 || e - ends[i - 1] === step);
   return runs ? `${ends[0]}–${ends[ends.length - 1]}` : ends.join(', ');
 }
+
+/** The first end of the group at a place (in the order met), or undefined for weaving or an empty group. */
+export function firstEndAt(outputs: PlanOutputs, list: LoomList, position: number): number | undefined {
+  switch (list) {
+    case 'threading': return outputs.threading[position]?.items[0]?.end;
+    case 'sleying': return outputs.sleying[position]?.items.flatMap((d) => d.ends)[0]?.end;
+    case 'tieon': return outputs.tieOn[position]?.items[0];
+    case 'weaving': return undefined;
+  }
+}
+
+/** The place (0-based group) of the list that holds an end, or undefined when no group does. */
+export function groupOfEnd(outputs: PlanOutputs, list: LoomList, end: number): number | undefined {
+  const at = (i: number) => (i >= 0 ? i : undefined);
+  switch (list) {
+    case 'threading': return at(outputs.threading.findIndex((g) => g.items.some((s) => s.end === end)));
+    case 'sleying': return at(outputs.sleying.findIndex((g) => g.items.some((d) => d.ends.some((e) => e.end === end))));
+    case 'tieon': return at(outputs.tieOn.findIndex((g) => g.items.includes(end)));
+    case 'weaving': return undefined;
+  }
+}

@@ -1,21 +1,19 @@
 import { exportQuery, type PngViewName } from '../../../shared/api/exports';
 import type { PrintPart } from '../../../shared/print/print-range';
 import type { LoomList, WorkingOrder } from '../../../shared/api/plans';
-import type { Arrangement } from '../editor';
+import type { DraftArrangement } from '../../../shared/weave/types';
 
-/** The print's arrangement words: which side the threading, treadling and shaft 1 are on. */
+/** The print's arrangement words: which side the threading, treadling, shaft 1 and end 1 are on. */
 export interface PrintArrangement {
   threadingAbove: boolean;
   treadlingRight: boolean;
   shaftsFromBottom: boolean;
+  endOneRight: boolean;
 }
 
-/**
- * The editor names each setting by the side it moves a grid to (threading below, treadling left,
- * shafts from the top); the print names the opposite side. The same layout either way.
- */
-export function printArrangement(editor: Arrangement): PrintArrangement {
-  return { threadingAbove: !editor.threadingBelow, treadlingRight: !editor.treadlingLeft, shaftsFromBottom: !editor.shaftsFromTop };
+/** The draft's own arrangement in the print's words: where the Print section starts. */
+export function printArrangement(a: DraftArrangement): PrintArrangement {
+  return { threadingAbove: a.threading === 'above', treadlingRight: a.treadling === 'right', shaftsFromBottom: a.shaftOne === 'bottom', endOneRight: a.endOne === 'right' };
 }
 
 /** 1-based first and last, as the weaver names ends and picks. */
@@ -47,6 +45,7 @@ export function printUrl(base: string, c: PrintChoices): string {
     threadingAbove: c.threadingAbove,
     treadlingRight: c.treadlingRight,
     shaftsFromBottom: c.shaftsFromBottom,
+    endOneRight: c.endOneRight,
     numberEvery: c.numberEvery,
     lists: c.lists,
     from: c.workingOrder.side,
@@ -60,6 +59,6 @@ export function printUrl(base: string, c: PrintChoices): string {
 }
 
 /** A picture of the cloth laid out as the print is. */
-export function pngUrl(base: string, view: PngViewName, scale: number, a: Pick<PrintArrangement, 'threadingAbove' | 'treadlingRight'>): string {
-  return `${base}/drawdown.png${exportQuery({ view, scale, threadingAbove: a.threadingAbove, treadlingRight: a.treadlingRight })}`;
+export function pngUrl(base: string, view: PngViewName, scale: number, a: Pick<PrintArrangement, 'threadingAbove' | 'endOneRight'>): string {
+  return `${base}/drawdown.png${exportQuery({ view, scale, threadingAbove: a.threadingAbove, endOneRight: a.endOneRight })}`;
 }

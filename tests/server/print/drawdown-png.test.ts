@@ -69,7 +69,7 @@ describe('renderDrawdownPng', () => {
     const draft = checkerboard(ends, picks);
     const sizes = threadSizesFor(draft);
     const pitchY = (scale * sizes.endsPerInch) / sizes.picksPerInch;
-    const d = await decode(renderDrawdownPng(draft, { view: 'colour', scale }));
+    const d = await decode(renderDrawdownPng(draft, { view: 'colour', scale, endOneRight: true }));
     expect([d.width, d.height]).toEqual([ends * scale, Math.ceil(picks * pitchY)]);
     const distance = (a: number[], b: number[]) => a.reduce((s, v, i) => s + (v - b[i]) ** 2, 0);
     for (let e = 0; e < ends; e++) {
@@ -89,7 +89,7 @@ describe('renderDrawdownPng', () => {
   });
 
   it('draws the structure in black and white, and follows the arrangement when asked', async () => {
-    const d = await decode(renderDrawdownPng(checkerboard(4, 4), { view: 'structure', scale: 1, treadlingRight: false, threadingAbove: false }));
+    const d = await decode(renderDrawdownPng(checkerboard(4, 4), { view: 'structure', scale: 1, endOneRight: false, threadingAbove: false }));
     // End 1 on the left, pick 1 at the bottom: end 1 is up on pick 1.
     expect(at(d, 0, 3)).toEqual([0, 0, 0]);
     expect(at(d, 1, 3)).toEqual([255, 255, 255]);
@@ -105,9 +105,9 @@ describe('renderDrawdownPng', () => {
       return { width: pic.width, height: pic.height, rgba: Array.from(pic.rgba) };
     };
     for (const face of ['front', 'back'] as const) {
-      for (const treadlingRight of [true, false]) {
-        const d = await decode(renderDrawdownPng(draft, { view: face, scale: 3, treadlingRight }));
-        expect(d).toEqual(drawn(face, treadlingRight));
+      for (const endOneRight of [true, false]) {
+        const d = await decode(renderDrawdownPng(draft, { view: face, scale: 3, endOneRight }));
+        expect(d).toEqual(drawn(face, endOneRight));
       }
     }
   });

@@ -93,7 +93,8 @@ describe('computing a saved plan', () => {
 
   it('sleys a double weave with one end of each layer per dent', () => {
     const doc = planDocumentSchema.parse({ ...minimal, reed: { dents: 15, per: 'inch' }, lists: { layerRule: true, layerOrder: [1, 2] } });
-    const out = computePlan(doubleWeave(), doc);
+    // End 1 on the right: working right to left from the front meets end 1 (layer 1) first.
+    const out = computePlan({ ...doubleWeave(), arrangement: { endOne: 'right', threading: 'above', treadling: 'right', shaftOne: 'bottom' } }, doc);
     expect(out.denting.pattern).toEqual([2]);
     const dents = out.sleying.flatMap((g) => g.items);
     expect(dents.every((d) => d.ends.length === 2 && d.ends[0].layer === 1 && d.ends[1].layer === 2)).toBe(true);

@@ -5,7 +5,7 @@ import { planDraftPages, type PrintView } from '../../../shared/print/draft-page
 import { MIN_CELL_MM, PT_PER_MM } from '../../../shared/print/cell-size';
 import { pageSize, type DraftArrangement, type Rect } from '../../../shared/print/types';
 
-const arrangement = fc.record({ threadingAbove: fc.boolean(), treadlingRight: fc.boolean(), shaftsFromBottom: fc.boolean() });
+const arrangement = fc.record({ threadingAbove: fc.boolean(), treadlingRight: fc.boolean(), shaftsFromBottom: fc.boolean(), endOneRight: fc.boolean() });
 const shape = fc
   .record({
     ends: fc.integer({ min: 1, max: 400 }),
@@ -22,15 +22,15 @@ const inside = (a: Rect, b: Rect) =>
   a.x >= b.x - 1e-6 && a.y >= b.y - 1e-6 && a.x + a.width <= b.x + b.width + 1e-6 && a.y + a.height <= b.y + b.height + 1e-6;
 
 describe('placeDraftTile', () => {
-  const plain: DraftArrangement = { threadingAbove: true, treadlingRight: true, shaftsFromBottom: true };
+  const plain: DraftArrangement = { threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, endOneRight: true };
   const s: DraftShape = { ends: 8, picks: 6, shafts: 4, pickColumns: 4, liftPlan: false };
 
-  it('puts end 1 next to the treadling and pick 1 next to the threading (common practice)', () => {
+  it('puts end 1 on the side the arrangement names and pick 1 next to the threading', () => {
     const l = placeDraftTile(0, 0, s, 8, 6, 10, plain);
     const dd = gridBounds(l.drawdown);
     expect(cellOrigin(l.drawdown, 0, 0).x).toBeCloseTo(dd.x + dd.width - 10);
     expect(cellOrigin(l.drawdown, 0, 0).y).toBeCloseTo(dd.y);
-    const mirrored = placeDraftTile(0, 0, s, 8, 6, 10, { threadingAbove: false, treadlingRight: false, shaftsFromBottom: false });
+    const mirrored = placeDraftTile(0, 0, s, 8, 6, 10, { threadingAbove: false, treadlingRight: false, shaftsFromBottom: false, endOneRight: false });
     const md = gridBounds(mirrored.drawdown);
     expect(cellOrigin(mirrored.drawdown, 0, 0).x).toBeCloseTo(md.x);
     expect(cellOrigin(mirrored.drawdown, 0, 0).y).toBeCloseTo(md.y + md.height - 10);
@@ -153,7 +153,7 @@ describe('planDraftPages', () => {
     const plan = planDraftPages({
       page: pageSize('a4', 'portrait'),
       shape: { ends: 4, picks: 4, shafts: 2, pickColumns: 2, liftPlan: false },
-      arrangement: { threadingAbove: true, treadlingRight: true, shaftsFromBottom: true },
+      arrangement: { threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, endOneRight: true },
       views: ['structure'],
       legendRows: 2,
     });

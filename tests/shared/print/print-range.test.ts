@@ -74,7 +74,7 @@ describe('draftRepeat and printWindow', () => {
 
 describe('planDraftPages with a window and fit to width', () => {
   const page = pageSize('a4', 'portrait');
-  const arrangement = { threadingAbove: true, treadlingRight: true, shaftsFromBottom: true };
+  const arrangement = { threadingAbove: true, treadlingRight: true, shaftsFromBottom: true, endOneRight: true };
   const shape = { ends: 440, picks: 560, shafts: 8, pickColumns: 8, liftPlan: true };
 
   it('lays out only the window, numbered as in the draft', () => {

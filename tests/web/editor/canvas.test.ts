@@ -4,13 +4,13 @@ import { computeDrawdown, renderCloth } from '../../../shared/weave';
 import { pixel } from '../../../src/features/editor/canvas/bitmap';
 import { createDerived } from '../../../src/features/editor/canvas/derived';
 import { DraftPainter } from '../../../src/features/editor/canvas/draft-painter';
-import { cellAt, cellPosition, computeLayout, refAt, regionOf, rowOfShaft } from '../../../src/features/editor/canvas/layout';
+import { cellAt, cellPosition, columnX, computeLayout, refAt, regionOf, rowOfShaft } from '../../../src/features/editor/canvas/layout';
 import { createDraftStore } from '../../../src/features/editor/store/draft-store';
 import { paintColor, setCell, setPaletteColor } from '../../../src/features/editor/store/edits';
 import { twill } from './fixtures';
 
 describe('layout', () => {
-  const arrangements = fc.record({ threadingBelow: fc.boolean(), treadlingLeft: fc.boolean(), shaftsFromTop: fc.boolean() });
+  const arrangements = fc.record({ threadingBelow: fc.boolean(), treadlingLeft: fc.boolean(), shaftsFromTop: fc.boolean(), endOneRight: fc.boolean() });
 
   it('finds the cell under any point of a grid, and the point of any cell (every arrangement)', () => {
     fc.assert(
@@ -22,7 +22,7 @@ describe('layout', () => {
           for (let col = 0; col < Math.min(r.cols, 6); col++) {
             for (let row = 0; row < Math.min(r.rows, 6); row++) {
               const ref = refAt(r.id, col, row, draft.shafts, arrangement.shaftsFromTop);
-              const back = cellAt(layout, r.x + col * cell + cell / 2, r.y + row * cell + cell / 2, 0, 0, draft.shafts, arrangement.shaftsFromTop);
+              const back = cellAt(layout, columnX(layout, r, col, 0) + cell / 2, r.y + row * cell + cell / 2, 0, 0, draft.shafts, arrangement.shaftsFromTop);
               expect(back).toEqual(ref);
               expect(cellPosition(ref, draft.shafts, arrangement.shaftsFromTop)).toEqual({ col, row });
             }
@@ -43,7 +43,7 @@ describe('layout', () => {
   it('puts the threading above or below the drawdown and the treadling right or left', () => {
     const draft = twill();
     const at = (threadingBelow: boolean, treadlingLeft: boolean) => {
-      const l = computeLayout(draft, { threadingBelow, treadlingLeft, shaftsFromTop: false }, 10, 1000, 800);
+      const l = computeLayout(draft, { threadingBelow, treadlingLeft, shaftsFromTop: false, endOneRight: false }, 10, 1000, 800);
       return { t: regionOf(l, 'threading')!, d: regionOf(l, 'drawdown')!, tr: regionOf(l, 'treadling')! };
     };
     const normal = at(false, false);

@@ -18,7 +18,7 @@ describe('changed boxes of the stage', () => {
   });
 
   it('cover every changed cell in view, stay apart, and sit on whole device pixels', () => {
-    const arrangement = fc.record({ threadingBelow: fc.boolean(), treadlingLeft: fc.boolean(), shaftsFromTop: fc.boolean() });
+    const arrangement = fc.record({ threadingBelow: fc.boolean(), treadlingLeft: fc.boolean(), shaftsFromTop: fc.boolean(), endOneRight: fc.constant(false) });
     fc.assert(
       fc.property(
         arrangement,
@@ -70,7 +70,7 @@ describe('changed boxes of the stage', () => {
   });
 
   it('gives nothing for cells scrolled out of view, and one small box for one cell', () => {
-    const layout = computeLayout(draft, { threadingBelow: false, treadlingLeft: false, shaftsFromTop: false }, 10, 200, 200);
+    const layout = computeLayout(draft, { threadingBelow: false, treadlingLeft: false, shaftsFromTop: false, endOneRight: false }, 10, 200, 200);
     expect(changedRects(layout, [{ id: 'drawdown', box: { x0: 39, y0: 29, x1: 39, y1: 29 } }], 0, 0)).toEqual([]);
     const [one] = changedRects(layout, [{ id: 'threading', box: { x0: 2, y0: 1, x1: 2, y1: 1 } }], 0, 0);
     expect([one.width, one.height]).toEqual([12, 12]);

@@ -7,7 +7,7 @@ import { visibleGrids } from '../../../src/features/editor/store/grids';
 import { twill } from './fixtures';
 
 const valid = (d: ReturnType<typeof twill>) => expect(() => parseDraft(JSON.parse(JSON.stringify(d)))).not.toThrow();
-const arrangement = { threadingBelow: false, treadlingLeft: false, shaftsFromTop: false };
+const arrangement = { threadingBelow: false, treadlingLeft: false, shaftsFromTop: false, endOneRight: false };
 
 describe('layer rows', () => {
   it('paints a layer like a colour, filling out an empty layer list first', () => {

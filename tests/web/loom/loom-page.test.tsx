@@ -7,6 +7,9 @@ import { mockApi, type MockHandler } from '../support/mock-api';
 import { renderApp } from '../support/render';
 import { twoLayerDraft } from '../plan/fixtures';
 
+/** The lists below were worked out with the draft's end 1 on the right, seen from the front. */
+const END_ONE_RIGHT = { endOne: 'right', threading: 'above', treadling: 'right', shaftOne: 'bottom' } as const;
+
 // 8 ends a repeat; 10" at 24 epi with 10 % draw-in and shrinkage → 37 repeats = 296 ends; groups of an inch of ends (24).
 const plan = { ...defaultPlan('inch'), sett: 24, layers: 2, lists: { ...defaultPlan().lists, layerRule: true } };
 const back = { side: 'back', direction: 'right-to-left', shaftNumbering: 'near' } as const;
@@ -14,7 +17,7 @@ const back = { side: 'back', direction: 'right-to-left', shaftNumbering: 'near' 
 function routes(progress: Progress | null, extra: Record<string, MockHandler> = {}) {
   return {
     'GET /api/session': { body: { user: sessionUser() } },
-    'GET /api/drafts/4': { body: { draft: draftDetail({ id: 4, name: 'Two-layer trial', role: 'viewer', document: twoLayerDraft() }) } },
+    'GET /api/drafts/4': { body: { draft: draftDetail({ id: 4, name: 'Two-layer trial', role: 'viewer', document: { ...twoLayerDraft(), arrangement: END_ONE_RIGHT } }) } },
     'GET /api/yarns': { body: { yarns: [] } },
     'GET /api/drafts/4/plan': { body: { plan, updatedAt: null, updatedByName: null } },
     'GET /api/drafts/4/progress': { body: { progress } },
@@ -27,6 +30,9 @@ function routes(progress: Progress | null, extra: Record<string, MockHandler> = 
     ...extra,
   };
 }
+
+/** The ends of the group on screen. */
+const stepItems = () => screen.getAllByRole('listitem').filter((li) => /^(⚠ )?End \d+:/.test(li.textContent ?? ''));
 
 const heading = () => screen.getByRole('heading', { level: 2, name: /: (group|pick) \d+ of/ }).textContent;
 
@@ -58,16 +64,57 @@ describe('At the loom', () => {
   });
 
   it('names colours in words beside the swatch, with shafts as numbered from the back, and a quick check', async () => {
-    mockApi(routes(null));
+    mockApi(routes({ list: 'threading', positions: { threading: 0 }, settings: back, movedAt: '2025-01-01T00:00:00.000Z' }));
     renderApp('/drafts/4/loom');
     await waitFor(() => expect(heading()).toBe('Threading: group 1 of 13'));
-    fireEvent.click(screen.getByRole('button', { name: /Back of the loom/ }));
     // From the back, right to left, the last end (296, on draft shaft 8) comes first; nearest shaft is the back one.
     const first = screen.getAllByRole('listitem').find((li) => li.textContent?.startsWith('End 296'))!;
-    expect(first.textContent).toBe('End 296Shaft 1Cotton, sand (colour 2)layer 2');
-    fireEvent.click(screen.getByRole('button', { name: /Next group/ }));
+    expect(first.textContent).toMatch(/^End 296: shaft 1 · dent \d+Cotton, sand \(colour 2\)layer 2$/);
+    // The quick check for the group being worked shows before moving on.
     const check = screen.getByRole('region', { name: 'Quick check' });
     expect(check.textContent).toMatch(/Raise shaft 1 alone: every end on it should be Cotton, sand \(colour 2\) \(layer 2\)\. In this group: ends 296, 288, 280\./);
+  });
+
+  it('steps with Page Down, Enter and Page Up (as foot switches send), and shows the quick check of the last group too', async () => {
+    mockApi(routes({ list: 'threading', positions: { threading: 10 }, settings: back, movedAt: '2025-01-01T00:00:00.000Z' }));
+    renderApp('/drafts/4/loom');
+    await waitFor(() => expect(heading()).toBe('Threading: group 11 of 13'));
+    fireEvent.keyDown(window, { key: 'PageDown' });
+    fireEvent.keyDown(window, { key: 'Enter' });
+    expect(heading()).toBe('Threading: group 13 of 13');
+    expect(screen.getByRole('region', { name: 'Quick check' }).textContent).toMatch(/^Quick check: group 13Raise shaft \d+ alone/);
+    fireEvent.keyDown(window, { key: 'PageUp' });
+    expect(heading()).toBe('Threading: group 12 of 13');
+    // Once the weaver has started, the working order is folded away (and says what it is).
+    const order = screen.getByText(/^Working order: from the back, right to left/).closest('details')!;
+    expect(order.open).toBe(false);
+  });
+
+  it('keeps the weaver on the same end when they turn to the other side of the loom', async () => {
+    mockApi(routes({ list: 'threading', positions: { threading: 4 }, settings: { ...back, side: 'front' }, movedAt: '2025-01-01T00:00:00.000Z' }));
+    renderApp('/drafts/4/loom');
+    await waitFor(() => expect(heading()).toBe('Threading: group 5 of 13'));
+    const firstEnd = /^End (\d+):/.exec(stepItems()[0].textContent ?? '')![1];
+    fireEvent.click(screen.getByRole('button', { name: 'Back of the loom' }));
+    // From the back the ends come in the other order, so end N is in another group number, but the same end is on screen.
+    expect(heading()).not.toBe('Threading: group 5 of 13');
+    expect(stepItems().some((li) => li.textContent?.startsWith(`End ${firstEnd}:`))).toBe(true);
+  });
+
+  it('marks the ends the quick check flags in the list itself, with a mark and words', async () => {
+    const d = twoLayerDraft();
+    // Four repeats of the 8 ends, end 9 (on shaft 1, with navy ends 1, 17 and 25) drawn in cream by mistake.
+    const four = <T,>(list: T[]) => [...list, ...list, ...list, ...list];
+    const warpColors = four(d.warpColors);
+    warpColors[8] = 1;
+    const odd = { ...d, threading: four(d.threading), warpColors, warpLayers: four(d.warpLayers), arrangement: END_ONE_RIGHT };
+    mockApi(routes(null, { 'GET /api/drafts/4': { body: { draft: draftDetail({ id: 4, name: 'Two-layer trial', role: 'viewer', document: odd }) } } }));
+    renderApp('/drafts/4/loom');
+    await waitFor(() => expect(heading()).toMatch(/^Threading: group 1 of \d+$/));
+    const nine = screen.getAllByRole('listitem').find((li) => /^⚠ End 9:/.test(li.textContent ?? ''))!;
+    expect(nine.textContent).toContain('check this end');
+    const eight = screen.getAllByRole('listitem').find((li) => /End 8:/.test(li.textContent ?? ''))!;
+    expect(eight.textContent).not.toContain('check this end');
   });
 
   it('keeps the place on the device while offline and sends it when back online', async () => {
@@ -96,7 +143,7 @@ describe('At the loom', () => {
 
   it('opens from the copy on the device when the network is down', async () => {
     localStorage.setItem('shedwright:loom:4', JSON.stringify({
-      draft: { id: 4, name: 'Two-layer trial', role: 'viewer', document: twoLayerDraft() },
+      draft: { id: 4, name: 'Two-layer trial', role: 'viewer', document: { ...twoLayerDraft(), arrangement: END_ONE_RIGHT } },
       plan,
       place: { list: 'sleying', positions: { sleying: 4 }, settings: back, movedAt: '2025-01-01T00:00:00.000Z' },
       pending: false,

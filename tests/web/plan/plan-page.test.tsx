@@ -7,12 +7,15 @@ import { mockApi, type MockHandler } from '../support/mock-api';
 import { renderApp } from '../support/render';
 import { twoLayerDraft } from './fixtures';
 
+/** The lists below were worked out with the draft's end 1 on the right, seen from the front. */
+const END_ONE_RIGHT = { endOne: 'right', threading: 'above', treadling: 'right', shaftOne: 'bottom' } as const;
+
 const noDefaults: PlanDefaultsResponse = { overall: null, byYarn: [] };
 
 function routes(role: 'owner' | 'viewer', extra: Record<string, MockHandler> = {}) {
   return {
     'GET /api/session': { body: { user: sessionUser() } },
-    'GET /api/drafts/4': { body: { draft: draftDetail({ id: 4, name: 'Two-layer trial', role, document: twoLayerDraft() }) } },
+    'GET /api/drafts/4': { body: { draft: draftDetail({ id: 4, name: 'Two-layer trial', role, document: { ...twoLayerDraft(), arrangement: END_ONE_RIGHT } }) } },
     'GET /api/yarns': { body: { yarns: [] } },
     'GET /api/drafts/4/plan': { body: { plan: { ...defaultPlan('inch'), sett: 24, layers: 2 }, updatedAt: '2025-01-01T00:00:00.000Z', updatedByName: 'Wren' } },
     'GET /api/me/plan-defaults': { body: noDefaults },

@@ -17,10 +17,10 @@ const printLink = () => screen.getByRole('link', { name: 'Print' }).getAttribute
 describe('PrintOptions', () => {
   it('starts from the editor arrangement and builds the print link from every choice', () => {
     render(<PrintOptions base="/api/drafts/7" ends={60} picks={40} layered={false}
-      arrangement={printArrangement({ threadingBelow: true, treadlingLeft: false, shaftsFromTop: true })} files />);
+      arrangement={printArrangement({ threading: 'below', treadling: 'right', shaftOne: 'top', endOne: 'right' })} files />);
     let { path, query } = printQuery(printLink());
     expect(path).toBe('/api/drafts/7/print.pdf');
-    expect(query).toMatchObject({ paper: 'a4', orientation: 'portrait', threadingAbove: false, treadlingRight: true, shaftsFromBottom: false, numberEvery: 4 });
+    expect(query).toMatchObject({ paper: 'a4', orientation: 'portrait', threadingAbove: false, treadlingRight: true, shaftsFromBottom: false, endOneRight: true, numberEvery: 4 });
     expect(query.lists).toEqual([...loomLists]);
     expect(screen.getByRole('link', { name: 'Print' }).getAttribute('target')).toBe('_blank');
 
@@ -29,6 +29,7 @@ describe('PrintOptions', () => {
     fireEvent.change(screen.getByLabelText('Numbers on every'), { target: { value: '10' } });
     fireEvent.click(screen.getByLabelText('Threading above the drawdown'));
     fireEvent.click(screen.getByLabelText('Treadling on the right'));
+    fireEvent.click(screen.getByLabelText('End 1 on the right'));
     fireEvent.click(screen.getByLabelText('Sleying'));
     fireEvent.click(screen.getByLabelText('Tying on'));
     fireEvent.change(screen.getByLabelText('Working from'), { target: { value: 'back' } });
@@ -36,7 +37,7 @@ describe('PrintOptions', () => {
     fireEvent.change(screen.getByLabelText('Shaft 1 is'), { target: { value: 'far' } });
     ({ query } = printQuery(printLink()));
     expect(query).toEqual({
-      paper: 'letter', orientation: 'landscape', threadingAbove: true, treadlingRight: false, shaftsFromBottom: false, numberEvery: 10,
+      paper: 'letter', orientation: 'landscape', threadingAbove: true, treadlingRight: false, shaftsFromBottom: false, endOneRight: false, numberEvery: 10,
       lists: ['threading', 'weaving'], from: 'back', direction: 'left-to-right', shaftNumbering: 'far', part: 'whole', fitWidth: false,
     });
   });
@@ -64,10 +65,10 @@ describe('PrintOptions', () => {
     const exportList = within(screen.getByRole('heading', { name: 'Export' }).parentElement!);
     // 4 megapixels ÷ 2400 cells → 40 pixels a cell, capped at 16.
     const colour = exportList.getByRole('link', { name: 'Colour view (PNG, 960 × 640 pixels)' });
-    fireEvent.click(screen.getByLabelText('Treadling on the right'));
+    fireEvent.click(screen.getByLabelText('End 1 on the right'));
     const url = new URL(colour.getAttribute('href')!, 'http://localhost');
     expect(url.pathname).toBe('/api/drafts/7/drawdown.png');
-    expect(drawdownPngQuerySchema.parse(Object.fromEntries(url.searchParams))).toEqual({ view: 'colour', scale: 16, threadingAbove: true, treadlingRight: false });
+    expect(drawdownPngQuerySchema.parse(Object.fromEntries(url.searchParams))).toEqual({ view: 'colour', scale: 16, threadingAbove: true, endOneRight: true });
     for (const name of [/Structure view/, /Front view/, /Back view/]) expect(exportList.getByRole('link', { name })).toBeTruthy();
     expect(exportList.getByRole('link', { name: /WIF/ }).getAttribute('href')).toBe('/api/drafts/7/export.wif');
     expect(exportList.getByRole('link', { name: /JSON/ }).getAttribute('href')).toBe('/api/drafts/7/export.json');
@@ -92,6 +93,7 @@ describe('print links', () => {
     threadingAbove: fc.boolean(),
     treadlingRight: fc.boolean(),
     shaftsFromBottom: fc.boolean(),
+    endOneRight: fc.boolean(),
     numberEvery: fc.constantFrom(4 as const, 8 as const, 10 as const),
     lists: fc.subarray([...loomLists]),
     workingOrder: fc.record({
@@ -115,13 +117,13 @@ describe('print links', () => {
     );
   });
 
-  it('maps the editor arrangement to the print words and back without loss', () => {
+  it('maps the draft arrangement to the print words without loss', () => {
     fc.assert(
-      fc.property(fc.boolean(), fc.boolean(), fc.boolean(), (threadingBelow, treadlingLeft, shaftsFromTop) => {
-        const p = printArrangement({ threadingBelow, treadlingLeft, shaftsFromTop });
-        expect([p.threadingAbove, p.treadlingRight, p.shaftsFromBottom]).toEqual([!threadingBelow, !treadlingLeft, !shaftsFromTop]);
+      fc.property(fc.boolean(), fc.boolean(), fc.boolean(), fc.boolean(), (above, right, bottom, endRight) => {
+        const p = printArrangement({ threading: above ? 'above' : 'below', treadling: right ? 'right' : 'left', shaftOne: bottom ? 'bottom' : 'top', endOne: endRight ? 'right' : 'left' });
+        expect([p.threadingAbove, p.treadlingRight, p.shaftsFromBottom, p.endOneRight]).toEqual([above, right, bottom, endRight]);
         const url = new URL(pngUrl('/x', 'structure', 2, p), 'http://localhost');
-        expect(drawdownPngQuerySchema.parse(Object.fromEntries(url.searchParams))).toMatchObject({ threadingAbove: p.threadingAbove, treadlingRight: p.treadlingRight });
+        expect(drawdownPngQuerySchema.parse(Object.fromEntries(url.searchParams))).toMatchObject({ threadingAbove: p.threadingAbove, endOneRight: p.endOneRight });
       }),
     );
   });

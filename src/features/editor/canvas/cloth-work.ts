@@ -1,5 +1,5 @@
 import type { YarnSource } from '../../../../shared/plan';
-import { cellPictureSize, countByKind, findChecks, isLayered, renderCells, renderThreads, threadPictureSize, type CheckKind, type Draft } from '../../../../shared/weave';
+import { arrangementOf, cellPictureSize, countByKind, findChecks, isLayered, renderCells, renderThreads, threadPictureSize, type CheckKind, type Draft } from '../../../../shared/weave';
 import type { ClothView } from '../store/editor';
 import { createDerived, type Derived } from './derived';
 import { paintFloats, paintLayerMap, paintStructure } from './paint';
@@ -109,6 +109,8 @@ function viewSource(view: ClothView, draft: Draft, derived: Derived, floatLimit:
   const { ends, picks } = dd;
   if (ends === 0 || picks === 0) return null;
   if ((view === 'front' || view === 'back' || view === 'layers') && !isLayered(draft)) return null;
+  // The cloth seen as the draft is laid out: end 1 on the side its arrangement names.
+  const endOneRight = arrangementOf(draft).endOne === 'right';
   if (view === 'colour' || view === 'front' || view === 'back') {
     const sizes = derived.sizes(draft);
     const face = view;
@@ -119,13 +121,14 @@ function viewSource(view: ClothView, draft: Draft, derived: Derived, floatLimit:
       pixelsPerInch: (zoom) => zoom * sizes.endsPerInch,
       threads: { endsPerInch: sizes.endsPerInch, picksPerInch: sizes.picksPerInch, warpSource: sizes.warpSource, weftSource: sizes.weftSource },
       draw: (zoom, window) =>
-        words(renderThreads({ draft, drawdown: dd, layers, sizes }, { face, pixelsPerInch: zoom * sizes.endsPerInch, repeats, window }).rgba),
+        words(renderThreads({ draft, drawdown: dd, layers, sizes }, { face, pixelsPerInch: zoom * sizes.endsPerInch, repeats, window, endOneRight }).rgba),
     };
   }
   const cells = new Uint32Array(ends * picks);
   if (view === 'structure') paintStructure(cells, dd);
   else if (view === 'floats') paintFloats(cells, dd, derived.floats(draft, floatLimit).overLimit);
   else paintLayerMap(cells, derived.layers(draft).top, ends);
+  if (endOneRight) for (let p = 0; p < picks; p++) cells.subarray(p * ends, (p + 1) * ends).reverse();
   return {
     size: (zoom) => cellPictureSize(ends, picks, zoom, repeats),
     fit: (w, h) => Math.min(w / (ends * repeats), h / (picks * repeats)),

@@ -1,5 +1,5 @@
 import type { CellBox } from './bitmap';
-import { regionOf, type Layout, type RegionId } from './layout';
+import { mirrorX, regionOf, type Layout, type RegionId } from './layout';
 
 /** A box on the stage, in stage pixels. */
 export interface StageRect {
@@ -45,11 +45,13 @@ export function changedRects(
     if (!r) continue;
     const sx = r.scrollsX ? scrollX : 0;
     const sy = r.scrollsY ? scrollY : 0;
-    const left = Math.max(r.x - 1, r.x + box.x0 * cell - sx - 1);
+    let left = Math.max(r.x - 1, r.x + box.x0 * cell - sx - 1);
     const top = Math.max(r.y - 1, r.y + box.y0 * cell - sy - 1);
-    const right = Math.min(r.x + r.width + 1, r.x + (box.x1 + 1) * cell - sx + 1);
+    let right = Math.min(r.x + r.width + 1, r.x + (box.x1 + 1) * cell - sx + 1);
     const bottom = Math.min(r.y + r.height + 1, r.y + (box.y1 + 1) * cell - sy + 1);
     if (right <= left || bottom <= top) continue;
+    // Mirrored grids (end 1 on the right): the same box, reflected in the ends' band.
+    if (layout.mirrored && r.scrollsX) [left, right] = [mirrorX(layout, right), mirrorX(layout, left)];
     const x = Math.floor(left * pixelRatio) / pixelRatio;
     const y = Math.floor(top * pixelRatio) / pixelRatio;
     let rect: StageRect = { x, y, width: Math.ceil(right * pixelRatio) / pixelRatio - x, height: Math.ceil(bottom * pixelRatio) / pixelRatio - y };

@@ -1,12 +1,39 @@
-import type { Draft } from '../../../../shared/weave';
+import { arrangementOf, type Draft, type DraftArrangement } from '../../../../shared/weave';
 import type { GridId } from '../store/grids';
 
-/** Where the weaver wants the grids: the orientation settings of the editor. */
+/** Where the grids go, in the editor's words: the draft's own arrangement (see {@link arrangementFromDraft}). */
 export interface Arrangement {
   threadingBelow: boolean;
   treadlingLeft: boolean;
   /** Shaft 1 at the top row instead of the bottom. */
   shaftsFromTop: boolean;
+  /** End 1 at the right of the drawdown: the threading, colour and layer rows and the drawdown run right to left. */
+  endOneRight: boolean;
+}
+
+/** The editor's arrangement from the draft's. */
+export function arrangementFromDraft(draft: Draft): Arrangement {
+  const a = arrangementOf(draft);
+  return { threadingBelow: a.threading === 'below', treadlingLeft: a.treadling === 'left', shaftsFromTop: a.shaftOne === 'top', endOneRight: a.endOne === 'right' };
+}
+
+/** The draft's arrangement from the editor's. */
+export function draftArrangement(a: Arrangement): DraftArrangement {
+  return { endOne: a.endOneRight ? 'right' : 'left', threading: a.threadingBelow ? 'below' : 'above', treadling: a.treadlingLeft ? 'left' : 'right', shaftOne: a.shaftsFromTop ? 'top' : 'bottom' };
+}
+
+/**
+ * Where a stage x lands when end 1 is on the right: the ends' grids are mirrored inside their
+ * common band (the drawdown's columns), so painting and pointing both go through this. Its own inverse.
+ */
+export function mirrorX(layout: Layout, x: number): number {
+  const band = layout.endRuler;
+  return 2 * band.x + band.width - x;
+}
+
+/** True for the stage x inside the ends' band (where mirroring applies). */
+export function inEndBand(layout: Layout, x: number): boolean {
+  return x >= layout.endRuler.x && x < layout.endRuler.x + layout.endRuler.width;
 }
 
 export type RegionId = GridId | 'drawdown';
@@ -30,6 +57,8 @@ export interface Layout {
   /** The rulers: a strip of end numbers and a strip of pick numbers. */
   endRuler: { x: number; y: number; width: number; height: number };
   pickRuler: { x: number; y: number; width: number; height: number };
+  /** End 1 on the right: the grids that scroll across are drawn mirrored in their band ({@link mirrorX}). */
+  mirrored: boolean;
   /** Largest scroll offsets in pixels. */
   maxScrollX: number;
   maxScrollY: number;
@@ -104,6 +133,7 @@ export function computeLayout(
     regions,
     endRuler: { x: colX.dd, y: rowY.ruler, width: ddW, height: RULER_HEIGHT },
     pickRuler: { x: colX.ruler, y: rowY.dd, width: RULER_WIDTH, height: ddH },
+    mirrored: arrangement.endOneRight,
     maxScrollX: Math.max(0, endCols * cell - ddW),
     maxScrollY: Math.max(0, pickRows * cell - ddH),
     width: x,
@@ -179,7 +209,8 @@ export function refAt(grid: RegionId, col: number, row: number, shafts: number, 
 }
 
 /** The cell under a stage point, or null outside every grid. */
-export function cellAt(layout: Layout, px: number, py: number, scrollX: number, scrollY: number, shafts: number, fromTop: boolean): CellRef | null {
+export function cellAt(layout: Layout, stageX: number, py: number, scrollX: number, scrollY: number, shafts: number, fromTop: boolean): CellRef | null {
+  const px = layout.mirrored && inEndBand(layout, stageX) ? mirrorX(layout, stageX) : stageX;
   const r = regionAt(layout, px, py);
   if (!r) return null;
   const col = Math.floor((px - r.x + (r.scrollsX ? scrollX : 0)) / layout.cell);
@@ -190,6 +221,12 @@ export function cellAt(layout: Layout, px: number, py: number, scrollX: number, 
 
 export function regionAt(layout: Layout, px: number, py: number): Region | null {
   return layout.regions.find((r) => px >= r.x && py >= r.y && px < r.x + r.width && py < r.y + r.height) ?? null;
+}
+
+/** The stage x of the left edge of a column of a region, scrolled, mirrored when end 1 is on the right. */
+export function columnX(layout: Layout, r: Region, col: number, scrollX: number): number {
+  const x = r.x + col * layout.cell - (r.scrollsX ? scrollX : 0);
+  return layout.mirrored && r.scrollsX ? mirrorX(layout, x + layout.cell) : x;
 }
 
 /** The region of a grid, if the layout shows it. */

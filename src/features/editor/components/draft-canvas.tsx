@@ -4,7 +4,7 @@ import { Group, Image as KonvaImage, Layer, Rect, Shape, Stage } from 'react-kon
 import type { Draft } from '../../../../shared/weave';
 import { changedRects, type StageRect } from '../canvas/damage';
 import { DraftPainter } from '../canvas/draft-painter';
-import { cellAt, cellPosition, computeLayout, regionOf, type Layout, type Region } from '../canvas/layout';
+import { cellAt, cellPosition, columnX, computeLayout, regionOf, type Layout, type Region } from '../canvas/layout';
 import { useStore } from '../store/create-store';
 import type { Editor, GridCell, ViewState } from '../store/editor';
 import type { RegionId } from '../canvas/layout';
@@ -192,7 +192,8 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
         return;
       }
       const { dx, dy } = wheelPixels(e, stage);
-      editor.setView(scrolledBy(shown, v, dx, dy));
+      // Mirrored, a swipe to the left brings the higher ends (on the left) into view.
+      editor.setView(scrolledBy(shown, v, shown.mirrored ? -dx : dx, dy));
     };
     el.addEventListener('wheel', onWheel, { passive: false });
     return () => el.removeEventListener('wheel', onWheel);
@@ -234,7 +235,7 @@ export function DraftCanvas({ readOnly = false }: { readOnly?: boolean }) {
     if (pan.current) {
       const p = pan.current;
       editor.setView({
-        scrollX: Math.max(0, Math.min(layout.maxScrollX, p.sx - (e.clientX - p.x))),
+        scrollX: Math.max(0, Math.min(layout.maxScrollX, p.sx - (layout.mirrored ? -1 : 1) * (e.clientX - p.x))),
         scrollY: Math.max(0, Math.min(layout.maxScrollY, p.sy - (e.clientY - p.y))),
       });
       return;
@@ -343,15 +344,18 @@ const StaticLayer = memo(function StaticLayer({ layerRef, layout, painter, scrol
         if (c1 <= c0 || r1 <= r0) return null;
         return (
           <Group key={r.id} clipX={r.x} clipY={r.y} clipWidth={r.width} clipHeight={r.height}>
-            <KonvaImage
-              image={b.canvas}
-              crop={{ x: c0, y: r0, width: c1 - c0, height: r1 - r0 }}
-              x={r.x + c0 * cell - sx}
-              y={r.y + r0 * cell - sy}
-              width={(c1 - c0) * cell}
-              height={(r1 - r0) * cell}
-              perfectDrawEnabled={false}
-            />
+            {/* End 1 on the right: the ends' grids are drawn reflected in their band. */}
+            <Group {...(layout.mirrored && r.scrollsX ? { scaleX: -1, x: 2 * layout.endRuler.x + layout.endRuler.width } : {})}>
+              <KonvaImage
+                image={b.canvas}
+                crop={{ x: c0, y: r0, width: c1 - c0, height: r1 - r0 }}
+                x={r.x + c0 * cell - sx}
+                y={r.y + r0 * cell - sy}
+                width={(c1 - c0) * cell}
+                height={(r1 - r0) * cell}
+                perfectDrawEnabled={false}
+              />
+            </Group>
           </Group>
         );
       })}
@@ -379,6 +383,10 @@ function drawLinesAndRulers(g: CanvasRenderingContext2D, layout: Layout, scrollX
     g.beginPath();
     g.rect(r.x, r.y, r.width, r.height);
     g.clip();
+    if (layout.mirrored && r.scrollsX) {
+      g.translate(2 * layout.endRuler.x + layout.endRuler.width, 0);
+      g.scale(-1, 1);
+    }
     for (const strong of [false, true]) {
       // Thin lines only when cells are big enough to tell apart; ruler lines always.
       if (!strong && cell < 5) continue;
@@ -411,7 +419,7 @@ function drawLinesAndRulers(g: CanvasRenderingContext2D, layout: Layout, scrollX
   // Numbers need room: skip steps until labels are far enough apart (28 px across, 14 px down).
   const er = layout.endRuler;
   drawNumbers(g, { x: er.x - 20, y: er.y, width: er.width + 40, height: er.height }, er.width, scrollX, cell, step, 28, (n, at) =>
-    g.fillText(String(n), er.x + at, er.y + er.height / 2),
+    g.fillText(String(n), layout.mirrored ? er.x + er.width - at : er.x + at, er.y + er.height / 2),
   );
   const pr = layout.pickRuler;
   drawNumbers(g, pr, pr.height, scrollY, cell, step, 14, (n, at) => g.fillText(String(n), pr.x + pr.width / 2, pr.y + at));
@@ -440,7 +448,7 @@ function drawNumbers(
 
 function cellBox(layout: Layout, r: Region, col: number, row: number, v: Pick<ViewState, 'scrollX' | 'scrollY'>) {
   return {
-    x: r.x + col * layout.cell - (r.scrollsX ? v.scrollX : 0),
+    x: columnX(layout, r, col, v.scrollX),
     y: r.y + row * layout.cell - (r.scrollsY ? v.scrollY : 0),
   };
 }
@@ -468,7 +476,8 @@ function OverlayLayer({ editor, layout }: { editor: Editor; layout: Layout }) {
       const r0 = Math.min(selection.from.row, selection.to.row);
       const c1 = Math.max(selection.from.col, selection.to.col);
       const r1 = Math.max(selection.from.row, selection.to.row);
-      const p = cellBox(layout, r, c0, r0, scroll);
+      // Mirrored, the last column of the run is the leftmost.
+      const p = cellBox(layout, r, layout.mirrored && r.scrollsX ? c1 : c0, r0, scroll);
       shapes.push(
         clipTo(r, 'sel', <Rect x={p.x} y={p.y} width={(c1 - c0 + 1) * cell} height={(r1 - r0 + 1) * cell} fill={SELECTED} stroke={ACCENT} strokeWidth={1} dash={[4, 3]} />),
       );

@@ -172,15 +172,19 @@ export function Toolbar({ readOnly = false, onShowKeys }: { readOnly?: boolean; 
             </select>
           </label>
           <label className="flex items-center gap-1 text-xs">
-            <input type="checkbox" checked={!arrangement.threadingBelow} onChange={(e) => editor.setView({ arrangement: { ...arrangement, threadingBelow: !e.target.checked } })} />
+            <input type="checkbox" checked={arrangement.endOneRight} onChange={(e) => editor.arrange({ endOneRight: e.target.checked })} />
+            {ARRANGEMENT_NAMES.endOneRight}
+          </label>
+          <label className="flex items-center gap-1 text-xs">
+            <input type="checkbox" checked={!arrangement.threadingBelow} onChange={(e) => editor.arrange({ threadingBelow: !e.target.checked })} />
             {ARRANGEMENT_NAMES.threadingAbove}
           </label>
           <label className="flex items-center gap-1 text-xs">
-            <input type="checkbox" checked={!arrangement.treadlingLeft} onChange={(e) => editor.setView({ arrangement: { ...arrangement, treadlingLeft: !e.target.checked } })} />
+            <input type="checkbox" checked={!arrangement.treadlingLeft} onChange={(e) => editor.arrange({ treadlingLeft: !e.target.checked })} />
             {ARRANGEMENT_NAMES.treadlingRight}
           </label>
           <label className="flex items-center gap-1 text-xs">
-            <input type="checkbox" checked={!arrangement.shaftsFromTop} onChange={(e) => editor.setView({ arrangement: { ...arrangement, shaftsFromTop: !e.target.checked } })} />
+            <input type="checkbox" checked={!arrangement.shaftsFromTop} onChange={(e) => editor.arrange({ shaftsFromTop: !e.target.checked })} />
             {ARRANGEMENT_NAMES.shaftOneAtBottom}
           </label>
           <button type="button" className={btn} onClick={onShowKeys} title="Keys (?)">

@@ -58,7 +58,10 @@ const DEFINITIONS = {
     match: (e) => e.key in ARROWS && !mod(e),
     run: (ed, e = noKey) => {
       const [dc, dr] = ARROWS[e.key] ?? [0, 0];
-      ed.moveCursor(dc, dr, e.shiftKey);
+      // With end 1 on the right, the ends' grids run right to left: the arrow moves the way it points.
+      const v = ed.view.get();
+      const across = v.arrangement.endOneRight && ['threading', 'warpColors', 'warpLayers'].includes(v.cursor.grid) ? -dc : dc;
+      ed.moveCursor(across, dr, e.shiftKey);
     },
   },
   mark: {

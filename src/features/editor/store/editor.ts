@@ -1,9 +1,10 @@
 import type { Draft, RunChange } from '../../../../shared/weave';
 import { CLOTH_VIEW_NAMES, NAMES } from '../../../../shared/words';
-import { GROW_MARGIN, refAt, type Arrangement } from '../canvas/layout';
+import { arrangementFromDraft, draftArrangement, GROW_MARGIN, refAt, type Arrangement } from '../canvas/layout';
 import { createStore, type Store } from './create-store';
 import { createDraftStore, type DraftStore, type EditGuard } from './draft-store';
 import {
+  arrangeEdit,
   copyRange,
   deleteThreadsEdit,
   DRAW_NAMES,
@@ -96,6 +97,8 @@ export interface Editor {
   /** Shafts from the top or bottom: the view setting, needed to turn rows into shafts. */
   refOf(cell: GridCell): { index: number; value: number };
   setView(patch: Partial<ViewState>): void;
+  /** Changes the draft's arrangement (an edit, undone like any other). */
+  arrange(patch: Partial<Arrangement>): void;
   pointerDown(cell: GridCell, options?: { extend?: boolean; add?: boolean }): void;
   pointerMove(cell: GridCell): void;
   pointerUp(): void;
@@ -133,7 +136,7 @@ export const DEFAULT_VIEW: ViewState = {
   layer: 2,
   layerRows: false,
   cell: 14,
-  arrangement: { threadingBelow: false, treadlingLeft: false, shaftsFromTop: false },
+  arrangement: { threadingBelow: false, treadlingLeft: false, shaftsFromTop: false, endOneRight: false },
   rulerStep: 4,
   drawdownView: 'colour',
   panels: ['structure', 'floats'],
@@ -204,8 +207,14 @@ const browserConfirm = (question: string) => typeof window === 'undefined' || ty
  */
 export function createEditor(draft: Draft, initialView: Partial<ViewState> = {}, { confirm = browserConfirm }: EditorOptions = {}): Editor {
   const doc = createDraftStore(draft, removalGuard(confirm));
-  const view = createStore<ViewState>({ ...DEFAULT_VIEW, ...initialView });
+  const view = createStore<ViewState>({ ...DEFAULT_VIEW, ...initialView, arrangement: arrangementFromDraft(draft) });
   const setView = (patch: Partial<ViewState>) => view.set((v) => ({ ...v, ...patch }));
+  // The arrangement is the draft's: the view follows it through loads, undo and redo.
+  doc.subscribe(() => {
+    const a = arrangementFromDraft(doc.get().draft);
+    const v = view.get().arrangement;
+    if (a.threadingBelow !== v.threadingBelow || a.treadlingLeft !== v.treadlingLeft || a.shaftsFromTop !== v.shaftsFromTop || a.endOneRight !== v.endOneRight) setView({ arrangement: a });
+  });
   const say = (message: string) => setView({ message });
 
   const refOf = (c: GridCell) => {
@@ -433,6 +442,10 @@ export function createEditor(draft: Draft, initialView: Partial<ViewState> = {},
       doc.apply(toTreadlingEdit, { treadles });
       setView({ cursor: { grid: 'treadling', col: 0, row: 0 }, selection: null, message: `Picks now follow tie-up and treadling on ${treadles} treadles.` });
       return null;
+    },
+    arrange(patch) {
+      const next = { ...view.get().arrangement, ...patch };
+      doc.apply(arrangeEdit, draftArrangement(next));
     },
     undo() {
       const label = doc.get().undoLabel;

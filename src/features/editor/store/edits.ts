@@ -1,5 +1,5 @@
 import { isDraft, original, produce, type Draft as ImmerDraft } from 'immer';
-import type { Draft } from '../../../../shared/weave';
+import type { Draft, DraftArrangement } from '../../../../shared/weave';
 import {
   alternateLayers,
   brokenDraw,
@@ -592,3 +592,8 @@ export function tryTreadling(draft: Draft, treadles: number): { ok: true } | { o
 
 /** Replaces the whole draft (an expanded profile, say) as one undoable edit. */
 export const replaceDraft = wholeEdit<{ draft: Draft }>('Replace the draft', (_draft, { draft }) => draft);
+
+/** Sets how the draft is laid out (end 1's side, threading, treadling, shaft 1): the arrangement every view and print follows. */
+export const arrangeEdit = edit<DraftArrangement>('Change the arrangement', (d, a) => {
+  d.arrangement = { ...a };
+});

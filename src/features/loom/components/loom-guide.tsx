@@ -7,7 +7,7 @@ import { parseDraft } from '../../../../shared/weave/draft';
 import type { Draft } from '../../../../shared/weave/types';
 import type { DraftDetail } from '../../../types/api';
 import { afterStep, breakDue, restedActivity } from '../break-reminder';
-import { endRange, loomOutputs, pickAt, sharedDents, stepCount, threadingGroupCheck } from '../loom-steps';
+import { endRange, firstEndAt, groupOfEnd, loomOutputs, pickAt, sharedDents, stepCount, threadingGroupCheck } from '../loom-steps';
 import { readLoomCache, writeLoomCache } from '../offline-store';
 import { usePlace, type SaveState } from '../use-place';
 import { ResultsSection } from './results-section';
@@ -59,14 +59,15 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
   const count = stepCount(outputs, list);
   const position = Math.min(Math.max(place.positions[list] ?? 0, 0), Math.max(count - 1, 0));
   const [activity, setActivity] = useState(restedActivity);
-  const [lastDone, setLastDone] = useState<number | null>(null);
+  // The working order is chosen once, before the first step; after that it folds away (a tap opens it).
+  const [orderOpen, setOrderOpen] = useState(() => Date.parse(place.movedAt) <= 0);
 
   const go = (to: number) => {
     if (to < 0 || to >= count || to === position) return;
     if (to > position) {
       setActivity((a) => afterStep(a, Date.now()));
-      setLastDone(position);
-    } else setLastDone(null);
+    }
+    setOrderOpen(false);
     move(list, to, place.settings);
   };
   const forward = () => go(position + 1);
@@ -79,10 +80,11 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
       const t = e.target as HTMLElement | null;
       if (t && (t.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(t.tagName))) return;
       const onButton = t?.tagName === 'BUTTON' || t?.tagName === 'A';
-      if (e.key === 'ArrowRight' || (e.key === ' ' && !onButton)) {
+      // Foot switches and page turners send Page Down / Page Up (or Enter) as often as arrows.
+      if (e.key === 'ArrowRight' || e.key === 'PageDown' || ((e.key === ' ' || e.key === 'Enter') && !onButton)) {
         e.preventDefault();
         step(1);
-      } else if (e.key === 'ArrowLeft' || (e.key === 'Backspace' && !onButton)) {
+      } else if (e.key === 'ArrowLeft' || e.key === 'PageUp' || (e.key === 'Backspace' && !onButton)) {
         e.preventDefault();
         step(-1);
       }
@@ -91,9 +93,12 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
     return () => window.removeEventListener('keydown', onKey);
   }, []);
 
+  // Turning round (side or direction) keeps the weaver on the same end, wherever its group now falls.
   const setOrder = (patch: Partial<WorkingOrder>) => {
-    setLastDone(null);
-    move(list, position, { ...place.settings, ...patch });
+    const settings = { ...place.settings, ...patch };
+    const end = firstEndAt(outputs, list, position);
+    const to = end === undefined ? position : groupOfEnd(loomOutputs(draft, plan, settings, tieOnEnds), list, end) ?? position;
+    move(list, to, settings);
   };
   const unitWord = plan.unit === 'inch' ? 'inch' : 'cm';
   const stepWord = list === 'weaving' ? 'pick' : 'group';
@@ -109,10 +114,12 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
         {!savedPlan && <p className="text-sm">No plan is saved for this draft yet, so the guide uses a common-practice plan. Save a plan first for your own widths and reed.</p>}
       </div>
 
-      <Choice legend="List" value={list} options={Object.entries(LIST_LABELS) as [LoomList, string][]} onChange={(l) => { setLastDone(null); move(l, place.positions[l] ?? 0, place.settings); }} />
+      <Choice legend="List" value={list} options={Object.entries(LIST_LABELS) as [LoomList, string][]} onChange={(l) => move(l, place.positions[l] ?? 0, place.settings)} />
 
-      <details className="rounded-md border border-line bg-surface p-3" open={list !== 'weaving'}>
-        <summary className="cursor-pointer text-sm font-medium">Working order</summary>
+      <details className="rounded-md border border-line bg-surface p-3" open={orderOpen} onToggle={(e) => setOrderOpen(e.currentTarget.open)}>
+        <summary className="min-h-8 cursor-pointer text-sm font-medium">
+          Working order: from the {place.settings.side}, {place.settings.direction.replace(/-/g, ' ')}, shaft 1 {place.settings.shaftNumbering === 'near' ? 'nearest me' : 'farthest from me'}
+        </summary>
         <div className="mt-2 flex flex-col gap-3">
           <Choice legend="Working from" value={place.settings.side} options={[['front', 'Front of the loom'], ['back', 'Back of the loom']]} onChange={(side) => setOrder({ side })} />
           <Choice legend="Direction" value={place.settings.direction} options={[['right-to-left', 'Right to left'], ['left-to-right', 'Left to right']]} onChange={(direction) => setOrder({ direction })} />
@@ -166,7 +173,10 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
             >
               <div className="h-full bg-accent" style={{ width: `${((position + 1) / count) * 100}%` }} />
             </div>
-            <StepBody list={list} position={position} outputs={outputs} draft={draft} unitWord={unitWord} />
+            <StepBody list={list} position={position} outputs={outputs} draft={draft} unitWord={unitWord} order={place.settings} />
+            {(list === 'threading' || list === 'sleying') && (
+              <QuickCheck list={list} index={position} outputs={outputs} draft={draft} order={place.settings} />
+            )}
           </>
         )}
         <div className="flex flex-wrap gap-3">
@@ -183,12 +193,9 @@ export function LoomGuide({ detail, savedPlan, serverPlace, offline }: {
             {list === 'weaving' ? 'Next pick' : 'Next group'}<span aria-hidden="true"> →</span>
           </button>
         </div>
-        <p className="text-xs text-muted">Keys: space or → for the next {stepWord}, ← or backspace to go back.</p>
+        <p className="text-xs text-muted">Keys: space, Enter, Page Down or → for the next {stepWord}; Page Up, ← or backspace to go back.</p>
       </section>
 
-      {lastDone !== null && lastDone < count && (list === 'threading' || list === 'sleying') && (
-        <QuickCheck list={list} index={lastDone} outputs={outputs} draft={draft} order={place.settings} />
-      )}
 
       <ResultsSection draftId={detail.id} unit={plan.unit} />
     </div>
@@ -199,24 +206,31 @@ function Ends({ children }: { children: ReactNode }) {
   return <ol className="flex flex-col divide-y divide-line text-lg">{children}</ol>;
 }
 
-function StepBody({ list, position, outputs, draft, unitWord }: {
-  list: LoomList; position: number; outputs: ReturnType<typeof loomOutputs>; draft: Draft; unitWord: string;
+function StepBody({ list, position, outputs, draft, unitWord, order }: {
+  list: LoomList; position: number; outputs: ReturnType<typeof loomOutputs>; draft: Draft; unitWord: string; order: WorkingOrder;
 }) {
   const layered = draft.warpLayers.some((l) => l > 1);
   if (list === 'threading') {
     const group = outputs.threading[position];
+    // Ends the quick check flags carry a mark and words in the list itself, not a colour alone.
+    const flagged = new Set(threadingGroupCheck(draft, group, order).flatMap((c) => c.odd));
     return (
-      <Ends>
+      <ol className="grid grid-cols-[repeat(auto-fill,minmax(10.5rem,1fr))] gap-1 text-base">
         {group.items.map((s) => (
-          <li key={s.end} className="flex flex-wrap items-center gap-x-4 gap-y-1 py-2">
-            <span className="w-24 font-semibold tabular-nums">End {s.end}</span>
-            <span className="w-40">{s.shafts.length === 0 ? 'no shaft' : `Shaft ${s.shafts.join(' + ')}`}</span>
-            <ColourSwatch draft={draft} color={s.color} />
-            {layered && <span>layer {s.layer}</span>}
-            {s.selvedge && <span>selvedge</span>}
+          <li key={s.end} className={`flex flex-col rounded border px-2 py-1 ${flagged.has(s.end) ? 'border-2 border-danger' : 'border-line'}`}>
+            <span className="font-semibold tabular-nums">
+              {flagged.has(s.end) && <span aria-hidden="true">⚠ </span>}End {s.end}: {s.shafts.length === 0 ? 'no shaft' : `shaft ${s.shafts.join(' + ')}`}
+              {s.dent !== undefined && <span className="font-normal text-muted"> · dent {s.dent}</span>}
+            </span>
+            <span className="flex flex-wrap items-center gap-x-2 text-sm">
+              <ColourSwatch draft={draft} color={s.color} />
+              {layered && <span>layer {s.layer}</span>}
+              {s.selvedge && <span>selvedge</span>}
+              {flagged.has(s.end) && <strong>check this end</strong>}
+            </span>
           </li>
         ))}
-      </Ends>
+      </ol>
     );
   }
   if (list === 'sleying') {

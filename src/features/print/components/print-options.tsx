@@ -13,7 +13,7 @@ export interface PrintOptionsProps {
   picks: number;
   /** Woven in more than one layer: the front and back faces can be exported. */
   layered: boolean;
-  /** The arrangement the weaver uses in the editor, to start from. */
+  /** The draft's own arrangement, to start from. */
   arrangement?: PrintArrangement;
   /** Also offer the draft's WIF and JSON files (not through a public link). */
   files?: boolean;
@@ -61,6 +61,7 @@ export function PrintOptions({ base, ends, picks, layered, arrangement, files = 
     threadingAbove: arrangement?.threadingAbove ?? true,
     treadlingRight: arrangement?.treadlingRight ?? true,
     shaftsFromBottom: arrangement?.shaftsFromBottom ?? true,
+    endOneRight: arrangement?.endOneRight ?? false,
     numberEvery: 4,
     lists: [...loomLists],
     workingOrder: { side: 'front', direction: 'right-to-left', shaftNumbering: 'near' },
@@ -113,6 +114,8 @@ export function PrintOptions({ base, ends, picks, layered, arrangement, files = 
         <Check label={ARRANGEMENT_NAMES.threadingAbove} checked={choices.threadingAbove} onChange={(v) => set({ threadingAbove: v })} />
         <Check label={ARRANGEMENT_NAMES.treadlingRight} checked={choices.treadlingRight} onChange={(v) => set({ treadlingRight: v })} />
         <Check label={ARRANGEMENT_NAMES.shaftOneAtBottom} checked={choices.shaftsFromBottom} onChange={(v) => set({ shaftsFromBottom: v })} />
+        <Check label={ARRANGEMENT_NAMES.endOneRight} checked={choices.endOneRight} onChange={(v) => set({ endOneRight: v })} />
+        <p className="text-xs text-muted">These start from the draft&apos;s own arrangement, as the editor shows it.</p>
       </fieldset>
 
       <fieldset className="flex flex-col gap-1">
