@@ -47,7 +47,8 @@ describe('At the loom', () => {
     await page.reload();
     await page.getByText(/^Threading: group 4 of \d+$/).waitFor();
     expect(await heading.textContent()).toBe(before);
-    expect(await page.getByRole('button', { name: 'Back of the loom' }).getAttribute('aria-pressed')).toBe('true');
+    // Once work has started the working order is folded away, saying what it is.
+    await page.getByText(/^Working order: from the back, right to left/).waitFor();
     expect(app.browser.errors).toEqual([]);
 
     // At a loom with no connection: the app itself comes from the service worker's cache, and the
