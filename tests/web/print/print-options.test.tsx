@@ -26,7 +26,7 @@ describe('PrintOptions', () => {
 
     fireEvent.change(screen.getByLabelText('Paper'), { target: { value: 'letter' } });
     fireEvent.change(screen.getByLabelText('Orientation'), { target: { value: 'landscape' } });
-    fireEvent.change(screen.getByLabelText('Numbers on every'), { target: { value: '10' } });
+    fireEvent.change(screen.getByLabelText('Numbers every'), { target: { value: '10' } });
     fireEvent.click(screen.getByLabelText('Threading above the drawdown'));
     fireEvent.click(screen.getByLabelText('Treadling on the right'));
     fireEvent.click(screen.getByLabelText('End 1 on the right'));

@@ -1,4 +1,4 @@
-import { ARRANGEMENT_NAMES, CLOTH_VIEW_NAMES, LOOM_LIST_NAMES, SHAFT_NUMBERING_NAMES } from '../../../../shared/words';
+import { ARRANGEMENT_NAMES, CLOTH_VIEW_NAMES, LOOM_LIST_NAMES, NAMES, SHAFT_NUMBERING_NAMES } from '../../../../shared/words';
 import { useId, useState } from 'react';
 import type { PngViewName } from '../../../../shared/api/exports';
 import { loomLists, type LoomList, type WorkingOrder } from '../../../../shared/api/plans';
@@ -85,7 +85,7 @@ export function PrintOptions({ base, ends, picks, layered, arrangement, files = 
           <option value="portrait">Portrait</option>
           <option value="landscape">Landscape</option>
         </SelectField>
-        <SelectField label="Numbers on every" value={String(choices.numberEvery)} onChange={(e) => set({ numberEvery: Number(e.target.value) as PrintChoices['numberEvery'] })}>
+        <SelectField label={NAMES.numbersEvery} value={String(choices.numberEvery)} onChange={(e) => set({ numberEvery: Number(e.target.value) as PrintChoices['numberEvery'] })}>
           <option value="4">4th end and pick</option>
           <option value="8">8th end and pick</option>
           <option value="10">10th end and pick</option>
