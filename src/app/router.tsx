@@ -26,6 +26,7 @@ export function createRoutes(): RouteObject[] {
           children: [
             { index: true, element: <Navigate to="/drafts" replace /> },
             { path: '/drafts', lazy: { Component: async () => (await import('./routes/drafts')).DraftsRoute } },
+            { path: '/bin', lazy: { Component: async () => (await import('./routes/bin')).BinRoute } },
             { path: '/drafts/new', lazy: { Component: async () => (await import('./routes/new-draft')).NewDraftRoute } },
             {
               // The draft workspace: one header, and each part of the draft a section with its own address.

@@ -82,4 +82,32 @@ describe('a draft\'s details', () => {
     await page.getByText('Read only: you can look, not change.').waitFor();
     expect(await page.getByRole('link', { name: 'Edit details' }).count()).toBe(0);
   });
+
+  it('Move to Bin asks first, takes the draft out of the library, and Restore brings it back as it was', async () => {
+    const { page, context } = app.browser;
+    await context.clearCookies();
+    await signIn(page, app.server, 'assistant@shedwright.test');
+    const id = await newDraft(page, 'Binned by mistake');
+    await section(page, 'Notes and photos').click();
+    const asked: string[] = [];
+    page.once('dialog', (d) => {
+      asked.push(d.message());
+      void d.accept();
+    });
+    await page.getByRole('button', { name: 'Move to Bin' }).click();
+    await page.waitForURL(/\/bin$/);
+    expect(asked).toHaveLength(1);
+    expect(asked[0]).toContain('Binned by mistake');
+    const row = page.getByRole('list', { name: 'Drafts in the Bin' }).getByRole('listitem').filter({ hasText: 'Binned by mistake' });
+    await row.waitFor();
+    expect(await row.textContent()).toMatch(/gone for good on/);
+    await screenshot(page, 'bin');
+    expect((await page.evaluate(async (draftId) => (await fetch(`/api/drafts/${draftId}`)).status, id))).toBe(404);
+
+    await row.getByRole('button', { name: 'Restore Binned by mistake' }).click();
+    await page.getByRole('status').getByRole('link', { name: 'Binned by mistake' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Binned by mistake' }).waitFor();
+    await page.goto(`${app.server.url}/drafts`);
+    await page.getByRole('link', { name: 'Binned by mistake' }).waitFor();
+  });
 });

@@ -1,6 +1,8 @@
 import { useState, type FormEvent } from 'react';
 import { MAX_NOTES_LENGTH, type Draft } from '../../../../shared/weave';
+import { useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
+import { useBinDraft } from '../../bin';
 import { ErrorNotice } from '../../../components/ui/error-notice';
 import { Field, SelectField } from '../../../components/ui/field';
 import { fieldErrorsOf } from '../../../lib/api-client';
@@ -37,6 +39,7 @@ export function DraftDetailsForm({ draft, document, studios }: DraftDetailsProps
         </dl>
       )}
       <NotesEditor key={draft.version} draft={draft} document={document} canEdit={canEdit} />
+      {draft.role === 'owner' && <MoveToBin draft={draft} />}
     </section>
   );
 }
@@ -118,6 +121,27 @@ function DetailsEditor({ draft, studios }: { draft: DraftDetail; studios: readon
         {update.isSuccess && <p role="status" className="text-sm">Details saved.</p>}
       </div>
     </form>
+  );
+}
+
+function MoveToBin({ draft }: { draft: DraftDetail }) {
+  const bin = useBinDraft();
+  const navigate = useNavigate();
+  return (
+    <div className="flex flex-col gap-2">
+      <h3 className="text-sm font-medium">Delete</h3>
+      <p className="text-sm text-muted">The draft goes to the Bin for 30 days, with its history, comments and photos; you can restore it from there until then.</p>
+      {bin.isError && <ErrorNotice title="Could not delete the draft" error={bin.error} />}
+      <div>
+        <Button variant="danger" busy={bin.isPending} busyLabel="Moving to the Bin…"
+          onClick={() => {
+            if (!window.confirm(`Move “${draft.name}” to the Bin? You can restore it from the Bin for 30 days.`)) return;
+            bin.mutate(draft.id, { onSuccess: () => navigate('/bin') });
+          }}>
+          Move to Bin
+        </Button>
+      </div>
+    </div>
   );
 }
 

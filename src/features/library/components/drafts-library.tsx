@@ -28,6 +28,9 @@ export function DraftsLibrary({ studios = [] }: { studios?: readonly { id: numbe
             New draft
           </Link>
           <ImportWifButton />
+          <Link to="/bin" className={buttonClasses('quiet')}>
+            Bin
+          </Link>
         </div>
         {drafts.data && (
           <p aria-live="polite" className="text-sm text-muted">
