@@ -1,4 +1,5 @@
 import type { CreateDraftBody, DraftListQuery, ForkBody, SaveDraftBody, UpdateDraftBody } from '../../shared/api';
+import { clothSett } from '../../shared/plan';
 import { toWif } from '../../shared/weave';
 import type { Ctx } from '../http/handler';
 import { versionDocument } from '../services/draft-documents';
@@ -8,6 +9,7 @@ import { draftThumbnail } from '../services/draft-thumbnails';
 import { binContents, binDraft, createFromBody, createFromDocument, forkDraft, lineage, restoreDraft, updateDraft } from '../services/draft-lifecycle';
 import { saveDraft, VersionConflict } from '../services/draft-versions';
 import { draftDetail, listDraftsJson } from '../services/drafts';
+import { getPlan } from '../services/plans';
 
 export async function list({ app, req, res, query }: Ctx<unknown, DraftListQuery, unknown>) {
   res.type('json').send(await listDraftsJson(app.models, req.user!.id, query));
@@ -71,10 +73,13 @@ export async function importWif({ app, req, res, body }: Ctx<{ studioId?: number
 }
 
 async function exported({ app, res, params, query }: Ctx<unknown, { version?: number }, { id: number }>, format: 'wif' | 'json') {
-  const [{ document }, row] = await Promise.all([
+  const [{ document: stored }, row, saved] = await Promise.all([
     versionDocument(app.models, params.id, query.version),
     app.models.Draft.findByPk(params.id, { attributes: ['name'] }),
+    getPlan(app.models, params.id),
   ]);
+  // One sett everywhere: with a saved plan, the file carries the plan's sett, as the print and the plan page do.
+  const document = saved.plan ? { ...stored, sett: clothSett(stored, saved.plan) } : stored;
   const name = row?.name ?? document.name;
   res.set('Content-Disposition', attachmentDisposition(name, format));
   if (format === 'wif') res.type('text/plain; charset=utf-8').send(toWif(document));

@@ -3,6 +3,7 @@ import { createServer, request as httpRequest, type IncomingMessage } from 'node
 import type { AddressInfo } from 'node:net';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { parse as parseIni } from 'ini';
 import { PDFParse } from 'pdf-parse';
 import type { Response } from 'supertest';
 import { defaultPlan } from '../../shared/plan';
@@ -86,6 +87,24 @@ describe('GET /api/drafts/:id/print.pdf', () => {
     const { text } = await readPdf(res.body as Buffer);
     expect(text).toContain('Reed and dents');
     for (const heading of ['Threading', 'Sleying', 'Tying on', 'Weaving: treadling']) expect(text).toContain(heading);
+  });
+
+  it('states one sett everywhere: the plan page, the PDF header and the WIF (read back by an INI parser) all carry the plan\'s', async () => {
+    const s = await scene();
+    const plan = { unit: 'inch', finishedWidth: 10, finishedLength: 20, pieces: 1, sett: 24, picksPerUnit: 22, warpYarn: { text: '8/2 cotton' }, weftYarn: { text: '8/2 cotton' } };
+    expect((await s.owner.send('put', `/api/drafts/${s.draftId}/plan`, plan)).status).toBe(200);
+    const { pages } = await readPdf((await fetchBinary(s.viewer, `/api/drafts/${s.draftId}/print.pdf`)).body as Buffer);
+    // Page 1's header and the plan page say the same sett, worded by settText.
+    expect(pages[0]).toContain('sett 24 ends and 22 picks per inch');
+    expect(pages.join('\n')).toMatch(/Sett 24 ends and 22 picks per inch/);
+    const wif = await s.viewer.get(`/api/drafts/${s.draftId}/export.wif`);
+    expect(wif.status).toBe(200);
+    // WIF 1.1: [WARP]/[WEFT] Spacing is the distance between threads in Units (the ini package reads it).
+    const ini = parseIni(wif.text) as Record<string, Record<string, string>>;
+    expect(ini.WARP.Units.toLowerCase()).toBe('inches');
+    expect(1 / Number(ini.WARP.Spacing)).toBeCloseTo(24, 6);
+    expect(ini.WEFT.Units.toLowerCase()).toBe('inches');
+    expect(1 / Number(ini.WEFT.Spacing)).toBeCloseTo(22, 6);
   });
 
   it.each([
