@@ -67,8 +67,8 @@ export async function draftLineage({ app, req, res, params }: Ctx<unknown, unkno
 }
 
 export async function importWif({ app, req, res, body }: Ctx<{ studioId?: number }, unknown, unknown>) {
-  const { draft: document, warnings } = await parseWifUpload(req.file);
-  const draft = await createFromDocument(app.models, req.user!.id, document, body.studioId, `Imported from ${req.file!.originalname}`);
+  const { draft: document, warnings, derived } = await parseWifUpload(req.file);
+  const draft = await createFromDocument(app.models, req.user!.id, document, body.studioId, `Imported from ${req.file!.originalname}`, derived);
   res.status(201).json({ draft, warnings });
 }
 

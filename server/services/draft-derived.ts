@@ -106,6 +106,9 @@ export function draftStats(draft: Draft): Pick<DraftAttributes, 'ends' | 'picks'
  * Every column computed from the document, written whenever the document changes. The thumbnail is
  * cleared, to be rendered when it is first asked for (services/draft-thumbnails).
  */
-export function derivedColumns(draft: Draft): Pick<DraftAttributes, 'ends' | 'picks' | 'shafts' | 'colors' | 'structure' | 'thumbnail'> {
+/** The columns kept beside a draft's document, worked out from it. */
+export type DerivedColumns = Pick<DraftAttributes, 'ends' | 'picks' | 'shafts' | 'colors' | 'structure' | 'thumbnail'>;
+
+export function derivedColumns(draft: Draft): DerivedColumns {
   return { ...draftStats(draft), structure: structureTags(draft), thumbnail: null };
 }

@@ -6,7 +6,8 @@ import { forbidden, HttpError, notFound } from '../http/errors';
 import type { Models } from '../models';
 import type { DraftRow } from '../models/draft';
 import { parseDocument, versionDocument } from './draft-documents';
-import { BIN_DAYS, binCutoff, createDraft, draftDetail, LARGE_COLUMNS, visibleDraftsWhere } from './drafts';
+import type { DerivedColumns } from './draft-derived';
+import { BIN_DAYS, binCutoff, createDraft, draftSummary, LARGE_COLUMNS, visibleDraftsWhere } from './drafts';
 import { studioRole } from './studios';
 
 /** Adding a draft to a studio takes the editor role there; a studio the user is not in does not exist for them. */
@@ -16,11 +17,6 @@ export async function checkStudioWriter(models: Models, userId: number, studioId
   if (!role) throw notFound('No such studio');
   if (roleRank(role) < roleRank('editor')) throw forbidden('Only editors and owners can add drafts to this studio');
   return studioId;
-}
-
-async function summaryOf(models: Models, row: DraftRow, userId: number): Promise<DraftSummary> {
-  const { document: _document, role: _role, ...summary } = await draftDetail(models, row.id, row.ownerId === userId ? 'owner' : 'editor');
-  return summary;
 }
 
 /** The first version from the New draft form's choices; a choice the loom cannot take is a 422 naming its field. */
@@ -46,14 +42,16 @@ export async function createFromBody(models: Models, userId: number, body: Creat
   const base = body.document === undefined ? startingDocument(body.name, body.start!) : parseDocument(body.document);
   const document: Draft = { ...base, name: body.name };
   const row = await createDraft(models, { ownerId: userId, studioId, document, tags: body.tags ?? [] });
-  return summaryOf(models, row, userId);
+  return draftSummary(models, row.id);
 }
 
 /** A draft read from a file: same checks as a new draft. */
-export async function createFromDocument(models: Models, userId: number, document: Draft, studioId: number | undefined, message: string) {
+export async function createFromDocument(
+  models: Models, userId: number, document: Draft, studioId: number | undefined, message: string, derived?: DerivedColumns,
+) {
   const target = await checkStudioWriter(models, userId, studioId);
-  const row = await createDraft(models, { ownerId: userId, studioId: target, document, tags: [], message });
-  return summaryOf(models, row, userId);
+  const row = await createDraft(models, { ownerId: userId, studioId: target, document, tags: [], message, derived });
+  return draftSummary(models, row.id);
 }
 
 /**
@@ -160,7 +158,7 @@ export async function forkDraft(models: Models, userId: number, sourceId: number
     message: `New colourway of “${from?.name ?? 'a draft'}” version ${source.version}`,
     parent: { draftId: sourceId, version: source.version },
   });
-  return summaryOf(models, row, userId);
+  return draftSummary(models, row.id);
 }
 
 const MAX_ANCESTORS = 100;

@@ -5,7 +5,7 @@ import type { Draft } from '../../shared/weave/types';
 import { notFound } from '../http/errors';
 import type { DraftRow } from '../models/draft';
 import type { Models } from '../models';
-import { derivedColumns } from './draft-derived';
+import { derivedColumns, type DerivedColumns } from './draft-derived';
 import { requireCloth } from './draft-documents';
 import { studioRole } from './studios';
 
@@ -27,10 +27,15 @@ export async function createDraft(
     message?: string;
     /** Set when the draft is a fork. */
     parent?: { draftId: number; version: number };
+    /** The document's columns, when they were worked out (and the cloth checked) off the event loop. */
+    derived?: DerivedColumns;
   },
 ): Promise<DraftRow> {
-  requireCloth(input.document);
-  const derived = derivedColumns(input.document);
+  let derived = input.derived;
+  if (!derived) {
+    requireCloth(input.document);
+    derived = derivedColumns(input.document);
+  }
   return models.Draft.sequelize!.transaction(async (transaction) => {
     const row = await models.Draft.create({
       ownerId: input.ownerId,
@@ -163,13 +168,26 @@ export async function draftRole(models: Models, userId: number, draftId: number,
 
 /** One draft with its document, for a user whose role the access check already found. */
 export async function draftDetail(models: Models, draftId: number, role: StudioRole): Promise<DraftDetail> {
+  const row = await detailRow(models, draftId, ['thumbnail']);
+  return { ...summaryOfRow(row), document: row.document, role };
+}
+
+/** One draft's library entry, without reading its document (which may be a megabyte of JSON to decode). */
+export async function draftSummary(models: Models, draftId: number): Promise<DraftSummary> {
+  return summaryOfRow(await detailRow(models, draftId, LARGE_COLUMNS));
+}
+
+const summaryOfRow = (row: DraftRow) =>
+  summary({ ...row.get(), ownerName: row.owner?.name ?? '', studioName: row.studio?.name ?? null });
+
+async function detailRow(models: Models, draftId: number, exclude: string[]) {
   const row = await models.Draft.findByPk(draftId, {
-    attributes: { exclude: ['thumbnail'] },
+    attributes: { exclude },
     include: [
       { model: models.User, as: 'owner', attributes: ['name'] },
       { model: models.Studio, as: 'studio', attributes: ['name'] },
     ],
   });
   if (!row) throw notFound('No such draft');
-  return { ...summary({ ...row.get(), ownerName: row.owner?.name ?? '', studioName: row.studio?.name ?? null }), document: row.document, role };
+  return row;
 }

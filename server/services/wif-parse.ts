@@ -2,6 +2,7 @@ import { EventEmitter } from 'node:events';
 import { Worker } from 'node:worker_threads';
 import type { ErrorCode } from '../../shared/api/errors';
 import { HttpError } from '../http/errors';
+import type { DerivedColumns } from './draft-derived';
 import { draftFromWifFile } from './draft-files';
 
 /**
@@ -24,8 +25,11 @@ export type WifParseReply =
 /** 'start' and 'end' of each read done on the thread: how a test sees that requests are answered meanwhile. */
 export const wifParseEvents = new EventEmitter();
 
-/** A WIF file read: the draft, and what was read by a guess or left out. */
-export type WifUpload = ReturnType<typeof draftFromWifFile>;
+/**
+ * A WIF file read: the draft, and what was read by a guess or left out; for a large file read on
+ * the thread, also the draft's library columns, worked out there (the cloth checked).
+ */
+export type WifUpload = ReturnType<typeof draftFromWifFile> & { derived?: DerivedColumns };
 
 interface Waiting {
   resolve: (upload: WifUpload) => void;
