@@ -320,7 +320,7 @@ describe('share tokens', () => {
     for (const token of tokens) {
       const bytes = Buffer.from(token, 'base64url');
       expect(bytes.toString('base64url')).toBe(token);
-      // Source: NIST SP 800-63B §5.1 and OWASP session guidance ask for at least 64 bits; the brief asks for 128 (from memory).
+      // Source: NIST SP 800-63B §5.1 and OWASP session guidance ask for at least 64 bits (from memory); we keep 128 for margin.
       expect(bytes.length * 8).toBeGreaterThanOrEqual(128);
       for (const b of bytes) for (let k = 0; k < 8; k++) ones += (b >> k) & 1;
       bits += bytes.length * 8;
