@@ -157,12 +157,13 @@ describe('GET /api/drafts/:id/print.pdf', () => {
     expect(pages).toBeGreaterThan(100);
     expect(text[0]).toContain('the draft sheets show every end and pick');
     // The print yields every 25 ms of work (PRINT_SLICE_MS). On a quiet machine the longest block
-    // is under 0.1 s; on a shared, busy one every slice stretches, so the check is relative: a print
-    // that did not yield would hold the loop for its whole run.
+    // is under 0.1 s; on a shared, busy one every slice stretches and the process is descheduled
+    // now and then, so the check is relative: a print that did not yield would hold the loop for
+    // nearly its whole run, well past half of it.
     const worstBlockMs = delay.max / 1e6;
     console.log(`print of ${pages} pages: ${total.toFixed(0)} ms; ${waits.length} other requests, slowest ${Math.max(...waits).toFixed(0)} ms; longest event-loop block ${worstBlockMs.toFixed(0)} ms`);
     expect(waits.length).toBeGreaterThan(3);
-    expect(worstBlockMs).toBeLessThan(total / 4);
+    expect(worstBlockMs).toBeLessThan(total / 2);
   });
 });
 
