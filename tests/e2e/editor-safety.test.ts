@@ -164,6 +164,9 @@ describe('never lose work', () => {
       [...document.querySelectorAll('a')].find((a) => a.textContent === 'Plan')!.click();
     });
     await page.waitForURL(/\/plan$/);
+    // The weaver reloads once the Plan section is open: the editor has closed and sent its unsent
+    // edit on the way out (a request that outlives the page).
+    await page.getByTestId('draft-canvas').waitFor({ state: 'detached' });
     await page.goto(draftUrl);
     await page.getByTestId('draft-canvas').waitFor();
     await expect.poll(async () => (await serverDraft(page, id)).document.threading[0]).toEqual([8]);
